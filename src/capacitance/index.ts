@@ -1,0 +1,1 @@
+export { parallelPlateCapacitance } from "./parallel-plate.js";

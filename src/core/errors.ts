@@ -1,0 +1,112 @@
+/**
+ * Stable error codes. These strings are public API: adding a code is a minor
+ * change, renaming or removing one is a breaking change.
+ */
+export const ERROR_CODES = [
+  "unknown_formula", // no formula with that id
+  "unknown_input", // an input name the formula does not have
+  "missing_input", // a required input was not given
+  "wrong_type", // not a number / string / array of the expected shape
+  "unparsable", // a string that is neither a number nor a unit mathjs understands
+  "wrong_dimension", // a unit of the wrong dimension ("5 kg" for a length)
+  "not_finite", // NaN or +-Infinity
+  "out_of_domain", // outside the input's domain, or a relation between inputs fails
+  "out_of_range", // the result is not representable (overflow) for legal inputs
+  "no_solution", // solve: no input value in range reaches the target
+  "several_solutions", // solve: more than one input value reaches the target
+  "invalid_argument", // a tool was called with an unusable option
+] as const;
+
+export type ErrorCode = (typeof ERROR_CODES)[number];
+
+export interface FormulaErrorFields {
+  /** Formula id, when the error concerns one formula. */
+  formula?: string | undefined;
+  /** Input name the error is about. */
+  input?: string | undefined;
+  /** The offending value, as given (numbers and short strings only). */
+  value?: unknown;
+  /** For wrong_dimension: the dimension the input needs. */
+  expected?: string | undefined;
+  /** For wrong_dimension: the dimension that was given. */
+  received?: string | undefined;
+  /** For out_of_domain: the rule that failed, e.g. "> 0" or "innerRadius < outerRadius". */
+  rule?: string | undefined;
+  /** Free detail appended to the message. */
+  detail?: string | undefined;
+}
+
+/**
+ * The one error class of the library. `code` is stable; `message` is built from
+ * the fields, so programs should branch on `code` and `input`, not the text.
+ */
+export class FormulaError extends Error {
+  readonly code: ErrorCode;
+  readonly formula: string | undefined;
+  readonly input: string | undefined;
+  readonly value: unknown;
+  readonly expected: string | undefined;
+  readonly received: string | undefined;
+  readonly rule: string | undefined;
+
+  constructor(code: ErrorCode, fields: FormulaErrorFields = {}) {
+    super(buildMessage(code, fields));
+    this.name = "FormulaError";
+    this.code = code;
+    this.formula = fields.formula;
+    this.input = fields.input;
+    this.value = fields.value;
+    this.expected = fields.expected;
+    this.received = fields.received;
+    this.rule = fields.rule;
+  }
+
+  /** Plain JSON for API responses. */
+  toJSON(): Record<string, unknown> {
+    return {
+      code: this.code, message: this.message, formula: this.formula, input: this.input,
+      expected: this.expected, received: this.received, rule: this.rule,
+    };
+  }
+}
+
+function show(v: unknown): string {
+  if (typeof v === "string") return JSON.stringify(v.length > 60 ? `${v.slice(0, 57)}...` : v);
+  if (typeof v === "number" || typeof v === "boolean" || v === null || v === undefined) return String(v);
+  if (Array.isArray(v)) return "an array";
+  return `a value of type ${typeof v}`;
+}
+
+function buildMessage(code: ErrorCode, f: FormulaErrorFields): string {
+  const where = f.formula ? `${f.formula}: ` : "";
+  const inp = f.input ? `input "${f.input}"` : "input";
+  const tail = f.detail ? ` (${f.detail})` : "";
+  switch (code) {
+    case "unknown_formula":
+      return `unknown formula ${show(f.value)}${tail}`;
+    case "unknown_input":
+      return `${where}unknown ${inp}${tail}`;
+    case "missing_input":
+      return `${where}${inp} is required${tail}`;
+    case "wrong_type":
+      return `${where}${inp} got ${show(f.value)}; expected ${f.expected ?? "a number or unit string"}${tail}`;
+    case "unparsable":
+      return `${where}${inp} could not be read: ${show(f.value)}${tail}`;
+    case "wrong_dimension":
+      return `${where}${inp} needs ${f.expected}, got ${f.received}${f.value !== undefined ? ` from ${show(f.value)}` : ""}${tail}`;
+    case "not_finite":
+      return `${where}${inp} must be a finite number, got ${show(f.value)}${tail}`;
+    case "out_of_domain":
+      return f.input && f.value !== undefined
+        ? `${where}${inp} must be ${f.rule}, got ${show(f.value)}${tail}`
+        : `${where}inputs must satisfy ${f.rule}${tail}`;
+    case "out_of_range":
+      return `${where}the result is out of the representable range${tail}`;
+    case "no_solution":
+      return `${where}no value of ${inp} reaches the target${tail}`;
+    case "several_solutions":
+      return `${where}more than one value of ${inp} reaches the target${tail}`;
+    case "invalid_argument":
+      return `${where}${f.input ? `${inp}: ` : ""}invalid argument${tail}`;
+  }
+}

@@ -1,0 +1,162 @@
+import { FormulaError } from "./errors.js";
+import { buildFastPath } from "./fast-path.js";
+import type {
+  ComputeInputs, ComputeOutput, Detailed, Domain, FormulaDefinition, FormulaInputs, FormulaOutput,
+  InputSpecs, Note, OutputSpec,
+} from "./spec.js";
+
+/**
+ * A formula: call it with typed inputs to get a typed quantity. The call checks
+ * domains and relations (cheap comparisons) and throws FormulaError; use
+ * `details` for the result with its validity warnings and cautions.
+ */
+export interface Formula<I extends InputSpecs = InputSpecs, O extends OutputSpec = OutputSpec> {
+  (inputs: FormulaInputs<I>): FormulaOutput<O>;
+  readonly id: string;
+  readonly definition: FormulaDefinition<I, O>;
+  /** Result with validity warnings and cautions. */
+  details(inputs: FormulaInputs<I>): Detailed<FormulaOutput<O>>;
+  /**
+   * Checks plain SI inputs (types, finiteness, domains, relations), fills defaults,
+   * and returns the object `compute` takes. Shared by evaluate, solve, sweeps.
+   */
+  prepare(inputs: Readonly<Record<string, unknown>>): ComputeInputs<I>;
+  /** Computes from prepared inputs and checks the result is finite. */
+  run(x: ComputeInputs<I>): ComputeOutput<O>;
+  /** Warnings and cautions for prepared inputs and their result. */
+  notes(x: ComputeInputs<I>, value: ComputeOutput<O>): { warnings: Note[]; cautions: Note[] };
+}
+
+/** A formula of any inputs and output, as held by the registry. */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+export type AnyFormula = Formula<any, any>;
+
+const FORMULA = Symbol.for("emquant.formula");
+
+/** True for values made by `defineFormula`. */
+export function isFormula(v: unknown): v is AnyFormula {
+  return typeof v === "function" && (v as unknown as Record<symbol, unknown>)[FORMULA] === true;
+}
+
+/** Rule text of a domain, for messages and docs: "> 0", ">= 1 and integer". */
+export function domainRule(d: Domain): string {
+  const parts: string[] = [];
+  if (d.min !== undefined) parts.push(`${d.minExclusive ? ">" : ">="} ${d.min}`);
+  if (d.max !== undefined) parts.push(`${d.maxExclusive ? "<" : "<="} ${d.max}`);
+  if (d.integer) parts.push("a whole number");
+  return parts.join(" and ") || "finite";
+}
+
+function inDomain(v: number, d: Domain): boolean {
+  if (d.min !== undefined && (d.minExclusive ? !(v > d.min) : !(v >= d.min))) return false;
+  if (d.max !== undefined && (d.maxExclusive ? !(v < d.max) : !(v <= d.max))) return false;
+  if (d.integer && !Number.isInteger(v)) return false;
+  return true;
+}
+
+/**
+ * Define a formula once; the typed function, registry metadata, `evaluate`,
+ * errors, notes and the design tools all derive from this definition.
+ * Mark calls `/* @__PURE__ *\/` so bundlers drop unused formulas.
+ */
+export function defineFormula<const I extends InputSpecs, const O extends OutputSpec>(
+  def: FormulaDefinition<I, O>,
+): Formula<I, O> {
+  const id = def.id;
+  const names = Object.keys(def.inputs);
+  const specs = names.map((n) => def.inputs[n]!);
+  const nComponents = def.output.components?.length ?? 0;
+
+  function prepare(raw: Readonly<Record<string, unknown>>): ComputeInputs<I> {
+    if (typeof raw !== "object" || raw === null || Array.isArray(raw)) {
+      throw new FormulaError("wrong_type", { formula: id, input: "inputs", value: raw, expected: "an object of named inputs" });
+    }
+    // A fresh object holding only the declared inputs, defaults filled.
+    const x: Record<string, unknown> = {};
+    for (let i = 0; i < names.length; i++) {
+      const n = names[i]!;
+      const v = Object.hasOwn(raw, n) ? raw[n] : undefined;
+      x[n] = v === undefined ? specs[i]!.default : v;
+      checkInput(n, specs[i]!, x[n]);
+    }
+    const xs = x as ComputeInputs<I>;
+    if (def.relations) {
+      for (const r of def.relations) {
+        if (!r.holds(xs)) throw new FormulaError("out_of_domain", { formula: id, rule: r.rule, detail: quoteInputs(xs) });
+      }
+    }
+    return xs;
+  }
+
+  function checkInput(name: string, spec: InputSpecs[string], v: unknown): void {
+    if (v === undefined) throw new FormulaError("missing_input", { formula: id, input: name });
+    if ("choices" in spec) {
+      if (typeof v !== "string" || !spec.choices.includes(v)) {
+        throw new FormulaError("out_of_domain", { formula: id, input: name, value: v, rule: `one of ${spec.choices.join(", ")}` });
+      }
+      return;
+    }
+    if (spec.vector) {
+      if (!Array.isArray(v) || v.length !== 3) {
+        throw new FormulaError("wrong_type", { formula: id, input: name, value: v, expected: "a 3-vector [x, y, z]" });
+      }
+      for (const c of v) checkNumber(name, spec.domain, c);
+      return;
+    }
+    checkNumber(name, spec.domain, v);
+  }
+
+  function checkNumber(name: string, domain: Domain | undefined, v: unknown): void {
+    if (typeof v !== "number") throw new FormulaError("wrong_type", { formula: id, input: name, value: v, expected: "a number in SI units" });
+    if (v - v !== 0) throw new FormulaError("not_finite", { formula: id, input: name, value: v });
+    if (domain !== undefined && !inDomain(v, domain)) {
+      throw new FormulaError("out_of_domain", { formula: id, input: name, value: v, rule: domainRule(domain) });
+    }
+  }
+
+  function run(x: ComputeInputs<I>): ComputeOutput<O> {
+    const value = def.compute(x);
+    if (nComponents === 0) {
+      if ((value as number) - (value as number) !== 0) throw rangeError(x);
+    } else {
+      const arr = value as readonly number[];
+      for (let i = 0; i < arr.length; i++) if (arr[i]! - arr[i]! !== 0) throw rangeError(x);
+    }
+    return value;
+  }
+
+  function rangeError(x: ComputeInputs<I>): FormulaError {
+    return new FormulaError("out_of_range", { formula: id, detail: quoteInputs(x) });
+  }
+
+  function notes(x: ComputeInputs<I>, value: ComputeOutput<O>): { warnings: Note[]; cautions: Note[] } {
+    const pick = (list: FormulaDefinition<I, O>["validity"], always: boolean): Note[] => {
+      const out: Note[] = [];
+      for (const c of list ?? []) {
+        if (c.when ? c.when(x, value) : always) {
+          out.push({ code: c.code, message: typeof c.message === "function" ? c.message(x, value) : c.message });
+        }
+      }
+      return out;
+    };
+    return { warnings: pick(def.validity, false), cautions: pick(def.cautions, true) };
+  }
+
+  const checked = (inputs: unknown): unknown => run(prepare(inputs as Record<string, unknown>));
+  const fast = nComponents === 0 ? buildFastPath(def.inputs, def.compute, def.relations ?? [], checked) : undefined;
+  const formula = (fast ?? checked) as unknown as Formula<I, O>;
+  const details = (inputs: FormulaInputs<I>): Detailed<FormulaOutput<O>> => {
+    const x = prepare(inputs as Record<string, unknown>);
+    const value = run(x);
+    return { value: value as FormulaOutput<O>, ...notes(x, value) };
+  };
+  Object.defineProperty(formula, "name", { value: id });
+  Object.assign(formula, { id, definition: def, details, prepare, run, notes, [FORMULA]: true });
+  return formula;
+}
+
+function quoteInputs(x: Readonly<Record<string, unknown>>): string {
+  return Object.entries(x)
+    .map(([k, v]) => `${k} = ${Array.isArray(v) ? `[${v.join(", ")}]` : String(v)}`)
+    .join(", ");
+}

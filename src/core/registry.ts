@@ -1,0 +1,40 @@
+import * as capacitance from "../capacitance/index.js";
+import * as displacement from "../displacement/index.js";
+import * as flux from "../flux/index.js";
+import * as force from "../force/index.js";
+import * as inductance from "../inductance/index.js";
+import { FormulaError } from "./errors.js";
+import { type AnyFormula, isFormula } from "./formula.js";
+
+// Every formula module's exports are scanned, so adding a formula to a module's
+// index is all it takes to appear in the registry, evaluate, the CLI and docs.
+const modules: readonly Record<string, unknown>[] = [capacitance, inductance, flux, force, displacement];
+
+let byId: Map<string, AnyFormula> | undefined;
+
+function table(): Map<string, AnyFormula> {
+  if (byId) return byId;
+  byId = new Map();
+  for (const m of modules) {
+    for (const v of Object.values(m)) {
+      if (!isFormula(v)) continue;
+      if (byId.has(v.id) && byId.get(v.id) !== v) throw new Error(`duplicate formula id ${v.id}`);
+      byId.set(v.id, v);
+    }
+  }
+  return byId;
+}
+
+/** Every formula, sorted by category then id. */
+export function listFormulas(): AnyFormula[] {
+  return [...table().values()].sort(
+    (a, b) => a.definition.category.localeCompare(b.definition.category) || a.id.localeCompare(b.id),
+  );
+}
+
+/** The formula with this id; FormulaError "unknown_formula" otherwise. */
+export function getFormula(id: unknown): AnyFormula {
+  const f = typeof id === "string" ? table().get(id) : undefined;
+  if (!f) throw new FormulaError("unknown_formula", { value: id });
+  return f;
+}

@@ -1,0 +1,149 @@
+import type { DimensionName } from "../units/dimensions.js";
+import type { DimensionTypes, Vec3 } from "../units/types.js";
+
+/**
+ * The allowed range of an input, in SI. Every quantity input must also be
+ * finite; `integer` means a count (turns).
+ */
+export interface Domain {
+  readonly min?: number;
+  readonly minExclusive?: boolean;
+  readonly max?: number;
+  readonly maxExclusive?: boolean;
+  readonly integer?: boolean;
+}
+
+/** Common domains, so definitions read as words. */
+export const POSITIVE: Domain = { min: 0, minExclusive: true };
+export const NON_NEGATIVE: Domain = { min: 0 };
+export const AT_LEAST_ONE: Domain = { min: 1 };
+export const COUNT: Domain = { min: 1, integer: true };
+
+/** An input measured in a dimension (a scalar, or a 3-vector when `vector`). */
+export interface QuantityInput {
+  readonly dimension: DimensionName;
+  readonly description: string;
+  /** SI default; an input with a default may be omitted. */
+  readonly default?: number;
+  /** Omitted means any finite value. For vectors it applies to each component. */
+  readonly domain?: Domain;
+  readonly vector?: boolean;
+}
+
+/** An input that takes one of a fixed list of words (a coil shape, a mode). */
+export interface ChoiceInput {
+  readonly choices: readonly string[];
+  readonly description: string;
+  readonly default?: string;
+}
+
+export type InputSpec = QuantityInput | ChoiceInput;
+export type InputSpecs = Readonly<Record<string, InputSpec>>;
+
+/** What a formula returns: a scalar, or named components (a vector is ["x","y","z"]). */
+export interface OutputSpec {
+  readonly dimension: DimensionName;
+  readonly description: string;
+  readonly components?: readonly string[];
+}
+
+/** A published source, or "common practice" / a derivation named as such. */
+export interface Source {
+  /** Authors or body, e.g. "H. A. Wheeler"; "common practice" for trade knowledge. */
+  readonly authors: string;
+  readonly year?: number;
+  readonly title: string;
+  /** Equation, table or page, e.g. "eq. (21)". */
+  readonly locator?: string;
+}
+
+/** SI values handed to `compute`, defaults filled in. */
+export type ComputeInputs<I extends InputSpecs> = {
+  readonly [K in keyof I]: I[K] extends { readonly choices: readonly (infer C)[] }
+    ? C
+    : I[K] extends { readonly vector: true }
+      ? Vec3<number>
+      : number;
+};
+
+/** A condition on the inputs (and result) under which a warning or caution applies. */
+export interface Condition<I extends InputSpecs> {
+  /** Stable identifier, e.g. "fringing". */
+  readonly code: string;
+  /** Text shown to the user; may quote the inputs. */
+  readonly message: string | ((x: ComputeInputs<I>, value: number | readonly number[]) => string);
+  /** True when the note applies. Cautions without `when` always apply. */
+  readonly when?: (x: ComputeInputs<I>, value: number | readonly number[]) => boolean;
+}
+
+/** A relation between inputs that must hold (inner < outer), with its rule text. */
+export interface Relation<I extends InputSpecs> {
+  /** The rule as a user reads it, e.g. "innerRadius < outerRadius". */
+  readonly rule: string;
+  readonly holds: (x: ComputeInputs<I>) => boolean;
+}
+
+export type ComputeOutput<O extends OutputSpec> = O extends { readonly components: readonly string[] }
+  ? readonly number[]
+  : number;
+
+/** The one declarative definition from which everything else is derived. */
+export interface FormulaDefinition<I extends InputSpecs, O extends OutputSpec> {
+  /** Exported name and registry id, e.g. "coaxialCapacitance". */
+  readonly id: string;
+  readonly title: string;
+  /** Module family: "capacitance", "inductance", "flux", "fields", "force", "motion", "displacement". */
+  readonly category: string;
+  /** One or two sentences: what is computed and under which assumptions. */
+  readonly description: string;
+  /** The equation in plain text with its symbols. */
+  readonly equation: string;
+  readonly inputs: I;
+  readonly output: O;
+  readonly relations?: readonly Relation<I>[];
+  /** Warnings when the approximation's stated accuracy no longer holds. */
+  readonly validity?: readonly Condition<I>[];
+  /** Hazards (stored energy, high voltage, strong fields, fault forces). */
+  readonly cautions?: readonly Condition<I>[];
+  readonly source: Source | readonly Source[];
+  /** Plain-number SI computation in a numerically stable form. */
+  readonly compute: (x: ComputeInputs<I>) => ComputeOutput<O>;
+}
+
+// ---- the typed face ----
+
+type InputType<S> = S extends { readonly choices: readonly (infer C)[] }
+  ? C
+  : S extends { readonly dimension: infer D extends DimensionName; readonly vector: true }
+    ? Vec3<DimensionTypes[D]>
+    : S extends { readonly dimension: infer D extends DimensionName }
+      ? DimensionTypes[D]
+      : never;
+
+type OptionalKeys<I> = { [K in keyof I]: I[K] extends { readonly default: unknown } ? K : never }[keyof I];
+type Simplify<T> = { [K in keyof T]: T[K] } & {};
+
+/** The typed input object of a formula: required inputs plus optional ones that have defaults. */
+export type FormulaInputs<I extends InputSpecs> = Simplify<
+  { readonly [K in Exclude<keyof I, OptionalKeys<I>>]: InputType<I[K]> } & {
+    readonly [K in OptionalKeys<I>]?: InputType<I[K]>;
+  }
+>;
+
+/** The typed result of a formula: a quantity, or a readonly array of component quantities. */
+export type FormulaOutput<O extends OutputSpec> = O extends { readonly components: readonly string[] }
+  ? readonly DimensionTypes[O["dimension"]][]
+  : DimensionTypes[O["dimension"]];
+
+/** A warning or caution attached to a result. */
+export interface Note {
+  readonly code: string;
+  readonly message: string;
+}
+
+/** A value together with the notes that apply to it. */
+export interface Detailed<V> {
+  readonly value: V;
+  readonly warnings: readonly Note[];
+  readonly cautions: readonly Note[];
+}

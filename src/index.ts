@@ -1,0 +1,17 @@
+// The package root. Typed formulas and units never load mathjs; `evaluate`
+// creates its private mathjs instance on first use.
+export * from "./units/index.js";
+export { FormulaError, ERROR_CODES } from "./core/errors.js";
+export type { ErrorCode, FormulaErrorFields } from "./core/errors.js";
+export { defineFormula, isFormula, domainRule } from "./core/formula.js";
+export type { Formula, AnyFormula } from "./core/formula.js";
+export type * from "./core/spec.js";
+export { POSITIVE, NON_NEGATIVE, AT_LEAST_ONE, COUNT } from "./core/spec.js";
+export { evaluate } from "./core/evaluate.js";
+export type { EvaluateResult, RawInput } from "./core/evaluate.js";
+export { listFormulas, getFormula } from "./core/registry.js";
+export * from "./capacitance/index.js";
+export * from "./inductance/index.js";
+export * from "./flux/index.js";
+export * from "./force/index.js";
+export * from "./displacement/index.js";

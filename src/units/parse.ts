@@ -1,0 +1,105 @@
+import { all, create, type MathJsInstance } from "mathjs";
+import { FormulaError } from "../core/errors.js";
+import type { Exponents } from "./dimensions.js";
+
+/**
+ * Run-time unit strings ("0.2 mm", "4.7 uF") are read by mathjs, on a private
+ * instance created on first use, so importing typed formulas never loads mathjs.
+ */
+let instance: MathJsInstance | undefined;
+
+/** The library's private mathjs instance, with the trade's units put right. */
+export function unitMath(): MathJsInstance {
+  instance ??= createUnitMath();
+  return instance;
+}
+
+/** A fresh mathjs instance with emquant's unit corrections applied. */
+export function createUnitMath(): MathJsInstance {
+  const math = create(all!, {});
+  addTradeUnits(math);
+  return math;
+}
+
+/**
+ * Units this trade uses that mathjs 15 lacks or defines with an outdated value.
+ * Registered through mathjs's own API on the given instance, never the global one.
+ */
+export function addTradeUnits(math: MathJsInstance): void {
+  math.createUnit(
+    {
+      // mathjs 15 uses 1.602176565e-19 J (CODATA 2010); the SI fixes e exactly since 2019.
+      eV: { definition: "1.602176634e-19 J", prefixes: "short", aliases: ["electronvolt", "electronvolts"] },
+      // Long names take long prefixes (milligauss), symbols take short ones (mG).
+      gauss: { definition: "1e-4 T", prefixes: "long", aliases: ["gausses"] },
+      G: { definition: "1 gauss", prefixes: "short" },
+      maxwell: { definition: "1e-8 Wb", prefixes: "long", aliases: ["maxwells"] },
+      Mx: { definition: "1 maxwell", prefixes: "short" },
+      // 1 Oe = 1000/(4 pi) A/m by definition of the CGS-Gaussian unit.
+      oersted: { definition: `${1000 / (4 * Math.PI)} A/m`, prefixes: "long", aliases: ["oersteds"] },
+      Oe: { definition: "1 oersted", prefixes: "short" },
+      // Unified atomic mass unit (dalton), CODATA 2022 m_u.
+      dalton: { definition: "1.66053906892e-27 kg", prefixes: "long", aliases: ["daltons"] },
+      Da: { definition: "1 dalton", prefixes: "short" },
+      u: { definition: "1 dalton" },
+      ampereturn: { definition: "1 A", prefixes: "long", aliases: ["ampereturns"] },
+      At: { definition: "1 A", prefixes: "short" },
+    },
+    { override: true },
+  );
+}
+
+/** A parsed run-time quantity: SI value and dimension exponents [L,M,T,I,Θ,N,J,angle]. */
+export interface ParsedQuantity {
+  readonly si: number;
+  readonly exps: Exponents;
+  /** True for a bare number ("1e-3"), which callers read as SI. */
+  readonly plain: boolean;
+}
+
+const MAX_TEXT = 200;
+const CACHE_LIMIT = 4096;
+const cache = new Map<string, ParsedQuantity>();
+const PLAIN_NUMBER = /^\s*[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*$/;
+const ZERO: Exponents = Object.freeze([0, 0, 0, 0, 0, 0, 0, 0]) as Exponents;
+
+/**
+ * Parse "value unit" text into SI. Results are cached per exact string; cached
+ * records are frozen primitives, so no caller can change another's answer.
+ * Throws FormulaError "unparsable" (naming `input`) for anything else.
+ */
+export function parseQuantity(text: string, input?: string, formula?: string): ParsedQuantity {
+  const hit = cache.get(text);
+  if (hit !== undefined) return hit;
+  const parsed = parseUncached(text, input, formula);
+  if (cache.size >= CACHE_LIMIT) cache.clear(); // bounded memory under hostile input
+  cache.set(text, parsed);
+  return parsed;
+}
+
+function parseUncached(text: string, input?: string, formula?: string): ParsedQuantity {
+  const fail = (detail?: string): FormulaError =>
+    new FormulaError("unparsable", { input, formula, value: text, detail });
+  if (text.length > MAX_TEXT) throw fail(`longer than ${MAX_TEXT} characters`);
+  if (PLAIN_NUMBER.test(text)) return Object.freeze({ si: Number(text), exps: ZERO, plain: true });
+  let unit;
+  try {
+    unit = unitMath().unit(text);
+  } catch {
+    throw fail('expected a number followed by a unit, e.g. "0.2 mm"');
+  }
+  if (typeof (unit.value as unknown) !== "number") throw fail("a unit needs a numeric value in front of it");
+  // toSI applies offsets (degC) and scale; the value of a unit is not always SI.
+  const value = unit.toSI().value as unknown;
+  if (typeof value !== "number") throw fail("a unit needs a real numeric value");
+  const d = unit.dimensions;
+  // mathjs order: MASS, LENGTH, TIME, CURRENT, TEMPERATURE, LUMINOUS_INTENSITY, AMOUNT, ANGLE, BIT
+  if (d[8] !== 0) throw fail("bits and bytes are not physical quantities here");
+  const exps = Object.freeze([d[1], d[0], d[2], d[3], d[4], d[6], d[5], d[7]]) as unknown as Exponents;
+  return Object.freeze({ si: value, exps, plain: false });
+}
+
+/** Number of cached unit strings (for tests and diagnostics). */
+export function unitCacheSize(): number {
+  return cache.size;
+}

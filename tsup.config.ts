@@ -1,0 +1,13 @@
+import { defineConfig } from "tsup";
+
+export default defineConfig({
+  entry: { index: "src/index.ts", cli: "src/cli/main.ts" },
+  format: ["esm", "cjs"],
+  dts: { entry: { index: "src/index.ts" } },
+  sourcemap: true,
+  clean: true,
+  treeshake: true,
+  target: "es2022",
+  // Keep dependencies external so consumers' bundlers can tree-shake them.
+  external: ["mathjs", "decimal.js"],
+});
