@@ -25,8 +25,8 @@ export const parallelPlateCapacitance = /* @__PURE__ */ defineFormula({
   description: "Capacitance of two parallel conducting plates of equal area, fringing neglected.",
   equation: "C = eps0 * epsr * A / d",
   inputs: {
-    area: { dimension: "Area", description: "Area of one plate (overlap area)", domain: POSITIVE },
-    gap: { dimension: "Length", description: "Distance between the plates", domain: POSITIVE },
+    area: { dimension: "Area", description: "Area of one plate (overlap area)", domain: POSITIVE, example: 1e-4 },
+    gap: { dimension: "Length", description: "Distance between the plates", domain: POSITIVE, example: 1e-4 },
     relativePermittivity: RELATIVE_PERMITTIVITY,
   },
   output: { dimension: "Capacitance", description: "Capacitance" },

@@ -6,4 +6,5 @@ export const RELATIVE_PERMITTIVITY = {
   description: "Relative permittivity of the dielectric (1 for vacuum)",
   default: 1,
   domain: AT_LEAST_ONE,
+  example: 4.4,
 } as const;

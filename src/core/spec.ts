@@ -28,6 +28,13 @@ export interface QuantityInput {
   /** Omitted means any finite value. For vectors it applies to each component. */
   readonly domain?: Domain;
   readonly vector?: boolean;
+  /**
+   * A typical SI value (a 3-array for vectors) within the domain and satisfying
+   * the relations together with the other inputs' examples. Used by the CLI,
+   * docs, solve's search start, sweeps and the registry-wide property tests.
+   * Every input is expected to have one (a registry test checks).
+   */
+  readonly example?: number | readonly number[];
 }
 
 /** An input that takes one of a fixed list of words (a coil shape, a mode). */
@@ -35,6 +42,7 @@ export interface ChoiceInput {
   readonly choices: readonly string[];
   readonly description: string;
   readonly default?: string;
+  readonly example?: string;
 }
 
 export type InputSpec = QuantityInput | ChoiceInput;
