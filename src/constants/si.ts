@@ -20,3 +20,13 @@ export const EPSILON0 = 8.8541878188e-12;
 export const ELECTRON_MASS = 9.1093837139e-31;
 /** Proton mass, kg (CODATA 2022). */
 export const PROTON_MASS = 1.67262192595e-27;
+/** Neutron mass, kg (CODATA 2022). */
+export const NEUTRON_MASS = 1.67492750056e-27;
+/** Atomic mass constant m_u = 1 Da, kg (CODATA 2022). */
+export const ATOMIC_MASS_CONSTANT = 1.66053906892e-27;
+/** Alpha particle mass, kg (CODATA 2022). */
+export const ALPHA_PARTICLE_MASS = 6.644657345e-27;
+/** Deuteron mass, kg (CODATA 2022). */
+export const DEUTERON_MASS = 3.3435837768e-27;
+/** Muon mass, kg (CODATA 2022). */
+export const MUON_MASS = 1.883531627e-28;

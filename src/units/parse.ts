@@ -62,6 +62,8 @@ const CACHE_LIMIT = 4096;
 const cache = new Map<string, ParsedQuantity>();
 const PLAIN_NUMBER = /^\s*[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*$/;
 const ZERO: Exponents = Object.freeze([0, 0, 0, 0, 0, 0, 0, 0]) as Exponents;
+// The typed table writes reciprocal units "1/m^3", "1/H"; mathjs reads "5 /m^3" but not "5 1/m^3".
+const RECIPROCAL = /^(\s*[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?\s+)1\s*\//;
 
 /**
  * Parse "value unit" text into SI. Results are cached per exact string; cached
@@ -84,7 +86,7 @@ function parseUncached(text: string, input?: string, formula?: string): ParsedQu
   if (PLAIN_NUMBER.test(text)) return Object.freeze({ si: Number(text), exps: ZERO, plain: true });
   let unit;
   try {
-    unit = unitMath().unit(text);
+    unit = unitMath().unit(text.replace(RECIPROCAL, "$1/"));
   } catch {
     throw fail('expected a number followed by a unit, e.g. "0.2 mm"');
   }

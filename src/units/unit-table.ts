@@ -133,3 +133,9 @@ export function lookupUnit(symbol: string): readonly [string, number] | undefine
   table ??= buildTable();
   return table.get(symbol);
 }
+
+/** Every unit symbol of the typed table (prefixed forms spelled out), for tests and docs. */
+export function listUnitSymbols(): string[] {
+  table ??= buildTable();
+  return [...table.keys()];
+}

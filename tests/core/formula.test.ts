@@ -1,0 +1,119 @@
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import { defineFormula, evaluate, FormulaError, POSITIVE, type Length } from "../../src/index.js";
+
+// A formula defined only for these tests: the core's behaviour, not physics.
+const ratio = defineFormula({
+  id: "testRatio",
+  title: "Test ratio",
+  category: "test",
+  description: "Ratio of two lengths, for core tests.",
+  equation: "r = a / b",
+  inputs: {
+    shorter: { dimension: "Length", description: "a", domain: POSITIVE, example: 1 },
+    longer: { dimension: "Length", description: "b", domain: POSITIVE, example: 2 },
+    factor: { dimension: "Dimensionless", description: "k", default: 1, domain: { min: 1, max: 10 }, example: 2 },
+    mode: { choices: ["plain", "doubled"], description: "m", default: "plain", example: "plain" },
+  },
+  output: { dimension: "Dimensionless", description: "ratio" },
+  relations: [{ rule: "shorter < longer", holds: (x) => x.shorter < x.longer }],
+  validity: [{ code: "close", when: (x) => x.shorter > 0.9 * x.longer, message: "nearly equal" }],
+  cautions: [{ code: "always", message: "test caution" }],
+  source: { authors: "common practice", title: "test" },
+  compute: (x) => (x.factor * x.shorter) / x.longer * (x.mode === "doubled" ? 2 : 1),
+});
+
+function codeOf(fn: () => unknown): string | undefined {
+  try {
+    fn();
+  } catch (e) {
+    expect(e).toBeInstanceOf(FormulaError);
+    return (e as FormulaError).code;
+  }
+  return undefined;
+}
+
+describe("a defined formula", () => {
+  const m = (v: number) => v as Length;
+
+  it("computes with defaults filled in", () => {
+    expect(ratio({ shorter: m(1), longer: m(4) })).toBe(0.25);
+    expect(ratio({ shorter: m(1), longer: m(4), factor: 2, mode: "doubled" })).toBe(1);
+  });
+
+  it("gives the same answer and the same error codes on the fast and the generic path", () => {
+    fc.assert(
+      fc.property(fc.double(), fc.double(), fc.oneof(fc.constant(undefined), fc.double()), (a, b, k) => {
+        const inputs = { shorter: a, longer: b, factor: k } as never;
+        let fast: unknown, slow: unknown;
+        try { fast = ratio(inputs); } catch (e) { fast = (e as FormulaError).code; }
+        try { slow = ratio.run(ratio.prepare(inputs)); } catch (e) { slow = (e as FormulaError).code; }
+        expect(fast).toEqual(slow);
+      }),
+    );
+  });
+
+  it("reports each kind of bad input with its code and the input's name", () => {
+    expect(codeOf(() => ratio({ shorter: m(-1), longer: m(4) }))).toBe("out_of_domain");
+    expect(codeOf(() => ratio({ shorter: m(NaN), longer: m(4) }))).toBe("not_finite");
+    expect(codeOf(() => ratio({ shorter: "1" as never, longer: m(4) }))).toBe("wrong_type");
+    expect(codeOf(() => ratio({ shorter: m(1) } as never))).toBe("missing_input");
+    expect(codeOf(() => ratio({ shorter: m(5), longer: m(4) }))).toBe("out_of_domain");
+    expect(codeOf(() => ratio({ shorter: m(1), longer: m(4), factor: 11 }))).toBe("out_of_domain");
+    expect(codeOf(() => ratio({ shorter: m(1), longer: m(4), mode: "tripled" as never }))).toBe("out_of_domain");
+    try {
+      ratio({ shorter: m(5), longer: m(4) });
+    } catch (e) {
+      expect((e as FormulaError).rule).toBe("shorter < longer");
+      expect((e as Error).message).toContain("shorter < longer");
+    }
+  });
+
+  it("returns warnings only when their condition holds, and cautions always", () => {
+    const near = ratio.details({ shorter: m(0.95), longer: m(1) });
+    expect(near.warnings.map((w) => w.code)).toEqual(["close"]);
+    expect(near.cautions.map((w) => w.code)).toEqual(["always"]);
+    expect(ratio.details({ shorter: m(0.5), longer: m(1) }).warnings).toEqual([]);
+  });
+
+  it("turns a non-finite result into out_of_range instead of returning it", () => {
+    expect(codeOf(() => ratio({ shorter: m(1e300), longer: m(1e301), factor: 10 }))).toBeUndefined();
+    const overflow = defineFormula({
+      id: "testSquare", title: "t", category: "test", description: "square", equation: "a^2",
+      inputs: { a: { dimension: "Length", description: "a", example: 1 } },
+      output: { dimension: "Area", description: "a^2" },
+      source: { authors: "common practice", title: "test" },
+      compute: (x) => x.a * x.a,
+    });
+    expect(codeOf(() => overflow({ a: m(1e200) }))).toBe("out_of_range");
+  });
+});
+
+describe("evaluate", () => {
+  it("reads unit strings and returns the SI value with its unit", () => {
+    const r = evaluate("parallelPlateCapacitance", { area: "1 cm^2", gap: "0.1 mm" });
+    // eps0 (CODATA 2022) * 1e-4 m^2 / 1e-4 m
+    expect(r.value).toBeCloseTo(8.8541878188e-12, 22);
+    expect(r.unit).toBe("F");
+  });
+
+  it("rejects an unknown formula id with its code", () => {
+    expect(codeOf(() => evaluate("noSuchFormula", {}))).toBe("unknown_formula");
+    expect(codeOf(() => evaluate("toString", {}))).toBe("unknown_formula");
+  });
+
+  it("names the input, the expected and the given dimension on a unit mismatch", () => {
+    try {
+      evaluate("parallelPlateCapacitance", { area: "1 cm^2", gap: "5 kg" });
+      expect.unreachable();
+    } catch (e) {
+      const err = e as FormulaError;
+      expect([err.code, err.input, err.expected, err.received]).toEqual(["wrong_dimension", "gap", "Length", "Mass"]);
+    }
+  });
+
+  it("does not let prototype keys reach the formula", () => {
+    const inputs = JSON.parse('{"__proto__": {"gap": 1}, "area": 1}');
+    expect(codeOf(() => evaluate("parallelPlateCapacitance", inputs))).toBe("unknown_input");
+  });
+});

@@ -1,0 +1,52 @@
+import { describe, expect, it } from "vitest";
+import * as root from "../../src/index.js";
+import { DIMENSIONS } from "../../src/units/dimensions.js";
+import { evaluate, isFormula, listFormulas } from "../../src/index.js";
+
+const formulas = listFormulas();
+const CATEGORIES = new Set([
+  "capacitance", "inductance", "flux", "magnetic circuit", "magnetic field", "electric field",
+  "force", "particle", "displacement",
+]);
+
+describe("the formula registry", () => {
+  it("holds every formula exported from the package root, under its exported name", () => {
+    const exported = Object.entries(root).filter(([, v]) => isFormula(v));
+    expect(exported.length).toBe(formulas.length);
+    for (const [name, f] of exported) expect(isFormula(f) && f.id).toBe(name);
+  });
+
+  for (const f of formulas) {
+    const d = f.definition;
+    describe(f.id, () => {
+      it("names its category, title, equation, description and a source", () => {
+        expect(CATEGORIES.has(d.category)).toBe(true);
+        expect(d.title.length).toBeGreaterThan(3);
+        expect(d.equation.length).toBeGreaterThan(3);
+        expect(d.description.length).toBeGreaterThan(10);
+        const sources = Array.isArray(d.source) ? d.source : [d.source];
+        expect(sources.length).toBeGreaterThan(0);
+        for (const s of sources) expect(s.title.length * s.authors.length).toBeGreaterThan(0);
+      });
+
+      it("declares known dimensions and an example for every input", () => {
+        expect(Object.hasOwn(DIMENSIONS, d.output.dimension)).toBe(true);
+        for (const [name, spec] of Object.entries(d.inputs) as [string, Record<string, unknown>][]) {
+          expect(name).toMatch(/^[a-z][A-Za-z0-9]*$/);
+          expect(spec.example, `${f.id}.${name} has no example`).toBeDefined();
+          if (!("choices" in spec)) expect(Object.hasOwn(DIMENSIONS, spec.dimension as string)).toBe(true);
+        }
+      });
+
+      it("evaluates its examples to a finite value of the declared shape", () => {
+        const inputs: Record<string, unknown> = {};
+        for (const [name, spec] of Object.entries(d.inputs)) inputs[name] = spec.example;
+        const r = evaluate(f.id, inputs);
+        const values = Array.isArray(r.value) ? r.value : [r.value];
+        for (const v of values) expect(Number.isFinite(v)).toBe(true);
+        expect(values.length).toBe(d.output.components?.length ?? 1);
+        expect(r.unit).toBe(DIMENSIONS[d.output.dimension as keyof typeof DIMENSIONS].unit);
+      });
+    });
+  }
+});
