@@ -1,7 +1,8 @@
 import { EPSILON0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
+import { formatPercent } from "../core/format.js";
 import { POSITIVE } from "../core/spec.js";
-import { RELATIVE_PERMITTIVITY } from "./shared.js";
+import { mulDiv, RELATIVE_PERMITTIVITY } from "./shared.js";
 
 /**
  * Capacitance of two parallel plates with the field confined between them.
@@ -13,7 +14,7 @@ import { RELATIVE_PERMITTIVITY } from "./shared.js";
  * approaches the plate's width (warning when d exceeds 1 % of sqrt(A)).
  *
  * Reference: any electromagnetics text, e.g. D. J. Griffiths, Introduction to
- * Electrodynamics, 4th ed. (2017), Example 2.11.
+ * Electrodynamics, 4th ed. (2017), Sec. 2.5.4.
  *
  * @example
  * parallelPlateCapacitance({ area: quantity(1, "cm^2"), gap: quantity(0.1, "mm") }); // ≈ 8.854e-12 F
@@ -37,9 +38,10 @@ export const parallelPlateCapacitance = /* @__PURE__ */ defineFormula({
       // past d = 1 % of the plate size that is above a few per cent.
       when: (x) => x.gap > 0.01 * Math.sqrt(x.area),
       message: (x) =>
-        `gap is ${((100 * x.gap) / Math.sqrt(x.area)).toPrecision(2)} % of the plate size; fringing adds capacitance this formula neglects (above about 1 % it is no longer small)`,
+        `gap is ${formatPercent(x.gap / Math.sqrt(x.area))} of the plate size; fringing adds capacitance this formula neglects (above about 1 % it is no longer small)`,
     },
   ],
-  source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "Example 2.11" },
-  compute: (x) => (EPSILON0 * x.relativePermittivity * x.area) / x.gap,
+  source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "Sec. 2.5.4, Capacitors" },
+  // mulDiv: a tiny area or huge gap must not underflow in an intermediate product.
+  compute: (x) => mulDiv(EPSILON0, x.relativePermittivity, x.area, x.gap),
 });

@@ -8,3 +8,91 @@ export const RELATIVE_PERMITTIVITY = {
   domain: AT_LEAST_ONE,
   example: 4.4,
 } as const;
+
+// ---- numerics shared by the capacitance formulas ----
+//
+// Every geometry here reduces to C = (constant * epsr * length) / (a logarithm
+// or a ratio). Two things can go wrong in floating point: the logarithm of a
+// ratio near one loses digits when the ratio is formed first, and products of
+// extreme magnitudes (1e-200 m, 1e200 m) overflow or underflow in an
+// intermediate step although the result is representable. The helpers below
+// handle both; the decimal.js oracle in tests/capacitance checks them to 1e-12.
+
+const MIN_NORMAL = 2.2250738585072014e-308;
+const TWO_POW_64 = 18446744073709551616;
+const bits = new DataView(new ArrayBuffer(8));
+
+/**
+ * ln(b / a) for 0 < a < b, accurate to a few ulp everywhere.
+ * Near one (b <= 2a) the difference b - a is exact (Sterbenz lemma, also for
+ * subnormals), so log1p((b - a) / a) keeps every digit that ln(b / a) would lose
+ * by rounding b / a to a double near 1. Where b / a overflows, ln b - ln a has
+ * no cancellation (the difference exceeds 700).
+ */
+export function logOfRatio(b: number, a: number): number {
+  if (b <= 2 * a) return Math.log1p((b - a) / a);
+  const r = b / a;
+  return r <= Number.MAX_VALUE ? Math.log(r) : Math.log(b) - Math.log(a);
+}
+
+/**
+ * acosh(u / v) for 0 < v < u, accurate to a few ulp everywhere.
+ * Near one (u <= 2v) it is acosh(1 + s) = log1p(s + sqrt(s (2 + s))) with
+ * s = (u - v) / v formed from the exact difference (Sterbenz), so touching
+ * geometry keeps its digits. Above, acosh(w) = ln w + ln(1 + sqrt(1 - 1/w^2)):
+ * two positive terms (no cancellation) and no w^2 to overflow.
+ */
+export function acoshOfRatio(u: number, v: number): number {
+  if (u <= 2 * v) {
+    const s = (u - v) / v;
+    return Math.log1p(s + Math.sqrt(s * (2 + s)));
+  }
+  const w = v / u; // 1/(u/v) in (0, 1/2]; 0 only when u/v overflows, where the term is ln 2
+  return logOfRatio(u, v) + Math.log(1 + Math.sqrt((1 - w) * (1 + w)));
+}
+
+/**
+ * (a * b * c) / d for non-negative finite a, b, c and positive finite d, with no
+ * intermediate overflow or underflow. The plain product is used when every
+ * step stays a normal double (then each step is correctly rounded); otherwise
+ * mantissas and exponents are multiplied apart. A result beyond the largest
+ * double, or below the smallest normal one (where digits would be lost),
+ * returns Infinity, which the formula reports as `out_of_range`.
+ */
+export function mulDiv(a: number, b: number, c: number, d: number): number {
+  const ab = a * b;
+  const abc = ab * c;
+  const r = abc / d;
+  if (ab >= MIN_NORMAL && abc >= MIN_NORMAL && r >= MIN_NORMAL && r <= Number.MAX_VALUE) return r;
+  if (a === 0 || b === 0 || c === 0) return 0;
+  const [ma, ea] = split(a);
+  const [mb, eb] = split(b);
+  const [mc, ec] = split(c);
+  const [md, ed] = split(d);
+  // Each mantissa is in [1, 2): the quotient is in (1/2, 8), far from any limit.
+  const [m, em] = split((ma * mb * mc) / md);
+  const e = ea + eb + ec - ed + em;
+  if (e > 1023 || e < -1022) return Infinity;
+  return m * pow2(e);
+}
+
+// v = m * 2^e with m in [1, 2), for positive finite v (subnormals included).
+function split(v: number): [number, number] {
+  let offset = 0;
+  if (v < MIN_NORMAL) {
+    v *= TWO_POW_64; // exact: a power of two
+    offset = -64;
+  }
+  bits.setFloat64(0, v);
+  const hi = bits.getUint32(0);
+  const e = ((hi >>> 20) & 0x7ff) - 1023;
+  bits.setUint32(0, (hi & 0x800fffff) | 0x3ff00000);
+  return [bits.getFloat64(0), e + offset];
+}
+
+// 2^e exactly, for -1022 <= e <= 1023.
+function pow2(e: number): number {
+  bits.setUint32(0, (e + 1023) << 20);
+  bits.setUint32(4, 0);
+  return bits.getFloat64(0);
+}

@@ -91,7 +91,10 @@ export function defineFormula<const I extends InputSpecs, const O extends Output
   function checkInput(name: string, spec: InputSpecs[string], v: unknown): void {
     if (v === undefined) throw new FormulaError("missing_input", { formula: id, input: name });
     if ("choices" in spec) {
-      if (typeof v !== "string" || !spec.choices.includes(v)) {
+      if (typeof v !== "string") {
+        throw new FormulaError("wrong_type", { formula: id, input: name, value: v, expected: `one of ${spec.choices.join(", ")}` });
+      }
+      if (!spec.choices.includes(v)) {
         throw new FormulaError("out_of_domain", { formula: id, input: name, value: v, rule: `one of ${spec.choices.join(", ")}` });
       }
       return;

@@ -1,1 +1,4 @@
-export {};
+export {
+  displacementCurrent, capacitorDisplacementCurrent, displacementCurrentDensity, conductionDisplacementRatio,
+  crossoverFrequency, chargingCapacitorField, parasiticCouplingCurrent,
+} from "./displacement-current.js";

@@ -1,1 +1,4 @@
-export {};
+export { lorentzForce, wireForce, parallelWiresForce, magneticPressure, hallVoltage } from "./lorentz.js";
+export { cyclotronFrequency, gyroradius, relativisticGyroradius, driftVelocity } from "./particle.js";
+export { traceParticle } from "./trace.js";
+export type { FieldFunction, FieldSource, TraceOptions, ParticleTrace } from "./trace.js";

@@ -85,10 +85,15 @@ export function ellipticK(m: number, mc: number = 1 - m): number {
   return carlsonRF(0, mc, 1);
 }
 
-/** E(m) = R_F(0, mc, 1) - (m/3) R_D(0, mc, 1), for m <= 1. DLMF 19.25.1. */
+/**
+ * E(m) = mc R_F(0, mc, 1) + (m mc / 3) R_D(0, 1, mc), for m <= 1 (DLMF 19.25.1,
+ * from E - k'^2 K = (k^2 k'^2 / 3) R_D(0, 1, k'^2)). Both terms are positive:
+ * the form R_F - (m/3) R_D(0, mc, 1) subtracts two values of size ln(4/k') and
+ * loses about log10(ln(4/k')) digits as m -> 1 (5e-15 at mc = 1e-15).
+ */
 export function ellipticE(m: number, mc: number = 1 - m): number {
   if (mc === 0) return 1;
-  return carlsonRF(0, mc, 1) - (m / 3) * carlsonRD(0, mc, 1);
+  return mc * carlsonRF(0, mc, 1) + ((m * mc) / 3) * carlsonRD(0, 1, mc);
 }
 
 /**
@@ -97,4 +102,52 @@ export function ellipticE(m: number, mc: number = 1 - m): number {
  */
 export function ellipticD(m: number, mc: number = 1 - m): number {
   return carlsonRD(0, mc, 1) / 3;
+}
+
+/**
+ * E(m) - 1 without the cancellation of E(m) ≈ 1 near m = 1 (short coils,
+ * touching filaments). For mc <= 1/4 it sums the logarithmic series in the
+ * complementary modulus, DLMF 19.12.2:
+ *   E = 1 + (1/2) sum_j [(1/2)_j (3/2)_j / ((2)_j j!)] k'^(2j+2) [ln(1/k') + d(j) - 1/((2j+1)(2j+2))],
+ *   d(j) = psi(1+j) - psi(1/2+j), d(0) = ln 4, d(j+1) = d(j) + 1/(j+1) - 2/(2j+1);
+ * every term is positive there, so no digits cancel. Elsewhere E - 1 has no
+ * cancellation worth the name (E >= 1.21 for mc >= 1/4).
+ */
+export function ellipticEMinusOne(m: number, mc: number = 1 - m): number {
+  if (mc > 0.25) return ellipticE(m, mc) - 1;
+  if (mc === 0) return 0;
+  const lnInvKc = -0.5 * Math.log(mc);
+  let coef = 1; // (1/2)_j (3/2)_j / ((2)_j j!)
+  let d = 2 * Math.LN2; // d(0) = ln 4
+  let pow = mc; // k'^(2j+2)
+  let sum = 0;
+  for (let j = 0; j < 200; j++) {
+    const term = coef * pow * (lnInvKc + d - 1 / ((2 * j + 1) * (2 * j + 2)));
+    sum += term;
+    if (term <= 1e-17 * sum) break;
+    coef *= ((j + 0.5) * (j + 1.5)) / ((j + 2) * (j + 1));
+    d += 1 / (j + 1) - 2 / (2 * j + 1);
+    pow *= mc;
+  }
+  return 0.5 * sum;
+}
+
+/**
+ * Maxwell's combination (2 - m) K(m) - 2 E(m), which appears in the mutual
+ * inductance of coaxial circles. Written directly it loses all digits for small
+ * m (it is pi m^2 / 16 + ..., a difference of two O(1) terms). The descending
+ * Landen transformation k1 = (1 - k')/(1 + k') (DLMF 19.8.12, K(k) = (1 + k1) K(k1),
+ * E(k) = (2 E(k1) - (1 - k1^2) K(k1)) / (1 + k1), k = 2 sqrt(k1)/(1 + k1)) gives
+ *   (2/k - k) K(k) - (2/k) E(k) = 2 (K(k1) - E(k1)) / sqrt(k1) = 2 k1^(3/2) D(k1^2),
+ * so (2 - m) K - 2 E = 2 k k1^(3/2) D(k1^2),
+ * all factors positive, no subtraction. k1 = m / (1 + k')^2 and
+ * 1 - k1 = 2 k' / (1 + k') are formed without cancellation, so both ends
+ * (m -> 0, and mc -> 0 given directly) keep full precision.
+ */
+export function ellipticMaxwell(m: number, mc: number = 1 - m): number {
+  const k = Math.sqrt(m);
+  const kc = Math.sqrt(mc);
+  const k1 = m / ((1 + kc) * (1 + kc));
+  const mc1 = ((2 * kc) / (1 + kc)) * (1 + k1);
+  return 2 * k * k1 * Math.sqrt(k1) * ellipticD(k1 * k1, mc1);
 }

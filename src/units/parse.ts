@@ -96,6 +96,7 @@ function parseUncached(text: string, input?: string, formula?: string): ParsedQu
   if (typeof value !== "number") throw fail("a unit needs a real numeric value");
   const d = unit.dimensions;
   // mathjs order: MASS, LENGTH, TIME, CURRENT, TEMPERATURE, LUMINOUS_INTENSITY, AMOUNT, ANGLE, BIT
+  if (!d.every(Number.isFinite)) throw fail("unit exponents must be finite numbers");
   if (d[8] !== 0) throw fail("bits and bytes are not physical quantities here");
   const exps = Object.freeze([d[1], d[0], d[2], d[3], d[4], d[6], d[5], d[7]]) as unknown as Exponents;
   return Object.freeze({ si: value, exps, plain: false });

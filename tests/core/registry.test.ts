@@ -34,13 +34,13 @@ describe("the formula registry", () => {
         for (const [name, spec] of Object.entries(d.inputs) as [string, Record<string, unknown>][]) {
           expect(name).toMatch(/^[a-z][A-Za-z0-9]*$/);
           expect(spec.example, `${f.id}.${name} has no example`).toBeDefined();
-          if (!("choices" in spec)) expect(Object.hasOwn(DIMENSIONS, spec.dimension as string)).toBe(true);
+          if (!("choices" in spec)) expect(Object.hasOwn(DIMENSIONS, String(spec.dimension))).toBe(true);
         }
       });
 
       it("evaluates its examples to a finite value of the declared shape", () => {
         const inputs: Record<string, unknown> = {};
-        for (const [name, spec] of Object.entries(d.inputs)) inputs[name] = spec.example;
+        for (const [name, spec] of Object.entries(d.inputs as Record<string, { example?: unknown }>)) inputs[name] = spec.example;
         const r = evaluate(f.id, inputs);
         const values = Array.isArray(r.value) ? r.value : [r.value];
         for (const v of values) expect(Number.isFinite(v)).toBe(true);

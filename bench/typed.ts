@@ -1,0 +1,93 @@
+/**
+ * Typed formula calls against the same arithmetic written on plain numbers.
+ * The typed call checks every input's type, finiteness and domain, the
+ * relations and the result's finiteness; the ratio shows what that costs.
+ */
+import { EPSILON0, MU0 } from "../src/constants/si.js";
+import { coaxialCapacitance, idealSolenoidInductance, parallelPlateCapacitance } from "../src/index.js";
+import type { Area, Length } from "../src/units/types.js";
+import { type BenchRow, compare, ns, randomArray, times } from "./util.js";
+
+const N = 100_000;
+
+export async function run(): Promise<BenchRow[]> {
+  const rows: BenchRow[] = [];
+  const area = randomArray(N, 1e-6, 1e-2, 1);
+  const gap = randomArray(N, 1e-5, 1e-3, 2);
+  const er = randomArray(N, 1, 10, 3);
+
+  {
+    const pp = parallelPlateCapacitance;
+    const bare = pp.definition.compute;
+    const t = compare(
+      {
+        plain: () => {
+          let s = 0;
+          for (let i = 0; i < N; i++) s += (EPSILON0 * er[i]! * area[i]!) / gap[i]!;
+          return s;
+        },
+        compute: () => {
+          let s = 0;
+          for (let i = 0; i < N; i++) s += bare({ area: area[i]!, gap: gap[i]!, relativePermittivity: er[i]! });
+          return s;
+        },
+        typed: () => {
+          let s = 0;
+          for (let i = 0; i < N; i++) s += pp({ area: area[i]! as Area, gap: gap[i]! as Length, relativePermittivity: er[i]! });
+          return s;
+        },
+      },
+      N,
+    );
+    rows.push({ name: "typed parallelPlateCapacitance vs plain arithmetic", value: times(t.ratio.typed!), note: `typed ${ns(t.ns.typed!)}/call, plain ${ns(t.ns.plain!)}, bare compute ${ns(t.ns.compute!)} = ${times(t.ratio.compute!)} (target <= 1.1x)` });
+  }
+
+  {
+    const inner = randomArray(N, 1e-4, 1e-3, 4);
+    const k = randomArray(N, 1.5, 10, 5);
+    const outer = inner.map((a, i) => a * k[i]!);
+    const len = randomArray(N, 0.1, 10, 6);
+    const c2 = 2 * Math.PI * EPSILON0;
+    const t = compare(
+      {
+        plain: () => {
+          let s = 0;
+          for (let i = 0; i < N; i++) s += (c2 * er[i]! * len[i]!) / Math.log(outer[i]! / inner[i]!);
+          return s;
+        },
+        typed: () => {
+          let s = 0;
+          for (let i = 0; i < N; i++) {
+            s += coaxialCapacitance({ innerRadius: inner[i]! as Length, outerRadius: outer[i]! as Length, length: len[i]! as Length, relativePermittivity: er[i]! });
+          }
+          return s;
+        },
+      },
+      N,
+    );
+    rows.push({ name: "typed coaxialCapacitance vs plain arithmetic", value: times(t.ratio.typed!), note: `typed ${ns(t.ns.typed!)}/call, plain ${ns(t.ns.plain!)}; the typed compute also guards log(b/a) near 1 and intermediate overflow` });
+  }
+
+  {
+    const turns = randomArray(N, 10, 2000, 7).map(Math.round);
+    const radius = randomArray(N, 1e-3, 1e-1, 8);
+    const len = randomArray(N, 0.1, 2, 9);
+    const t = compare(
+      {
+        plain: () => {
+          let s = 0;
+          for (let i = 0; i < N; i++) s += MU0 * turns[i]! * turns[i]! * Math.PI * radius[i]! * (radius[i]! / len[i]!);
+          return s;
+        },
+        typed: () => {
+          let s = 0;
+          for (let i = 0; i < N; i++) s += idealSolenoidInductance({ turns: turns[i]!, radius: radius[i]! as Length, length: len[i]! as Length });
+          return s;
+        },
+      },
+      N,
+    );
+    rows.push({ name: "typed idealSolenoidInductance vs plain arithmetic", value: times(t.ratio.typed!), note: `typed ${ns(t.ns.typed!)}/call, plain ${ns(t.ns.plain!)}; includes the whole-number check on turns` });
+  }
+  return rows;
+}

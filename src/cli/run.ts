@@ -1,0 +1,391 @@
+import { FormulaError } from "../core/errors.js";
+import { evaluate } from "../core/evaluate.js";
+import { getFormula, listFormulas } from "../core/registry.js";
+import type { InputSpec, Note } from "../core/spec.js";
+import { catalogEntry } from "../tools/catalog.js";
+import { solveRequest } from "../tools/solve.js";
+import { sweepRequest, sweepToCsv, sweepToVegaLite } from "../tools/sweep.js";
+import { toleranceRequest } from "../tools/tolerance.js";
+import { formatQuantity, formatSI } from "./format.js";
+
+/** Where the command line writes. */
+export interface CliIO {
+  out(text: string): void;
+  err(text: string): void;
+}
+
+const USAGE = `emquant: electromagnetics formulas with units
+
+Usage:
+  emquant list [category]                     formulas, by category
+  emquant show <formula>                      inputs, units, defaults, domain, example, equation, source
+  emquant compute <formula> name=value ...    evaluate, e.g. compute parallelPlateCapacitance area="1 cm^2" gap="0.1 mm"
+  emquant solve <formula> <input> target=value name=value ...
+                                              the input value that gives the target output
+  emquant tolerance <formula> name=value ...  worst case, RSS and Monte Carlo; a value may be
+                                              "0.1 mm +- 0.01 mm", "4.4 +- 5%", "normal(0.1 mm, 3 um)"
+                                              or "uniform(0.09 mm, 0.11 mm)"
+  emquant sweep <formula> name=from..to [name=from..to] name=value ...
+                                              a table over one or two inputs
+  emquant help
+
+Options:
+  --json            machine-readable output (errors too)
+  --samples N       Monte Carlo samples for tolerance (default 10000)
+  --seed N          Monte Carlo seed (default 1)
+  --range lo..hi    solve: search only this range of the input, e.g. --range "0 V..1 kV"
+  --points N        points per swept input (default 11)
+  --log             geometric spacing for sweeps
+  --csv             sweep as CSV
+  --chart           sweep as a Vega-Lite chart specification (JSON)
+
+Values are numbers in SI units or numbers with a unit ("0.2 mm", "4.7 uF").
+Warnings and cautions are printed with every result.`;
+
+interface Parsed {
+  positional: string[];
+  pairs: [string, string][];
+  flags: Map<string, string | true>;
+}
+
+const VALUE_FLAGS = new Set(["samples", "seed", "points", "range"]);
+const BOOL_FLAGS = new Set(["json", "log", "csv", "chart", "help"]);
+
+class UsageError extends Error {}
+
+function parseArgs(argv: readonly string[]): Parsed {
+  const positional: string[] = [];
+  const pairs: [string, string][] = [];
+  const flags = new Map<string, string | true>();
+  for (let i = 0; i < argv.length; i++) {
+    const a = argv[i]!;
+    if (a.startsWith("--")) {
+      const [k, inline] = a.slice(2).split("=", 2) as [string, string | undefined];
+      if (VALUE_FLAGS.has(k)) {
+        const v = inline ?? argv[++i];
+        if (v === undefined) throw new UsageError(`--${k} needs a value`);
+        flags.set(k, v);
+      } else if (BOOL_FLAGS.has(k)) {
+        flags.set(k, true);
+      } else {
+        throw new UsageError(`unknown option --${k}`);
+      }
+    } else if (a === "-h") {
+      flags.set("help", true);
+    } else if (/^[A-Za-z_][A-Za-z0-9_]*=/.test(a)) {
+      const eq = a.indexOf("=");
+      pairs.push([a.slice(0, eq), a.slice(eq + 1)]);
+    } else {
+      positional.push(a);
+    }
+  }
+  return { positional, pairs, flags };
+}
+
+function intFlag(p: Parsed, name: string): number | undefined {
+  const v = p.flags.get(name);
+  if (v === undefined) return undefined;
+  const n = Number(v);
+  if (typeof v !== "string" || !Number.isInteger(n)) throw new UsageError(`--${name} needs a whole number, got ${String(v)}`);
+  return n;
+}
+
+/** A command-line value for an input: vectors as "[a, b, c]" or "a, b, c"; others as typed. */
+function inputValue(spec: InputSpec | undefined, text: string): unknown {
+  if (spec && !("choices" in spec) && spec.vector) {
+    return text.replace(/^\s*\[|\]\s*$/g, "").split(",").map((s) => s.trim());
+  }
+  return text.trim();
+}
+
+function inputsFrom(id: string, pairs: readonly [string, string][]): Record<string, unknown> {
+  const specs = getFormula(id).definition.inputs as Readonly<Record<string, InputSpec>>;
+  const out: Record<string, unknown> = {};
+  for (const [k, v] of pairs) out[k] = inputValue(specs[k], v);
+  return out;
+}
+
+/** "0.1 mm +- 0.01 mm", "4.4 +- 5%", "normal(m, sd)", "uniform(a, b)", or a plain value. */
+export function parseToleranceText(text: string): unknown {
+  const fn = /^\s*(normal|uniform)\s*\((.*)\)\s*$/i.exec(text);
+  if (fn) {
+    const parts = fn[2]!.split(",").map((s) => s.trim());
+    if (parts.length !== 2) throw new UsageError(`${fn[1]}(...) takes two values: ${text}`);
+    return fn[1]!.toLowerCase() === "normal"
+      ? { distribution: "normal", mean: parts[0], sd: parts[1] }
+      : { distribution: "uniform", min: parts[0], max: parts[1] };
+  }
+  const pm = text.split(/\s*(?:\+-|\+\/-|±)\s*/);
+  if (pm.length === 2) {
+    const [nominal, band] = pm as [string, string];
+    const pc = /^([0-9.eE+-]+)\s*%$/.exec(band);
+    if (pc) return { nominal: nominal.trim(), percent: Number(pc[1]) };
+    return { nominal: nominal.trim(), plusMinus: band.trim() };
+  }
+  if (pm.length > 2) throw new UsageError(`one "+-" per value: ${text}`);
+  return text.trim();
+}
+
+function notesText(warnings: readonly Note[], cautions: readonly Note[]): string[] {
+  return [
+    ...cautions.map((c) => `CAUTION [${c.code}]: ${c.message}`),
+    ...warnings.map((w) => `warning [${w.code}]: ${w.message}`),
+  ];
+}
+
+function need(p: Parsed, n: number, what: string): void {
+  if (p.positional.length < n) throw new UsageError(`missing ${what}`);
+}
+
+/**
+ * Run the command line with the given arguments (without "node" and the script).
+ * Returns the exit status: 0 done, 1 a FormulaError (bad input, no solution),
+ * 2 a usage error.
+ */
+export function runCli(argv: readonly string[], io: CliIO): number {
+  let json = argv.includes("--json");
+  try {
+    const p = parseArgs(argv);
+    json = p.flags.has("json");
+    const [command, ...rest] = p.positional;
+    if (command === undefined || command === "help" || p.flags.has("help")) {
+      io.out(USAGE);
+      return command === undefined && !p.flags.has("help") ? 2 : 0;
+    }
+    p.positional = rest;
+    switch (command) {
+      case "list":
+        return list(p, io, json);
+      case "show":
+        return show(p, io, json);
+      case "compute":
+        return compute(p, io, json);
+      case "solve":
+        return solveCommand(p, io, json);
+      case "tolerance":
+        return toleranceCommand(p, io, json);
+      case "sweep":
+        return sweepCommand(p, io, json);
+      default:
+        throw new UsageError(`unknown command "${command}"; try "emquant help"`);
+    }
+  } catch (e) {
+    if (e instanceof FormulaError) {
+      if (json) io.out(JSON.stringify({ error: { code: e.code, message: e.message, input: e.input ?? null } }, null, 2));
+      else io.err(`error [${e.code}]: ${e.message}`);
+      return 1;
+    }
+    if (e instanceof UsageError) {
+      if (json) io.out(JSON.stringify({ error: { code: "usage", message: e.message, input: null } }, null, 2));
+      else io.err(`usage: ${e.message}\n(run "emquant help")`);
+      return 2;
+    }
+    throw e;
+  }
+}
+
+function list(p: Parsed, io: CliIO, json: boolean): number {
+  const category = p.positional[0];
+  const all = listFormulas().filter((f) => category === undefined || f.definition.category === category);
+  if (category !== undefined && all.length === 0) {
+    const cats = [...new Set(listFormulas().map((f) => f.definition.category))].join(", ");
+    throw new UsageError(`no formulas in category "${category}" (categories: ${cats})`);
+  }
+  if (json) {
+    io.out(JSON.stringify(all.map((f) => ({ id: f.id, title: f.definition.title, category: f.definition.category })), null, 2));
+    return 0;
+  }
+  let last = "";
+  const lines: string[] = [];
+  const width = Math.max(...all.map((f) => f.id.length));
+  for (const f of all) {
+    if (f.definition.category !== last) {
+      last = f.definition.category;
+      lines.push(`${lines.length ? "\n" : ""}${last}`);
+    }
+    lines.push(`  ${f.id.padEnd(width)}  ${f.definition.title}`);
+  }
+  io.out(lines.join("\n"));
+  return 0;
+}
+
+function show(p: Parsed, io: CliIO, json: boolean): number {
+  need(p, 1, "formula id");
+  const e = catalogEntry(p.positional[0]!);
+  if (json) {
+    io.out(JSON.stringify(e, null, 2));
+    return 0;
+  }
+  const lines = [`${e.title} (${e.id}, ${e.category})`, "", e.description, "", `  ${e.equation}`, "", "Inputs:"];
+  for (const i of e.inputs) {
+    const facts: string[] = [];
+    if (i.kind === "choice") facts.push(`one of ${i.choices!.join(", ")}`);
+    else facts.push(`${i.dimension}${i.unit ? ` [${i.unit}]` : ""}${i.vector ? ", 3-vector" : ""}`);
+    if (i.domain) facts.push(i.domain.rule);
+    if (i.default !== undefined) facts.push(`default ${typeof i.default === "number" ? formatQuantity(i.default, i.unit ?? "") : i.default}`);
+    else facts.push("required");
+    if (i.example !== undefined) {
+      facts.push(`e.g. ${typeof i.example === "number" ? formatQuantity(i.example, i.unit ?? "") : Array.isArray(i.example) ? `[${i.example.join(", ")}] ${i.unit ?? ""}` : String(i.example)}`);
+    }
+    lines.push(`  ${i.name}: ${i.description}`, `      ${facts.join("; ")}`);
+  }
+  lines.push("", `Output: ${e.output.description} (${e.output.dimension}${e.output.unit ? ` [${e.output.unit}]` : ""})${e.output.components ? `, components ${e.output.components.join(", ")}` : ""}`);
+  if (e.relations.length) lines.push("", "Relations:", ...e.relations.map((r) => `  ${r}`));
+  if (e.validity.length) lines.push("", "Validity warnings:", ...e.validity.map((v) => `  [${v.code}] ${v.message ?? "(text depends on the inputs)"}`));
+  if (e.cautions.length) lines.push("", "Cautions:", ...e.cautions.map((v) => `  [${v.code}] ${v.message ?? "(text depends on the inputs)"}${v.always ? " (always)" : ""}`));
+  lines.push("", "Source:", ...e.sources.map((s) => `  ${s.authors}${s.year ? ` (${s.year})` : ""}, ${s.title}${s.locator ? `, ${s.locator}` : ""}`));
+  const example = e.inputs.filter((i) => i.example !== undefined && i.kind === "quantity" && !i.vector && i.unit !== undefined)
+    .map((i) => `${i.name}="${formatQuantity(i.example as number, i.unit!)}"`);
+  if (example.length) lines.push("", `Try: emquant compute ${e.id} ${example.join(" ")}`);
+  io.out(lines.join("\n"));
+  return 0;
+}
+
+function compute(p: Parsed, io: CliIO, json: boolean): number {
+  need(p, 1, "formula id");
+  const id = p.positional[0]!;
+  const r = evaluate(id, inputsFrom(id, p.pairs));
+  if (json) {
+    io.out(JSON.stringify(r, null, 2));
+    return 0;
+  }
+  const f = getFormula(id);
+  const comps = f.definition.output.components as readonly string[] | undefined;
+  const lines: string[] = [];
+  if (Array.isArray(r.value)) {
+    lines.push(`${f.definition.output.description}:`);
+    (r.value as number[]).forEach((v, i) => lines.push(`  ${comps?.[i] ?? i} = ${formatQuantity(v, r.unit)}   (${formatSI(v, r.unit)})`));
+  } else {
+    lines.push(`${f.definition.output.description} = ${formatQuantity(r.value as number, r.unit)}   (${formatSI(r.value as number, r.unit)})`);
+  }
+  lines.push(...notesText(r.warnings, r.cautions));
+  io.out(lines.join("\n"));
+  return 0;
+}
+
+function solveCommand(p: Parsed, io: CliIO, json: boolean): number {
+  need(p, 2, "formula id and the input to solve for");
+  const [id, solveFor] = p.positional as [string, string];
+  const target = p.pairs.find(([k]) => k === "target");
+  if (!target) throw new UsageError('give the output wanted as target=value, e.g. target="100 pF"');
+  const inputs = inputsFrom(id, p.pairs.filter(([k]) => k !== "target"));
+  const rangeText = p.flags.get("range");
+  let range: [string, string] | undefined;
+  if (typeof rangeText === "string") {
+    const m = /^(.*?)\.\.(.*)$/.exec(rangeText);
+    if (!m) throw new UsageError('--range is low..high, e.g. --range "1 mm..10 mm"');
+    range = [m[1]!.trim(), m[2]!.trim()];
+  }
+  const r = solveRequest({ formula: id, solveFor, target: target[1].trim(), inputs, ...(range ? { options: { range } } : {}) });
+  if (json) {
+    io.out(JSON.stringify(r, null, 2));
+    return 0;
+  }
+  const lines = [`${r.input} = ${formatQuantity(r.value, r.unit, 6)}   (${formatSI(r.value, r.unit)})`];
+  if (r.exact !== undefined) lines.push(`  rounded to a whole number from ${r.exact.toPrecision(6)}`);
+  lines.push(`  output there: ${formatQuantity(r.outputAtValue, r.outputUnit, 6)} (target ${formatQuantity(r.target, r.outputUnit, 6)})`);
+  lines.push(...notesText(r.warnings, r.cautions));
+  io.out(lines.join("\n"));
+  return 0;
+}
+
+function toleranceCommand(p: Parsed, io: CliIO, json: boolean): number {
+  need(p, 1, "formula id");
+  const id = p.positional[0]!;
+  const specs = getFormula(id).definition.inputs as Readonly<Record<string, InputSpec>>;
+  const inputs: Record<string, unknown> = {};
+  for (const [k, v] of p.pairs) {
+    const s = specs[k];
+    inputs[k] = s && !("choices" in s) && !s.vector ? parseToleranceText(v) : inputValue(s, v);
+  }
+  const samples = intFlag(p, "samples");
+  const seed = intFlag(p, "seed");
+  const r = toleranceRequest({ formula: id, inputs, options: { ...(samples !== undefined ? { samples } : {}), ...(seed !== undefined ? { seed } : {}) } });
+  if (json) {
+    io.out(JSON.stringify(r, null, 2));
+    return 0;
+  }
+  const q = (v: number): string => formatQuantity(v, r.unit, 4);
+  const pct = (v: number): string => (r.nominal !== 0 ? ` (${(((v - r.nominal) / Math.abs(r.nominal)) * 100).toFixed(2)} %)` : "");
+  const lines = [
+    `nominal      ${q(r.nominal)}`,
+    `worst case   ${q(r.worstCase.min)}${pct(r.worstCase.min)} to ${q(r.worstCase.max)}${pct(r.worstCase.max)}   [${r.worstCase.method}, ${r.worstCase.evaluated} evaluated]`,
+    `RSS          +- ${q(r.rss.plusMinus)} (band), sd ${q(r.rss.sd)}`,
+  ];
+  const mc = r.monteCarlo;
+  if (mc) {
+    lines.push(
+      `Monte Carlo  ${mc.accepted} of ${mc.samples} samples (seed ${mc.seed}; ${mc.rejected} rejected)`,
+      `  mean ${q(mc.mean)}, sd ${q(mc.sd)}`,
+      `  p1 ${q(mc.p1)}  p5 ${q(mc.p5)}  p50 ${q(mc.p50)}  p95 ${q(mc.p95)}  p99 ${q(mc.p99)}`,
+    );
+  }
+  if (r.sensitivities.length) {
+    lines.push("share of variance:");
+    for (const s of r.sensitivities) lines.push(`  ${s.input.padEnd(24)} ${(100 * s.share).toFixed(1).padStart(5)} %   slope ${s.derivative.toPrecision(4)} ${s.derivativeUnit}`);
+  }
+  for (const m of r.remarks) lines.push(`note: ${m}`);
+  lines.push(...notesText(r.warnings, r.cautions));
+  io.out(lines.join("\n"));
+  return 0;
+}
+
+function sweepCommand(p: Parsed, io: CliIO, json: boolean): number {
+  need(p, 1, "formula id");
+  const id = p.positional[0]!;
+  const points = intFlag(p, "points") ?? 11;
+  const scale = p.flags.has("log") ? "log" : "linear";
+  const vary: Record<string, { from: string; to: string; points: number; scale: "log" | "linear" }> = {};
+  const fixedPairs: [string, string][] = [];
+  for (const [k, v] of p.pairs) {
+    const m = /^(.*?)\.\.(.*)$/.exec(v);
+    if (m) vary[k] = { from: m[1]!.trim(), to: m[2]!.trim(), points, scale };
+    else fixedPairs.push([k, v]);
+  }
+  if (Object.keys(vary).length === 0) throw new UsageError('give one or two inputs as name=from..to, e.g. gap="0.1 mm..1 mm"');
+  const r = sweepRequest({ formula: id, vary, fixed: inputsFrom(id, fixedPairs) });
+  if (p.flags.has("csv")) {
+    io.out(sweepToCsv(r).trimEnd());
+    return 0;
+  }
+  if (p.flags.has("chart")) {
+    io.out(JSON.stringify(sweepToVegaLite(r), null, 2));
+    return 0;
+  }
+  if (json) {
+    io.out(JSON.stringify({
+      formula: r.formula,
+      axes: r.axes.map((a) => ({ name: a.name, unit: a.unit, scale: a.scale, values: [...a.values] })),
+      output: { name: r.output.name, unit: r.output.unit, values: [...r.output.values].map((v, k) => (r.computed[k] ? v : null)) },
+      notComputed: r.notComputed,
+    }, null, 2));
+    return 0;
+  }
+  const n1 = r.axes.length === 2 ? r.axes[1]!.values.length : 1;
+  const lines = [r.axes.map((a) => `${a.name}${a.unit ? ` (${a.unit})` : ""}`).concat(`${r.output.name}`).join("\t")];
+  for (let k = 0; k < r.output.values.length; k++) {
+    const row = [formatQuantity(r.axes[0]!.values[Math.floor(k / n1)]!, r.axes[0]!.unit)];
+    if (r.axes.length === 2) row.push(formatQuantity(r.axes[1]!.values[k % n1]!, r.axes[1]!.unit));
+    row.push(r.computed[k] ? formatQuantity(r.output.values[k]!, r.output.unit) : "not computed");
+    lines.push(row.join("\t"));
+  }
+  if (r.notComputed) lines.push(`note: ${r.notComputed} points not computed (outside a domain or breaking a relation)`);
+  // Warnings and cautions anywhere on the grid (each code once), so a hazard at one end is not missed.
+  const warnings = new Map<string, Note>();
+  const cautions = new Map<string, Note>();
+  const fixed = inputsFrom(id, fixedPairs);
+  const step = Math.max(1, Math.floor(r.output.values.length / 2000));
+  for (let k = 0; k < r.output.values.length; k += step) {
+    if (!r.computed[k]) continue;
+    const inputs = { ...fixed, [r.axes[0]!.name]: r.axes[0]!.values[Math.floor(k / n1)]! };
+    if (r.axes.length === 2) inputs[r.axes[1]!.name] = r.axes[1]!.values[k % n1]!;
+    const ev = evaluate(id, inputs);
+    for (const w of ev.warnings) if (!warnings.has(w.code)) warnings.set(w.code, w);
+    for (const c of ev.cautions) if (!cautions.has(c.code)) cautions.set(c.code, c);
+  }
+  const notes = notesText([...warnings.values()], [...cautions.values()]);
+  if (notes.length) lines.push("somewhere on the grid:", ...notes);
+  io.out(lines.join("\n"));
+  return 0;
+}
+

@@ -1,0 +1,256 @@
+import { MU0 } from "../constants/si.js";
+import { defineFormula } from "../core/formula.js";
+import { NON_NEGATIVE, POSITIVE } from "../core/spec.js";
+import { ellipticD } from "../math/elliptic.js";
+import { loopKernel } from "./loop-series.js";
+import { IMPLANT_CAUTION, TURNS } from "./shared.js";
+
+const CURRENT = { dimension: "Current", description: "Current in the conductor", example: 10 } as const;
+const GRIFFITHS = { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed." } as const;
+
+/**
+ * Flux density at a distance from a long straight wire.
+ *
+ * B = mu0 * I / (2 pi d), with B in T, I in A, d the distance from the wire's axis in m.
+ * (1 A at 1 m gives 2e-7 T: the basis of the former SI definition of the ampere.)
+ *
+ * Validity: the wire is straight and much longer than d, and d is outside the conductor.
+ *
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), Example 5.5 (from memory).
+ *
+ * @example
+ * wireField({ current: quantity(100, "A"), distance: quantity(10, "cm") }); // ≈ 2e-4 T
+ */
+export const wireField = /* @__PURE__ */ defineFormula({
+  id: "wireField",
+  title: "Field of a long straight wire",
+  category: "magnetic field",
+  description: "Flux density around a long straight current-carrying wire (Biot-Savart law, infinite wire).",
+  equation: "B = mu0 * I / (2 pi d)",
+  inputs: {
+    current: CURRENT,
+    distance: { dimension: "Length", description: "Distance from the wire's axis", domain: POSITIVE, example: 0.1 },
+  },
+  output: { dimension: "FluxDensity", description: "Flux density (circling the wire; sign follows the current)" },
+  cautions: [IMPLANT_CAUTION],
+  source: { ...GRIFFITHS, locator: "Example 5.5, B = mu0 I / (2 pi s) (from memory)" },
+  compute: (x) => (MU0 * x.current) / (2 * Math.PI * x.distance),
+});
+
+/**
+ * Flux density on the axis of a circular current loop.
+ *
+ * B = mu0 * I * R^2 / (2 (R^2 + z^2)^(3/2)), with B in T (along the axis), I in A,
+ * R the loop radius and z the axial distance from the loop's centre, in m.
+ *
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), Example 5.6 (from memory).
+ *
+ * @example
+ * loopAxialField({ current: quantity(1, "A"), radius: quantity(0.1, "m"), axialDistance: quantity(0, "m") }); // ≈ 6.28e-6 T
+ */
+export const loopAxialField = /* @__PURE__ */ defineFormula({
+  id: "loopAxialField",
+  title: "Field on the axis of a circular loop",
+  category: "magnetic field",
+  description: "Axial flux density of a single circular current loop at a point on its axis.",
+  equation: "B = mu0 * I * R^2 / (2 (R^2 + z^2)^(3/2))",
+  inputs: {
+    current: CURRENT,
+    radius: { dimension: "Length", description: "Loop radius", domain: POSITIVE, example: 0.1 },
+    axialDistance: { dimension: "Length", description: "Distance along the axis from the loop's centre", default: 0, example: 0.05 },
+  },
+  output: { dimension: "FluxDensity", description: "Axial flux density" },
+  cautions: [IMPLANT_CAUTION],
+  source: { ...GRIFFITHS, locator: "Example 5.6 (from memory)" },
+  // hypot avoids overflow of R^2 + z^2; (R/h)^2 / h keeps every factor in range.
+  compute: (x) => {
+    const h = Math.hypot(x.radius, x.axialDistance);
+    const q = x.radius / h;
+    return ((MU0 * x.current) / (2 * h)) * q * q;
+  },
+});
+
+/**
+ * Flux density of a circular current loop at any point (exact, off the axis).
+ *
+ * With a the loop radius, rho the radial and z the axial distance of the point (m),
+ * alpha^2 = (a - rho)^2 + z^2, beta^2 = (a + rho)^2 + z^2, m = 4 a rho / beta^2 and
+ * mc = 1 - m = alpha^2 / beta^2 (taken from the geometry):
+ *   B_z   = mu0 I a (a E - 2 rho f) / (pi alpha^2 beta)
+ *   B_rho = 2 mu0 I a z f / (pi alpha^2 beta)
+ * where f(m) = E/2 - mc (K - E)/m. This is Smythe's expression
+ *   B_z = mu0 I / (2 pi beta) [K + (a^2 - rho^2 - z^2) E / alpha^2],
+ *   B_rho = mu0 I z / (2 pi rho beta) [-K + (a^2 + rho^2 + z^2) E / alpha^2]
+ * rearranged so that nothing cancels on the axis (f = 3 pi m / 32 + ..., summed as a
+ * series for m < 0.2) or far away. Finite and smooth on the axis (B_rho = 0 at rho = 0).
+ *
+ * Validity: a filament (wire thickness small against its distance from the point).
+ *
+ * Reference: W. R. Smythe, Static and Dynamic Electricity, 3rd ed. (1968), sec. 7.10;
+ * J. D. Jackson, Classical Electrodynamics, 3rd ed. (1999), sec. 5.5.
+ *
+ * @example
+ * loopField({ current: quantity(1, "A"), radius: quantity(0.1, "m"), radialDistance: quantity(0.05, "m"), axialDistance: quantity(0.05, "m") }); // ≈ [1.62e-6, 4.35e-6] T
+ */
+export const loopField = /* @__PURE__ */ defineFormula({
+  id: "loopField",
+  title: "Field of a circular loop anywhere",
+  category: "magnetic field",
+  description: "Radial and axial flux density of a circular current filament at any point, exact with elliptic integrals.",
+  equation: "B_z = mu0 I a (a E - 2 rho f) / (pi alpha^2 beta); B_rho = 2 mu0 I a z f / (pi alpha^2 beta); f = E/2 - (1 - m)(K - E)/m",
+  inputs: {
+    current: CURRENT,
+    radius: { dimension: "Length", description: "Loop radius", domain: POSITIVE, example: 0.1 },
+    radialDistance: { dimension: "Length", description: "Distance of the point from the loop's axis", domain: NON_NEGATIVE, example: 0.05 },
+    axialDistance: { dimension: "Length", description: "Distance of the point along the axis from the loop's plane", example: 0.05 },
+  },
+  output: { dimension: "FluxDensity", description: "Flux density components", components: ["radial", "axial"] },
+  relations: [
+    {
+      rule: "the point is not on the wire (radialDistance = radius with axialDistance = 0)",
+      holds: (x) => !(x.radialDistance === x.radius && x.axialDistance === 0),
+    },
+  ],
+  cautions: [IMPLANT_CAUTION],
+  source: [
+    { authors: "W. R. Smythe", year: 1968, title: "Static and Dynamic Electricity, 3rd ed.", locator: "sec. 7.10 (from memory)" },
+    { authors: "J. D. Jackson", year: 1999, title: "Classical Electrodynamics, 3rd ed.", locator: "sec. 5.5" },
+  ],
+  compute: (x) => {
+    const a = x.radius;
+    const rho = x.radialDistance;
+    const z = x.axialDistance;
+    // a - rho is exact next to the wire (Sterbenz), so alpha keeps its digits there;
+    // hypot keeps alpha and beta finite for any distances.
+    const alpha = Math.hypot(a - rho, z);
+    const beta = Math.hypot(a + rho, z);
+    const m = 4 * (a / beta) * (rho / beta);
+    const q = alpha / beta;
+    const mc = q * q; // from the geometry: 1 - m would lose digits next to the wire
+    const { f, e } = loopKernel(m, mc);
+    // mu0 I a^2 / (pi alpha^2 beta), factored so nothing overflows or underflows early.
+    const s = a / alpha;
+    const scale = ((MU0 * x.current) / Math.PI) * s * (s / beta);
+    // Axial bracket (a E - 2 rho f) / a. Inside the loop's radius, and next to the wire, use the
+    // equal form 2 mc D + 2 (a - rho) f / a (E - 2 f = 2 mc D): its terms do not cancel there,
+    // while a E - 2 rho f loses digits as E and 2 rho f / a both tend to 1. Far outside,
+    // where m is small, the first form is the one without cancellation.
+    const axial = rho <= a || m > 0.5 ? 2 * mc * ellipticD(m, mc) + 2 * (((a - rho) * f) / a) : e - 2 * ((rho * f) / a);
+    return [scale * 2 * ((z * f) / a), scale * axial];
+  },
+});
+
+/**
+ * Flux density on the axis of a finite solenoid (current-sheet model).
+ *
+ * B = mu0 N I / (2 l) * [(z + l/2) / sqrt((z + l/2)^2 + R^2) - (z - l/2) / sqrt((z - l/2)^2 + R^2)],
+ * with B in T, N turns, I in A, l the winding length, R its radius and z the position on
+ * the axis measured from the centre, all in m.
+ *
+ * Validity: a uniform current sheet; the turns' ripple on the axis is about exp(-2 pi R / p)
+ * for pitch p = l/N, warned when the pitch exceeds the radius.
+ *
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), Problem 5.11 (from memory).
+ *
+ * @example
+ * solenoidAxialField({ current: quantity(1, "A"), turns: 1000, radius: quantity(1, "cm"), length: quantity(10, "cm"), axialPosition: quantity(0, "m") }); // ≈ 1.23e-2 T
+ */
+export const solenoidAxialField = /* @__PURE__ */ defineFormula({
+  id: "solenoidAxialField",
+  title: "Field on the axis of a finite solenoid",
+  category: "magnetic field",
+  description: "Axial flux density of a single-layer solenoid treated as a uniform current sheet, at any point of its axis.",
+  equation: "B = mu0 N I / (2 l) * [cos(theta1) - cos(theta2)]",
+  inputs: {
+    current: { ...CURRENT, example: 1 },
+    turns: { ...TURNS, example: 1000 },
+    radius: { dimension: "Length", description: "Winding radius", domain: POSITIVE, example: 0.01 },
+    length: { dimension: "Length", description: "Winding length", domain: POSITIVE, example: 0.1 },
+    axialPosition: { dimension: "Length", description: "Position on the axis measured from the solenoid's centre", default: 0, example: 0.02 },
+  },
+  output: { dimension: "FluxDensity", description: "Axial flux density" },
+  validity: [
+    {
+      code: "coarse_pitch",
+      when: (x) => x.length / x.turns > x.radius,
+      message: "the turn pitch exceeds the radius: the current-sheet model misses the per-turn ripple (about exp(-2 pi R / pitch)); sum loopAxialField over the turns instead",
+    },
+  ],
+  cautions: [IMPLANT_CAUTION],
+  source: { ...GRIFFITHS, locator: "Problem 5.11 (from memory)" },
+  compute: (x) => {
+    const u1 = x.axialPosition + x.length / 2;
+    const u2 = x.axialPosition - x.length / 2;
+    const h1 = Math.hypot(u1, x.radius);
+    const h2 = Math.hypot(u2, x.radius);
+    let diff: number;
+    if (u1 > 0 && u2 > 0 || u1 < 0 && u2 < 0) {
+      // Outside the ends both cosines are near +-1: use the exact difference
+      // cos1 - cos2 = 2 R^2 l z / (h1 h2 (u1 h2 + u2 h1)), free of cancellation.
+      diff = (((2 * x.radius) / h1) * (x.radius / h2) * x.length * x.axialPosition) / (u1 * h2 + u2 * h1);
+    } else {
+      diff = u1 / h1 - u2 / h2; // opposite signs: the terms add
+    }
+    return ((MU0 * x.turns * x.current) / (2 * x.length)) * diff;
+  },
+});
+
+/**
+ * Flux density at the centre of a Helmholtz pair.
+ *
+ * B = (4/5)^(3/2) * mu0 * N * I / R, with B in T, N turns per coil, I in A, R the
+ * coil radius in m; the coils are coaxial and spaced by R.
+ *
+ * Validity: thin coils (winding cross-section small against R). The field is uniform
+ * to fourth order about the centre.
+ *
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), Problem 5.46 (from memory).
+ *
+ * @example
+ * helmholtzCenterField({ current: quantity(1, "A"), turns: 100, radius: quantity(0.1, "m") }); // ≈ 8.99e-4 T
+ */
+export const helmholtzCenterField = /* @__PURE__ */ defineFormula({
+  id: "helmholtzCenterField",
+  title: "Field at the centre of a Helmholtz pair",
+  category: "magnetic field",
+  description: "Flux density midway between two coaxial coils spaced by their radius (Helmholtz coil).",
+  equation: "B = (4/5)^(3/2) * mu0 * N * I / R",
+  inputs: {
+    current: { ...CURRENT, example: 1 },
+    turns: { ...TURNS, description: "Turns of each of the two coils", example: 100 },
+    radius: { dimension: "Length", description: "Coil radius (also the spacing)", domain: POSITIVE, example: 0.1 },
+  },
+  output: { dimension: "FluxDensity", description: "Flux density at the centre, along the axis" },
+  cautions: [IMPLANT_CAUTION],
+  source: { ...GRIFFITHS, locator: "Problem 5.46 (from memory)" },
+  compute: (x) => (Math.pow(0.8, 1.5) * MU0 * x.turns * x.current) / x.radius,
+});
+
+/**
+ * Flux density inside a toroidal winding.
+ *
+ * B = mu0 * N * I / (2 pi r), with B in T, N turns, I in A and r the distance from
+ * the toroid's axis in m (inside the winding, in air or a non-magnetic core).
+ *
+ * Validity: evenly spread turns; r between the winding's inner and outer radius.
+ *
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), Example 5.10 (from memory).
+ *
+ * @example
+ * toroidField({ current: quantity(1, "A"), turns: 100, radius: quantity(5, "cm") }); // ≈ 4e-4 T
+ */
+export const toroidField = /* @__PURE__ */ defineFormula({
+  id: "toroidField",
+  title: "Field inside a toroid",
+  category: "magnetic field",
+  description: "Flux density inside an evenly wound toroid at a given distance from its axis (Ampere's law).",
+  equation: "B = mu0 * N * I / (2 pi r)",
+  inputs: {
+    current: { ...CURRENT, example: 1 },
+    turns: { ...TURNS, example: 100 },
+    radius: { dimension: "Length", description: "Distance from the toroid's axis, inside the winding", domain: POSITIVE, example: 0.05 },
+  },
+  output: { dimension: "FluxDensity", description: "Flux density inside the winding (circumferential)" },
+  source: { ...GRIFFITHS, locator: "Example 5.10 (from memory)" },
+  compute: (x) => (MU0 * x.turns * x.current) / (2 * Math.PI * x.radius),
+});

@@ -1,0 +1,168 @@
+import { defineFormula } from "../core/formula.js";
+import { NON_NEGATIVE, POSITIVE } from "../core/spec.js";
+import { ELV_AC_RMS, TURNS } from "./shared.js";
+
+const SQRT2_PI = Math.SQRT2 * Math.PI; // 4.4429, the "4.44" of the transformer equation
+
+const TRANSFORMER_SOURCE = [
+  { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed.", locator: "ch. 1, Faraday's law: E = 4.44 B_ac f A_c N (sine wave)" },
+  { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "sec. 7.2.1, Faraday's law" },
+] as const;
+
+const ELV_CAUTION = {
+  code: "high_voltage",
+  when: (_x: unknown, value: number | readonly number[]) => Math.abs(value as number) > ELV_AC_RMS,
+  message: (_x: unknown, value: number | readonly number[]) =>
+    `induced voltage ${Math.abs(value as number).toPrecision(3)} V exceeds the 50 V a.c. extra-low-voltage band (IEC 61140 / IEC 60449): ` +
+    "a shock hazard on open terminals. Local codes and licensed practice govern.",
+} as const;
+
+/**
+ * Magnetic flux of a uniform field through a flat surface.
+ *
+ * Phi = B * A * cos(theta), with Phi in Wb, B the flux density in T, A the area
+ * in m^2 and theta (rad) the angle between B and the surface normal.
+ *
+ * Validity: B uniform over the surface and the surface flat.
+ *
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), sec. 7.1.3.
+ *
+ * @example
+ * magneticFlux({ fluxDensity: quantity(0.2, "T"), area: quantity(1, "cm^2") }); // ≈ 2e-5 Wb
+ */
+export const magneticFlux = /* @__PURE__ */ defineFormula({
+  id: "magneticFlux",
+  title: "Magnetic flux through a flat surface",
+  category: "flux",
+  description: "Flux of a uniform flux density through a flat surface tilted by an angle from the field.",
+  equation: "Phi = B * A * cos(theta)",
+  inputs: {
+    fluxDensity: { dimension: "FluxDensity", description: "Magnitude of the (uniform) flux density", example: 0.2 },
+    area: { dimension: "Area", description: "Area of the flat surface", domain: NON_NEGATIVE, example: 1e-4 },
+    angle: { dimension: "Angle", description: "Angle between the field and the surface normal", default: 0, example: 0.5 },
+  },
+  output: { dimension: "MagneticFlux", description: "Magnetic flux through the surface" },
+  source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "sec. 7.1.3 (flux through a loop; section from memory)" },
+  // A plain product; cos of an angle is exact enough (cos(pi/2) ~ 6e-17 is a representation limit of pi/2).
+  compute: (x) => x.fluxDensity * x.area * Math.cos(x.angle),
+});
+
+/**
+ * RMS voltage induced in a winding by a sinusoidal flux (the transformer equation).
+ *
+ * E = sqrt(2) * pi * f * N * A * B = 4.44 f N A B, with E the rms EMF in V, f in Hz,
+ * N turns, A the core's effective cross-section in m^2, B the peak flux density in T.
+ *
+ * Validity: sinusoidal flux; all flux links every turn (leakage neglected).
+ * For square-wave drive the factor is 4 instead of 4.44.
+ *
+ * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 1.
+ *
+ * @example
+ * transformerEmf({ frequency: quantity(50, "Hz"), turns: 100, area: quantity(10, "cm^2"), peakFluxDensity: quantity(1.2, "T") }); // ≈ 26.7 V
+ */
+export const transformerEmf = /* @__PURE__ */ defineFormula({
+  id: "transformerEmf",
+  title: "Transformer EMF (rms) from peak flux density",
+  category: "flux",
+  description: "RMS voltage induced in N turns by a sinusoidal flux of given peak density in a core of given area.",
+  equation: "E_rms = sqrt(2) * pi * f * N * A * B_peak  (= 4.44 f N A B)",
+  inputs: {
+    frequency: { dimension: "Frequency", description: "Frequency of the sinusoidal flux", domain: POSITIVE, example: 50 },
+    turns: { ...TURNS, example: 100 },
+    area: { dimension: "Area", description: "Effective cross-section of the core", domain: POSITIVE, example: 1e-3 },
+    peakFluxDensity: { dimension: "FluxDensity", description: "Peak flux density in the core", domain: NON_NEGATIVE, example: 1.2 },
+  },
+  output: { dimension: "Voltage", description: "RMS induced voltage" },
+  validity: [
+    {
+      code: "sinusoidal_only",
+      when: () => true,
+      message: "assumes sinusoidal flux (form factor 1.11); for square-wave drive use 4 f N A B instead of 4.44 f N A B",
+    },
+  ],
+  cautions: [ELV_CAUTION],
+  source: TRANSFORMER_SOURCE,
+  compute: (x) => SQRT2_PI * x.frequency * x.turns * x.area * x.peakFluxDensity,
+});
+
+/**
+ * Peak flux density in a core driven by a sinusoidal voltage: the transformer
+ * equation solved for B, the check a winding designer needs.
+ *
+ * B = E / (sqrt(2) * pi * f * N * A), with E the rms voltage in V, f in Hz, N turns,
+ * A the effective cross-section in m^2, B the peak flux density in T.
+ *
+ * Optional saturationFluxDensity (T): when given (> 0) a warning is raised if B
+ * exceeds it. 0 (the default) means "not given".
+ *
+ * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 1.
+ *
+ * @example
+ * transformerPeakFluxDensity({ voltage: quantity(230, "V"), frequency: quantity(50, "Hz"), turns: 800, area: quantity(10, "cm^2") }); // ≈ 1.29 T
+ */
+export const transformerPeakFluxDensity = /* @__PURE__ */ defineFormula({
+  id: "transformerPeakFluxDensity",
+  title: "Peak flux density from applied rms voltage",
+  category: "flux",
+  description: "Peak flux density in a core whose winding carries a sinusoidal rms voltage (transformer equation solved for B).",
+  equation: "B_peak = E_rms / (sqrt(2) * pi * f * N * A)",
+  inputs: {
+    voltage: { dimension: "Voltage", description: "RMS voltage across the winding", domain: NON_NEGATIVE, example: 230 },
+    frequency: { dimension: "Frequency", description: "Frequency of the voltage", domain: POSITIVE, example: 50 },
+    turns: { ...TURNS, example: 800 },
+    area: { dimension: "Area", description: "Effective cross-section of the core", domain: POSITIVE, example: 1e-3 },
+    saturationFluxDensity: {
+      dimension: "FluxDensity",
+      description: "Saturation flux density of the core material; 0 means not given (no check)",
+      default: 0,
+      domain: NON_NEGATIVE,
+      example: 1.6,
+    },
+  },
+  output: { dimension: "FluxDensity", description: "Peak flux density in the core" },
+  validity: [
+    {
+      code: "saturation",
+      when: (x, b) => x.saturationFluxDensity > 0 && (b as number) >= x.saturationFluxDensity,
+      message: (x, b) =>
+        `peak flux density ${(b as number).toPrecision(3)} T reaches the given saturation flux density ${x.saturationFluxDensity} T: ` +
+        "the core saturates, magnetising current and core temperature rise steeply; add turns or core area",
+    },
+    {
+      code: "sinusoidal_only",
+      when: () => true,
+      message: "assumes a sinusoidal voltage; for a square wave of the same rms use 4 f N A instead of 4.44 f N A",
+    },
+  ],
+  source: TRANSFORMER_SOURCE,
+  compute: (x) => x.voltage / (SQRT2_PI * x.frequency * x.turns * x.area),
+});
+
+/**
+ * EMF across a straight conductor moving through a uniform field.
+ *
+ * E = B * l * v, with E in V, B in T, l the conductor length in m and v the
+ * speed in m/s; B, the conductor and its velocity mutually perpendicular.
+ *
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), sec. 7.1.3.
+ *
+ * @example
+ * motionalEmf({ fluxDensity: quantity(0.5, "T"), length: quantity(0.2, "m"), speed: quantity(10, "m/s") }); // ≈ 1 V
+ */
+export const motionalEmf = /* @__PURE__ */ defineFormula({
+  id: "motionalEmf",
+  title: "Motional EMF of a moving conductor",
+  category: "flux",
+  description: "Voltage across a straight conductor moving at right angles through a uniform flux density.",
+  equation: "E = B * l * v",
+  inputs: {
+    fluxDensity: { dimension: "FluxDensity", description: "Flux density (perpendicular to conductor and motion)", example: 0.5 },
+    length: { dimension: "Length", description: "Length of the conductor in the field", domain: POSITIVE, example: 0.2 },
+    speed: { dimension: "Velocity", description: "Speed of the conductor across the field", example: 10 },
+  },
+  output: { dimension: "Voltage", description: "Induced voltage" },
+  cautions: [{ ...ELV_CAUTION, message: (_x, v) => `induced voltage ${Math.abs(v as number).toPrecision(3)} V exceeds the 50 V extra-low-voltage band (IEC 61140 / IEC 60449): a shock hazard. Local codes and licensed practice govern.` }],
+  source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "sec. 7.1.3, motional emf (section from memory)" },
+  compute: (x) => x.fluxDensity * x.length * x.speed,
+});

@@ -1,0 +1,113 @@
+import { EPSILON0, MU0 } from "../constants/si.js";
+import { defineFormula } from "../core/formula.js";
+import { NON_NEGATIVE, POSITIVE } from "../core/spec.js";
+import { RELATIVE_PERMEABILITY } from "./shared.js";
+
+/**
+ * Skin depth of a good conductor.
+ *
+ * delta = 1 / sqrt(pi * f * mu0 * mur * sigma), with delta in m, f in Hz, sigma the
+ * conductivity in S/m, mur the conductor's relative permeability. From the diffusion
+ * equation that Faraday's and Ampere's laws give inside a conductor when conduction
+ * current dominates displacement current.
+ *
+ * Validity: good conductor (sigma >> 2 pi f eps0; warning otherwise); plane surface,
+ * or a conductor whose radius is several skin depths.
+ *
+ * Reference: J. D. Jackson, Classical Electrodynamics, 3rd ed. (1999), eq. (5.165)
+ * (equation number from memory); copper conductivity 58.0 MS/m is the IEC 60028
+ * International Annealed Copper Standard.
+ *
+ * @example
+ * skinDepth({ conductivity: quantity(58, "MS/m"), frequency: quantity(60, "Hz") }); // ≈ 8.53 mm
+ */
+export const skinDepth = /* @__PURE__ */ defineFormula({
+  id: "skinDepth",
+  title: "Skin depth",
+  category: "magnetic field",
+  description: "Depth at which an AC field or current density in a good conductor falls to 1/e of its surface value.",
+  equation: "delta = 1 / sqrt(pi * f * mu0 * mur * sigma)",
+  inputs: {
+    conductivity: { dimension: "Conductivity", description: "Electrical conductivity of the conductor (copper, IEC 60028: 58.0 MS/m)", domain: POSITIVE, example: 58e6 },
+    frequency: { dimension: "Frequency", description: "Frequency of the current or field", domain: POSITIVE, example: 100e3 },
+    relativePermeability: { ...RELATIVE_PERMEABILITY, description: "Relative permeability of the conductor (1 for copper, aluminium)", example: 1 },
+  },
+  output: { dimension: "Length", description: "Skin depth" },
+  validity: [
+    {
+      code: "not_a_good_conductor",
+      // Conduction current must dominate displacement current: sigma / (omega eps0) >> 1.
+      when: (x) => x.conductivity < 100 * 2 * Math.PI * x.frequency * EPSILON0,
+      message: "conductivity is below 100 times omega * eps0: displacement current is not negligible and the good-conductor skin depth no longer applies",
+    },
+  ],
+  source: [
+    { authors: "J. D. Jackson", year: 1999, title: "Classical Electrodynamics, 3rd ed.", locator: "sec. 5.18, eq. (5.165) (from memory)" },
+    { authors: "IEC", year: 1925, title: "IEC 60028: International standard of resistance for copper", locator: "annealed copper 58.0 MS/m at 20 degC" },
+  ],
+  // Product of positive factors then one sqrt: no cancellation; written as 1/sqrt to keep one rounding.
+  compute: (x) => 1 / Math.sqrt(Math.PI * x.frequency * MU0 * x.relativePermeability * x.conductivity),
+});
+
+/**
+ * Core loss by the Steinmetz equation.
+ *
+ * P = k * f^alpha * B^beta * V, with P in W, f in Hz, B the peak flux density in T,
+ * V the core volume in m^3, and k, alpha, beta fitted to the material's loss curves.
+ * k is a plain number in the units those fix: W/m^3 when f is in Hz and B in T
+ * (convert datasheet fits made in kHz, mT or mW/cm^3 before use).
+ *
+ * Validity: sinusoidal flux and only within the frequency and flux range the
+ * coefficients were fitted over (always noted); DC bias and temperature change the loss.
+ *
+ * Reference: C. P. Steinmetz, "On the law of hysteresis", Trans. AIEE 9 (1892) 3-64
+ * (B^1.6 law); the frequency-exponent form as used in C. W. T. McLyman, Transformer
+ * and Inductor Design Handbook, 3rd ed. (2004), ch. 2 (core loss).
+ *
+ * @example
+ * coreLoss({ coefficient: 1.5, frequencyExponent: 1.4, fluxExponent: 2.5, frequency: quantity(100, "kHz"), peakFluxDensity: quantity(0.1, "T"), volume: quantity(5, "cm^3") }); // ≈ 0.24 W
+ */
+export const coreLoss = /* @__PURE__ */ defineFormula({
+  id: "coreLoss",
+  title: "Core loss (Steinmetz equation)",
+  category: "flux",
+  description: "Power lost in a magnetic core under sinusoidal excitation, from the material's Steinmetz coefficients.",
+  equation: "P = k * f^alpha * B^beta * V  (k in W/m^3 with f in Hz, B in T)",
+  inputs: {
+    coefficient: { dimension: "Dimensionless", description: "Steinmetz coefficient k, in W/m^3 for f in Hz and B in T", domain: POSITIVE, example: 1.5 },
+    frequencyExponent: { dimension: "Dimensionless", description: "Frequency exponent alpha (typically 1 to 2)", domain: POSITIVE, example: 1.4 },
+    fluxExponent: { dimension: "Dimensionless", description: "Flux-density exponent beta (typically 2 to 3)", domain: POSITIVE, example: 2.5 },
+    frequency: { dimension: "Frequency", description: "Excitation frequency", domain: POSITIVE, example: 100e3 },
+    peakFluxDensity: { dimension: "FluxDensity", description: "Peak flux density (half the peak-to-peak swing)", domain: NON_NEGATIVE, example: 0.1 },
+    volume: { dimension: "Volume", description: "Effective core volume V_e", domain: POSITIVE, example: 5e-6 },
+  },
+  output: { dimension: "Power", description: "Core loss" },
+  validity: [
+    {
+      code: "fitted_range",
+      when: () => true,
+      message: "the Steinmetz equation holds for sinusoidal excitation within the frequency and flux-density range the coefficients were fitted over; other waveforms, DC bias and temperature change the loss",
+    },
+    {
+      code: "unusual_exponents",
+      when: (x) => x.frequencyExponent < 1 || x.frequencyExponent > 3 || x.fluxExponent < 1.5 || x.fluxExponent > 3.5,
+      message: "exponents outside the usual ranges (alpha 1 to 3, beta 1.5 to 3.5; common practice): check the coefficients' units (f in Hz, B in T, k in W/m^3)",
+    },
+  ],
+  cautions: [
+    {
+      code: "hot_core",
+      // ~100-300 kW/m^3 (100-300 mW/cm^3) is a usual ferrite design range for a ~40 K rise (common practice).
+      when: (x, p) => (p as number) / x.volume > 500e3,
+      message: (x, p) =>
+        `loss density ${(((p as number) / x.volume) / 1e3).toPrecision(3)} kW/m^3 (mW/cm^3) is above about 500: the core will run hot ` +
+        "(burn risk, ferrite losses rise again above their minimum temperature, possible thermal runaway); check the temperature rise",
+    },
+  ],
+  source: [
+    { authors: "C. P. Steinmetz", year: 1892, title: "On the law of hysteresis, Trans. AIEE 9, 3-64" },
+    { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed.", locator: "ch. 2, core loss" },
+  ],
+  // Powers through exp/log would lose nothing here; Math.pow is exact to an ulp for positive bases.
+  compute: (x) => x.coefficient * Math.pow(x.frequency, x.frequencyExponent) * Math.pow(x.peakFluxDensity, x.fluxExponent) * x.volume,
+});

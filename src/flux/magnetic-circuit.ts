@@ -1,0 +1,249 @@
+import { MU0 } from "../constants/si.js";
+import { defineFormula } from "../core/formula.js";
+import { AT_LEAST_ONE, NON_NEGATIVE, POSITIVE } from "../core/spec.js";
+import { RELATIVE_PERMEABILITY, TURNS } from "./shared.js";
+
+const MCLYMAN = { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed." } as const;
+const IEC_60205 = {
+  authors: "IEC",
+  year: 2016,
+  title: "IEC 60205: Calculation of the effective parameters of magnetic piece parts",
+  locator: "effective length l_e, area A_e; A_L = L / N^2",
+} as const;
+
+const PATH_LENGTH = { dimension: "Length", description: "Effective magnetic path length of the core, l_e (excluding the gap)", domain: POSITIVE, example: 0.1 } as const;
+const CORE_AREA = { dimension: "Area", description: "Effective cross-section of the core, A_e (the gap is taken to have the same area)", domain: POSITIVE, example: 1e-4 } as const;
+const GAP_LENGTH = { dimension: "Length", description: "Total air-gap length along the path (0 for an ungapped core)", default: 0, domain: NON_NEGATIVE, example: 5e-4 } as const;
+
+/** Gap larger than 1 % of sqrt(A): fringing raises L by roughly 5 % or more (McLyman's factor, typical windows). */
+function fringingMatters(gap: number, area: number): boolean {
+  return gap > 0.01 * Math.sqrt(area);
+}
+const FRINGING_WARNING = {
+  code: "fringing",
+  when: (x: { gapLength: number; area: number }) => fringingMatters(x.gapLength, x.area),
+  message: (x: { gapLength: number; area: number }) =>
+    `gap is ${((100 * x.gapLength) / Math.sqrt(x.area)).toPrecision(2)} % of sqrt(area): fringing flux around the gap is neglected here ` +
+    "and raises the result by roughly 5 % or more above 1 %; apply gapFringingFactor",
+};
+
+/**
+ * Reluctance of a uniform section of a magnetic circuit.
+ *
+ * R = l / (mu0 * mur * A), with R in 1/H (A-turns per Wb), l the path length in m,
+ * A the cross-section in m^2, mur the relative permeability, mu0 in H/m (CODATA 2022).
+ *
+ * Validity: uniform flux over the cross-section, linear (unsaturated) material.
+ *
+ * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 2 (magnetic circuits).
+ *
+ * @example
+ * reluctance({ length: quantity(1, "mm"), area: quantity(1, "cm^2") }); // ≈ 7.96e6 1/H (an air gap)
+ */
+export const reluctance = /* @__PURE__ */ defineFormula({
+  id: "reluctance",
+  title: "Reluctance of a core section or gap",
+  category: "magnetic circuit",
+  description: "Reluctance of a uniform section of magnetic path (core leg or air gap), the magnetic analogue of resistance.",
+  equation: "R = l / (mu0 * mur * A)",
+  inputs: {
+    length: { dimension: "Length", description: "Length of the section along the flux", domain: POSITIVE, example: 0.1 },
+    area: { dimension: "Area", description: "Cross-section of the section", domain: POSITIVE, example: 1e-4 },
+    relativePermeability: RELATIVE_PERMEABILITY,
+  },
+  output: { dimension: "Reluctance", description: "Reluctance (ampere-turns per weber)" },
+  source: { ...MCLYMAN, locator: "ch. 2, magnetic circuits (reluctance)" },
+  compute: (x) => x.length / (MU0 * x.relativePermeability * x.area),
+});
+
+/**
+ * Inductance of a winding on a gapped core.
+ *
+ * L = F * mu0 * N^2 * A / (g + l / mur), with L in H, N turns, A the effective area
+ * in m^2, g the gap in m, l the effective path length in m (IEC 60205 l_e), mur the
+ * core's relative permeability and F the fringing factor (1 = none).
+ *
+ * Validity: linear core below saturation; the gap has the core's area (fringing
+ * neglected unless F is given; warning when g > 1 % of sqrt(A)); leakage neglected.
+ *
+ * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 8 (gapped inductors).
+ *
+ * @example
+ * gappedCoreInductance({ turns: 20, pathLength: quantity(100, "mm"), area: quantity(1, "cm^2"), relativePermeability: 2000, gapLength: quantity(0.5, "mm") }); // ≈ 91.4 uH
+ */
+export const gappedCoreInductance = /* @__PURE__ */ defineFormula({
+  id: "gappedCoreInductance",
+  title: "Inductance of a gapped core",
+  category: "magnetic circuit",
+  description: "Inductance of N turns on a core with an air gap, from the series reluctance of core and gap.",
+  equation: "L = F * mu0 * N^2 * A / (g + l / mur)",
+  inputs: {
+    turns: TURNS,
+    pathLength: PATH_LENGTH,
+    area: CORE_AREA,
+    relativePermeability: RELATIVE_PERMEABILITY,
+    gapLength: GAP_LENGTH,
+    fringingFactor: {
+      dimension: "Dimensionless",
+      description: "Fringing factor F (>= 1) multiplying the inductance; 1 neglects fringing (see gapFringingFactor)",
+      default: 1,
+      domain: AT_LEAST_ONE,
+      example: 1,
+    },
+  },
+  output: { dimension: "Inductance", description: "Inductance of the winding" },
+  validity: [{ ...FRINGING_WARNING, when: (x) => x.fringingFactor === 1 && fringingMatters(x.gapLength, x.area) }],
+  source: { ...MCLYMAN, locator: "ch. 8, inductance of a gapped core, L = 0.4 pi N^2 A_c 1e-8 / (l_g + MPL / mu_m) in cgs units" },
+  // l / mur goes smoothly to 0 as mur grows: no 1 - 1/mur style cancellation.
+  compute: (x) => (x.fringingFactor * MU0 * x.turns * x.turns * x.area) / (x.gapLength + x.pathLength / x.relativePermeability),
+});
+
+/**
+ * Flux density in a gapped core carrying a winding current.
+ *
+ * B = mu0 * N * I / (g + l / mur), with B in T, N turns, I the current in A, g the gap
+ * and l the effective path length in m, mur the core's relative permeability.
+ * With the gap of the core's area, B does not depend on the area; the area sets the
+ * fringing check.
+ *
+ * Optional saturationFluxDensity (T): when given (> 0) a warning is raised if |B| exceeds it.
+ *
+ * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 8.
+ *
+ * @example
+ * coreFluxDensity({ turns: 20, current: quantity(10, "A"), pathLength: quantity(100, "mm"), area: quantity(1, "cm^2"), relativePermeability: 2000, gapLength: quantity(0.5, "mm") }); // ≈ 0.457 T
+ */
+export const coreFluxDensity = /* @__PURE__ */ defineFormula({
+  id: "coreFluxDensity",
+  title: "Flux density in a gapped core",
+  category: "magnetic circuit",
+  description: "Flux density set by a winding's ampere-turns in a core with an air gap (Ampere's law around the path).",
+  equation: "B = mu0 * N * I / (g + l / mur)",
+  inputs: {
+    turns: TURNS,
+    current: { dimension: "Current", description: "Winding current (peak, for the peak flux density)", example: 10 },
+    pathLength: PATH_LENGTH,
+    area: CORE_AREA,
+    relativePermeability: RELATIVE_PERMEABILITY,
+    gapLength: GAP_LENGTH,
+    saturationFluxDensity: {
+      dimension: "FluxDensity",
+      description: "Saturation flux density of the core material; 0 means not given (no check)",
+      default: 0,
+      domain: NON_NEGATIVE,
+      example: 0.47,
+    },
+  },
+  output: { dimension: "FluxDensity", description: "Flux density in the core and gap" },
+  validity: [
+    {
+      code: "saturation",
+      when: (x, b) => x.saturationFluxDensity > 0 && Math.abs(b as number) >= x.saturationFluxDensity,
+      message: (x, b) =>
+        `flux density ${Math.abs(b as number).toPrecision(3)} T reaches the given saturation flux density ${x.saturationFluxDensity} T: ` +
+        "permeability collapses and the current rises steeply; enlarge the gap, the area or reduce the turns",
+    },
+    FRINGING_WARNING,
+  ],
+  source: { ...MCLYMAN, locator: "ch. 8, B = 0.4 pi N I 1e-4 / (l_g + MPL / mu_m) in cgs units" },
+  compute: (x) => (MU0 * x.turns * x.current) / (x.gapLength + x.pathLength / x.relativePermeability),
+});
+
+/**
+ * Fringing-flux factor of an air gap (McLyman's correction).
+ *
+ * F = 1 + (g / sqrt(A)) * ln(2 G / g), with g the gap length in m, A the core
+ * cross-section at the gap in m^2 and G the winding-window length in m (along the gapped leg).
+ * Multiply the inductance computed without fringing by F (gappedCoreInductance's fringingFactor).
+ *
+ * Validity: an empirical estimate for gaps small against the pole width and the window.
+ * Warning when g > 10 % of sqrt(A) or F > 1.5, where it should be checked by measurement
+ * or a field solution (common practice).
+ *
+ * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 8, "Fringing Flux".
+ *
+ * @example
+ * gapFringingFactor({ gapLength: quantity(0.5, "mm"), area: quantity(1, "cm^2"), windowLength: quantity(20, "mm") }); // ≈ 1.22
+ */
+export const gapFringingFactor = /* @__PURE__ */ defineFormula({
+  id: "gapFringingFactor",
+  title: "Gap fringing factor",
+  category: "magnetic circuit",
+  description: "Factor by which fringing flux around an air gap raises the inductance (McLyman's empirical correction).",
+  equation: "F = 1 + (g / sqrt(A)) * ln(2 G / g)",
+  inputs: {
+    gapLength: { dimension: "Length", description: "Gap length", domain: POSITIVE, example: 5e-4 },
+    area: { dimension: "Area", description: "Core cross-section at the gap", domain: POSITIVE, example: 1e-4 },
+    windowLength: { dimension: "Length", description: "Winding-window length G along the gapped leg", domain: POSITIVE, example: 0.02 },
+  },
+  output: { dimension: "Dimensionless", description: "Fringing factor (>= 1)" },
+  relations: [{ rule: "gapLength < 2 * windowLength", holds: (x) => x.gapLength < 2 * x.windowLength }],
+  validity: [
+    {
+      code: "large_gap",
+      when: (x, f) => x.gapLength > 0.1 * Math.sqrt(x.area) || (f as number) > 1.5,
+      message: (_x, f) =>
+        `fringing factor ${(f as number).toPrecision(3)} with a gap above 10 % of the pole width or F above 1.5: ` +
+        "the empirical correction is rough here; check by measurement or a field solution (common practice)",
+    },
+  ],
+  source: { ...MCLYMAN, locator: "ch. 8, Fringing Flux: F = 1 + (l_g / sqrt(A_c)) ln(2G / l_g)" },
+  // ln(2G/g) is well conditioned for g < 2G (the relation); the product is a small positive addend.
+  compute: (x) => 1 + (x.gapLength / Math.sqrt(x.area)) * Math.log((2 * x.windowLength) / x.gapLength),
+});
+
+/**
+ * Inductance factor A_L of a (gapped) core from its effective parameters.
+ *
+ * A_L = mu0 * A_e / (g + l_e / mur), in H per turn squared (datasheets quote nH),
+ * with A_e, l_e the IEC 60205 effective area (m^2) and length (m), g the gap in m.
+ *
+ * Reference: IEC 60205 (effective parameters); C. W. T. McLyman (2004), ch. 8.
+ *
+ * @example
+ * inductanceFactor({ pathLength: quantity(100, "mm"), area: quantity(1, "cm^2"), relativePermeability: 2000, gapLength: quantity(0.5, "mm") }); // ≈ 228.5 nH
+ */
+export const inductanceFactor = /* @__PURE__ */ defineFormula({
+  id: "inductanceFactor",
+  title: "Inductance factor A_L of a core",
+  category: "magnetic circuit",
+  description: "Inductance per turn squared (A_L) of a core from its effective length and area, permeability and gap.",
+  equation: "A_L = mu0 * A_e / (g + l_e / mur)",
+  inputs: {
+    pathLength: PATH_LENGTH,
+    area: CORE_AREA,
+    relativePermeability: RELATIVE_PERMEABILITY,
+    gapLength: GAP_LENGTH,
+  },
+  output: { dimension: "Inductance", description: "Inductance factor A_L (H per turn squared)" },
+  validity: [FRINGING_WARNING],
+  source: [IEC_60205, { ...MCLYMAN, locator: "ch. 8" }],
+  compute: (x) => (MU0 * x.area) / (x.gapLength + x.pathLength / x.relativePermeability),
+});
+
+/**
+ * Inductance of a winding from the core's inductance factor.
+ *
+ * L = A_L * N^2, with L in H, A_L in H (per turn squared; a datasheet's "250 nH"), N turns.
+ *
+ * Validity: A_L is quoted at low flux density; it falls as the core nears saturation.
+ *
+ * Reference: IEC 60205; C. W. T. McLyman (2004), ch. 8.
+ *
+ * @example
+ * inductanceFromFactor({ inductanceFactor: quantity(250, "nH"), turns: 20 }); // ≈ 100 uH
+ */
+export const inductanceFromFactor = /* @__PURE__ */ defineFormula({
+  id: "inductanceFromFactor",
+  title: "Inductance from A_L and turns",
+  category: "magnetic circuit",
+  description: "Inductance of N turns on a core of given inductance factor A_L.",
+  equation: "L = A_L * N^2",
+  inputs: {
+    inductanceFactor: { dimension: "Inductance", description: "Inductance factor A_L of the core (inductance per turn squared)", domain: POSITIVE, example: 250e-9 },
+    turns: TURNS,
+  },
+  output: { dimension: "Inductance", description: "Inductance of the winding" },
+  source: [IEC_60205, { ...MCLYMAN, locator: "ch. 8" }],
+  compute: (x) => x.inductanceFactor * x.turns * x.turns,
+});

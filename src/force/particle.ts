@@ -1,0 +1,213 @@
+import { SPEED_OF_LIGHT } from "../constants/si.js";
+import { defineFormula } from "../core/formula.js";
+import { NON_NEGATIVE, POSITIVE } from "../core/spec.js";
+import { cross, dot, norm, type V3 } from "../math/vec3.js";
+import { BEAM_MESSAGE, CHARGE, IMPLANT_FIELD_LIMIT, IMPLANT_FIELD_MESSAGE, PARTICLE_MASS, lorentzFactor } from "./shared.js";
+
+const C = SPEED_OF_LIGHT;
+const C2 = C * C;
+
+const STRONG_FIELD = {
+  code: "strong_field",
+  when: (x: { readonly fluxDensity: number }) => x.fluxDensity > IMPLANT_FIELD_LIMIT,
+  message: IMPLANT_FIELD_MESSAGE,
+} as const;
+
+const JACKSON = { authors: "J. D. Jackson", year: 1999, title: "Classical Electrodynamics, 3rd ed." } as const;
+
+/**
+ * Cyclotron (gyro) frequency of a charged particle in a uniform magnetic field.
+ *
+ * f = |q| B / (2 pi gamma m), with f in Hz, q the charge in C, B the flux
+ * density in T, m the rest mass in kg and gamma = 1 + T/(m c^2) from the
+ * kinetic energy T in J (default 0: the non-relativistic frequency, which does
+ * not depend on the speed). The angular frequency is 2 pi f.
+ *
+ * Presets: `cyclotronFrequency({ charge: proton.charge, mass: proton.mass, fluxDensity })`.
+ *
+ * Validity: exact for a uniform static B (with T the particle's kinetic energy);
+ * in a non-uniform field it is the local value.
+ *
+ * Reference: J. D. Jackson, Classical Electrodynamics, 3rd ed. (1999), section 12.2,
+ * omega_B = e B / (gamma m) in SI.
+ *
+ * @example
+ * cyclotronFrequency({ charge: proton.charge, mass: proton.mass, fluxDensity: quantity(1, "T") }); // ≈ 1.5245e7 Hz
+ */
+export const cyclotronFrequency = /* @__PURE__ */ defineFormula({
+  id: "cyclotronFrequency",
+  title: "Cyclotron frequency",
+  category: "particle",
+  description: "Gyration frequency of a charged particle in a uniform magnetic field; relativistic when a kinetic energy is given.",
+  equation: "f = |q| B / (2 pi gamma m), gamma = 1 + T / (m c^2)",
+  inputs: {
+    charge: CHARGE,
+    mass: PARTICLE_MASS,
+    fluxDensity: { dimension: "FluxDensity", description: "Flux density of the uniform field", domain: NON_NEGATIVE, example: 0.1 },
+    kineticEnergy: { dimension: "Energy", description: "Kinetic energy (0 = non-relativistic limit)", domain: NON_NEGATIVE, default: 0, example: 0 },
+  },
+  output: { dimension: "Frequency", description: "Cyclotron frequency (cycles per second)" },
+  cautions: [STRONG_FIELD],
+  source: { ...JACKSON, locator: "section 12.2, gyration frequency" },
+  // gamma m = m + T/c^2: no subtraction, exact at T = 0.
+  compute: (x) => (Math.abs(x.charge) * x.fluxDensity) / (2 * Math.PI * (x.mass + x.kineticEnergy / C2)),
+});
+
+/**
+ * Gyroradius (Larmor radius) of a non-relativistic charged particle.
+ *
+ * r = m v / (|q| B), with r in m, m the rest mass in kg, v the speed
+ * perpendicular to B in m/s, q the charge in C and B the flux density in T.
+ *
+ * Validity: non-relativistic. The true radius is gamma times larger, so this
+ * one is low by 1 - 1/gamma: 0.5 % at 0.1 c, 13 % at 0.5 c; a warning gives
+ * the figure above 0.1 c (use relativisticGyroradius there).
+ *
+ * Reference: Jackson, Classical Electrodynamics, 3rd ed. (1999), section 12.2.
+ *
+ * @example
+ * gyroradius({ mass: electron.mass, speed: quantity(1e6, "m/s"), charge: electron.charge,
+ *   fluxDensity: quantity(1, "mT") }); // ≈ 5.686e-3 m
+ */
+export const gyroradius = /* @__PURE__ */ defineFormula({
+  id: "gyroradius",
+  title: "Gyroradius (non-relativistic)",
+  category: "particle",
+  description: "Radius of the circular motion of a charged particle in a uniform magnetic field, for speeds well below c.",
+  equation: "r = m v / (|q| B)",
+  inputs: {
+    mass: PARTICLE_MASS,
+    speed: { dimension: "Velocity", description: "Speed perpendicular to B", domain: NON_NEGATIVE, example: 1e6 },
+    charge: CHARGE,
+    fluxDensity: { dimension: "FluxDensity", description: "Flux density of the uniform field", domain: POSITIVE, example: 1e-3 },
+  },
+  output: { dimension: "Length", description: "Gyroradius" },
+  relations: [
+    { rule: "charge != 0", holds: (x) => x.charge !== 0 },
+    { rule: "speed < c (speed of light)", holds: (x) => x.speed < C },
+  ],
+  validity: [
+    {
+      code: "relativistic_speed",
+      when: (x) => x.speed > 0.1 * C,
+      message: (x) => {
+        const g = lorentzFactor(x.speed);
+        return `speed is ${(x.speed / C).toPrecision(3)} c: the non-relativistic radius is ${(100 * (1 - 1 / g)).toPrecision(2)} % ` +
+          `too small (true radius is gamma = ${g.toPrecision(4)} times larger); use relativisticGyroradius`;
+      },
+    },
+  ],
+  cautions: [STRONG_FIELD],
+  source: { ...JACKSON, locator: "section 12.2, gyration radius (gamma = 1)" },
+  // (m / |q|) (v / B): each quotient stays in range for physical particles.
+  compute: (x) => (x.mass / Math.abs(x.charge)) * (x.speed / x.fluxDensity),
+});
+
+/**
+ * Gyroradius of a charged particle of any energy, from its kinetic energy.
+ *
+ * r = p / (|q| B), p c = sqrt(T (T + 2 m c^2)), with r in m, p the momentum in
+ * kg m/s, T the kinetic energy in J (of motion perpendicular to B), m the rest
+ * mass in kg, q the charge in C, B the flux density in T and c in m/s.
+ *
+ * For a pitch angle alpha between the velocity and B, multiply by sin(alpha).
+ * Written as sqrt(T) sqrt(T + 2 m c^2), p c has no cancellation for small T (it
+ * tends to sqrt(2 m T) c, the non-relativistic momentum) and does not overflow
+ * for large T.
+ *
+ * Reference: Jackson, Classical Electrodynamics, 3rd ed. (1999), section 12.2
+ * (a = c p / (e B) in Gaussian units; r = p/(|q| B) in SI).
+ *
+ * @example
+ * relativisticGyroradius({ mass: electron.mass, kineticEnergy: quantity(1, "MeV"),
+ *   charge: electron.charge, fluxDensity: quantity(0.1, "T") }); // ≈ 4.744e-2 m
+ */
+export const relativisticGyroradius = /* @__PURE__ */ defineFormula({
+  id: "relativisticGyroradius",
+  title: "Gyroradius (relativistic)",
+  category: "particle",
+  description: "Radius of the circular motion of a charged particle in a uniform magnetic field from its kinetic energy, valid at any energy.",
+  equation: "r = sqrt(T (T + 2 m c^2)) / (c |q| B)",
+  inputs: {
+    mass: PARTICLE_MASS,
+    kineticEnergy: { dimension: "Energy", description: "Kinetic energy of the motion perpendicular to B", domain: NON_NEGATIVE, example: 1.602176634e-13 },
+    charge: CHARGE,
+    fluxDensity: { dimension: "FluxDensity", description: "Flux density of the uniform field", domain: POSITIVE, example: 0.1 },
+  },
+  output: { dimension: "Length", description: "Gyroradius" },
+  relations: [{ rule: "charge != 0", holds: (x) => x.charge !== 0 }],
+  cautions: [{ code: "particle_beam", message: BEAM_MESSAGE }, STRONG_FIELD],
+  source: { ...JACKSON, locator: "section 12.2, gyration radius" },
+  compute: (x) => {
+    // p c as a product of square roots: no cancellation as T -> 0, no overflow of T^2.
+    const pc = Math.sqrt(x.kineticEnergy) * Math.sqrt(x.kineticEnergy + 2 * x.mass * C2);
+    return pc / C / Math.abs(x.charge) / x.fluxDensity;
+  },
+});
+
+/**
+ * E x B drift velocity of the guiding centre of a charged particle in crossed
+ * uniform electric and magnetic fields.
+ *
+ * v_d = E x B / B^2, with v_d in m/s (vector), E in V/m and B in T (vectors).
+ * The same for every charge and mass. Its magnitude is E/B for perpendicular fields.
+ *
+ * Validity: uniform static fields with |E_perp| < c |B|. v_d is the velocity of
+ * the frame in which E vanishes, exact also relativistically; when |E_perp| >= c |B|
+ * no such frame exists and the particle is accelerated without bound (warning).
+ * A component of E along B accelerates the particle along B (warning).
+ *
+ * Reference: Jackson, Classical Electrodynamics, 3rd ed. (1999), section 12.3.
+ *
+ * @example
+ * driftVelocity({ electricField: [1e3, 0, 0] as Vec3<ElectricField>,
+ *   fluxDensity: [0, 0, 0.01] as Vec3<FluxDensity> }); // ≈ [0, -1e5, 0] m/s
+ */
+export const driftVelocity = /* @__PURE__ */ defineFormula({
+  id: "driftVelocity",
+  title: "E x B drift velocity",
+  category: "particle",
+  description: "Guiding-centre drift velocity E x B / B^2 of a charged particle in crossed electric and magnetic fields, independent of charge and mass.",
+  equation: "v_d = E x B / B^2",
+  inputs: {
+    electricField: { dimension: "ElectricField", description: "Uniform electric field", vector: true, example: [1e3, 0, 0] },
+    fluxDensity: { dimension: "FluxDensity", description: "Uniform magnetic flux density (not zero)", vector: true, example: [0, 0, 0.01] },
+  },
+  output: { dimension: "Velocity", description: "Drift velocity of the guiding centre", components: ["x", "y", "z"] },
+  relations: [{ rule: "|fluxDensity| > 0", holds: (x) => norm(x.fluxDensity) > 0 }],
+  validity: [
+    {
+      code: "no_drift_frame",
+      when: (_x, v) => norm(v as V3) >= C,
+      message: (_x, v) =>
+        `E_perp / B = ${(norm(v as V3) / C).toPrecision(3)} c is not below c: no frame exists in which E vanishes, ` +
+        "so the particle does not drift but is accelerated without bound; this result does not apply",
+    },
+    {
+      code: "relativistic_drift",
+      when: (_x, v) => norm(v as V3) > 0.1 * C && norm(v as V3) < C,
+      message: (_x, v) =>
+        `drift speed is ${(norm(v as V3) / C).toPrecision(3)} c: E x B / B^2 is still the guiding-centre velocity, ` +
+        "but the gyration is relativistic and its lab-frame orbit is distorted; trace the particle to see it",
+    },
+    {
+      code: "parallel_electric_field",
+      when: (x) => Math.abs(dot(x.electricField, unit(x.fluxDensity))) > 1e-6 * norm(x.electricField),
+      message: (x) =>
+        `E has a component of ${dot(x.electricField, unit(x.fluxDensity)).toPrecision(3)} V/m along B: it accelerates ` +
+        "the particle along B; the drift given is that of the perpendicular part only",
+    },
+  ],
+  source: { ...JACKSON, locator: "section 12.3, crossed E and B fields" },
+  // (E x b) / |B| with b = B/|B|: |B|^2 is never formed, so no overflow or underflow for extreme B.
+  compute: (x) => {
+    const n = norm(x.fluxDensity);
+    const d = cross(x.electricField, unit(x.fluxDensity));
+    return [d[0] / n, d[1] / n, d[2] / n];
+  },
+});
+
+function unit(v: V3): V3 {
+  const n = norm(v);
+  return [v[0] / n, v[1] / n, v[2] / n];
+}

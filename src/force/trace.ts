@@ -1,0 +1,215 @@
+import { SPEED_OF_LIGHT } from "../constants/si.js";
+import { FormulaError } from "../core/errors.js";
+import type { Charge, ElectricField, FluxDensity, Length, Mass, Time, Vec3, Velocity } from "../units/types.js";
+
+const C = SPEED_OF_LIGHT;
+const INV_C2 = 1 / (C * C);
+const ID = "traceParticle";
+/** Largest number of stored samples (3 Float64Arrays of 3 values each: about 560 MB). */
+const MAX_SAMPLES = 1e7;
+
+/**
+ * A field given as a function of position (m) and time (s), returning the
+ * field's [x, y, z] components in SI (V/m for E, T for B).
+ */
+export type FieldFunction = (x: number, y: number, z: number, t: number) => ArrayLike<number>;
+
+/** A uniform field (a typed 3-vector) or a function of position and time. */
+export type FieldSource<Q extends number> = Vec3<Q> | FieldFunction;
+
+/** What `traceParticle` needs: the particle, where it starts, the fields and the time grid. */
+export interface TraceOptions {
+  /** Charge and rest mass, e.g. a preset: `electron`, `proton`, `alphaParticle`. */
+  readonly particle: { readonly charge: Charge; readonly mass: Mass };
+  /** Start position, m. */
+  readonly position: Vec3<Length>;
+  /** Start velocity, m/s (speed below c). */
+  readonly velocity: Vec3<Velocity>;
+  /** Electric field: uniform vector or function; default none. */
+  readonly electricField?: FieldSource<ElectricField>;
+  /** Magnetic flux density: uniform vector or function; default none. */
+  readonly fluxDensity?: FieldSource<FluxDensity>;
+  /** Time step, s (positive). Keep omega dt <= 0.1, omega = |q| B / (gamma m); see `traceParticle`. */
+  readonly timeStep: Time;
+  /** Number of time steps (a whole number, at least 1). */
+  readonly steps: number;
+  /** Store every n-th step (default 1: every step). */
+  readonly sampleEvery?: number;
+  /** Time of the start position, s (default 0). */
+  readonly startTime?: Time;
+}
+
+/** A traced path: samples at t[i], with positions and velocities interleaved [x0, y0, z0, x1, ...]. */
+export interface ParticleTrace {
+  /** Sample times, s. */
+  readonly t: Float64Array;
+  /** Positions, m, three numbers per sample. */
+  readonly positions: Float64Array;
+  /** Velocities, m/s, three numbers per sample. */
+  readonly velocities: Float64Array;
+  /** Number of samples: floor(steps / sampleEvery) + 1 (the start included). */
+  readonly samples: number;
+}
+
+function bad(input: string, value: unknown, detail: string): FormulaError {
+  return new FormulaError("invalid_argument", { formula: ID, input, value, detail });
+}
+
+function finiteNumber(input: string, v: unknown): number {
+  if (typeof v !== "number" || v - v !== 0) throw bad(input, v, "must be a finite number in SI units");
+  return v;
+}
+
+function vector3(input: string, v: unknown): [number, number, number] {
+  if (!Array.isArray(v) || v.length !== 3) throw bad(input, v, "must be a 3-vector [x, y, z] in SI units");
+  return [finiteNumber(input, v[0]), finiteNumber(input, v[1]), finiteNumber(input, v[2])];
+}
+
+function wholeNumber(input: string, v: unknown, min: number, max: number): number {
+  if (typeof v !== "number" || !Number.isInteger(v) || v < min || v > max) {
+    throw bad(input, v, `must be a whole number from ${min} to ${max}`);
+  }
+  return v;
+}
+
+/**
+ * Trace a charged particle through electric and magnetic fields with the
+ * relativistic Boris pusher.
+ *
+ * Each step of length dt (drift-kick-drift form, positions and velocities at
+ * the same times): half a drift x += (dt/2) u/gamma; fields at that midpoint and
+ * mid-time; half an electric kick u- = u + (q dt / 2m) E; the magnetic rotation
+ * t = (q dt / (2 m gamma-)) B, s = 2 t / (1 + t^2), u' = u- + u- x t,
+ * u+ = u- + u' x s; the second half kick u = u+ + (q dt / 2m) E; half a drift
+ * with the new velocity. u = gamma v is the momentum per unit rest mass.
+ *
+ * Accuracy: second order in dt. The rotation preserves |u| exactly, so in a pure
+ * magnetic field the speed is conserved to round-off over any number of steps,
+ * and the scheme preserves phase-space volume (Qin et al. 2013), so energy
+ * errors do not drift secularly. The rotation angle per step is
+ * 2 atan(omega dt / 2) instead of omega dt (omega = |q| B / (gamma m)): the
+ * gyration frequency is low by about (omega dt)^2 / 12, so omega dt <= 0.1
+ * keeps it below 8.4e-4 relative (phase error 2 pi N times that after N turns),
+ * and omega dt <= 0.01 below 8.4e-6. In a uniform B the sampled positions lie
+ * on a circle of exactly the radius v/omega; in crossed uniform E and B the
+ * guiding centre moves at exactly E x B / B^2 (non-relativistic speeds).
+ *
+ * Fields given as functions are called once per step at (x, y, z, t) of the
+ * mid-step position in SI; they must return three finite numbers.
+ *
+ * References: J. P. Boris, "Relativistic plasma simulation - optimization of a
+ * hybrid code", Proc. 4th Conf. Numerical Simulation of Plasmas (1970);
+ * C. K. Birdsall, A. B. Langdon, Plasma Physics via Computer Simulation (1991),
+ * sections 4-3 and 4-4 (from memory); H. Qin et al., "Why is Boris algorithm so
+ * good?", Phys. Plasmas 20, 084503 (2013).
+ *
+ * Errors: FormulaError "invalid_argument" naming the option (non-finite values,
+ * steps not a whole number, speed not below c, a field function returning
+ * anything but three finite numbers); "out_of_range" if the motion overflows.
+ *
+ * @example
+ * const path = traceParticle({ particle: electron, position: [0, 0, 0] as Vec3<Length>,
+ *   velocity: [1e6, 0, 0] as Vec3<Velocity>, fluxDensity: [0, 0, 1e-3] as Vec3<FluxDensity>,
+ *   timeStep: quantity(1e-10, "s"), steps: 1000 });
+ * path.positions.length; // 3003: a circle of radius ≈ 5.686 mm
+ */
+export function traceParticle(options: TraceOptions): ParticleTrace {
+  if (typeof options !== "object" || options === null) throw bad("options", options, "must be an options object");
+  const p = options.particle as unknown;
+  if (typeof p !== "object" || p === null) throw bad("particle", p, "must be { charge, mass }, e.g. the electron preset");
+  const q = finiteNumber("particle.charge", (p as { charge: unknown }).charge);
+  const m = finiteNumber("particle.mass", (p as { mass: unknown }).mass);
+  if (!(m > 0)) throw bad("particle.mass", m, "must be positive");
+  const [x0, y0, z0] = vector3("position", options.position);
+  const v0 = vector3("velocity", options.velocity);
+  const dt = finiteNumber("timeStep", options.timeStep);
+  if (!(dt > 0)) throw bad("timeStep", dt, "must be positive");
+  const steps = wholeNumber("steps", options.steps, 1, Number.MAX_SAFE_INTEGER);
+  const every = options.sampleEvery === undefined ? 1 : wholeNumber("sampleEvery", options.sampleEvery, 1, Number.MAX_SAFE_INTEGER);
+  const t0 = options.startTime === undefined ? 0 : finiteNumber("startTime", options.startTime);
+  const samples = Math.floor(steps / every) + 1;
+  if (samples > MAX_SAMPLES) throw bad("sampleEvery", every, `stores ${samples} samples, more than ${MAX_SAMPLES}; raise sampleEvery`);
+  if (!Number.isFinite(t0 + steps * dt)) throw bad("timeStep", dt, "the end time is not finite");
+
+  const speed = Math.hypot(v0[0], v0[1], v0[2]);
+  const b = speed / C;
+  if (!(b < 1)) throw bad("velocity", speed, "speed must be below c");
+  // gamma = 1/sqrt((1 - b)(1 + b)): exact near b = 1, where 1 - b^2 would round.
+  const g0 = 1 / Math.sqrt((1 - b) * (1 + b));
+
+  const eField = fieldOf("electricField", options.electricField);
+  const bField = fieldOf("fluxDensity", options.fluxDensity);
+
+  const t = new Float64Array(samples);
+  const pos = new Float64Array(3 * samples);
+  const vel = new Float64Array(3 * samples);
+  let x = x0, y = y0, z = z0;
+  let ux = g0 * v0[0], uy = g0 * v0[1], uz = g0 * v0[2];
+  let gamma = g0;
+  t[0] = t0;
+  pos[0] = x; pos[1] = y; pos[2] = z;
+  vel[0] = v0[0]; vel[1] = v0[1]; vel[2] = v0[2];
+
+  const h = 0.5 * dt;
+  const kick = (q / m) * h; // (q/m)(dt/2)
+  const E = new Float64Array(eField.uniform ?? [0, 0, 0]);
+  const B = new Float64Array(bField.uniform ?? [0, 0, 0]);
+  let k = 1;
+  for (let n = 1; n <= steps; n++) {
+    // Half drift to the mid-step position.
+    let ig = 1 / gamma;
+    x += h * ux * ig; y += h * uy * ig; z += h * uz * ig;
+    const tm = t0 + (n - 0.5) * dt;
+    if (eField.fn) read(eField.fn, "electricField", x, y, z, tm, E);
+    if (bField.fn) read(bField.fn, "fluxDensity", x, y, z, tm, B);
+    // Half electric kick.
+    const umx = ux + kick * E[0]!, umy = uy + kick * E[1]!, umz = uz + kick * E[2]!;
+    // Magnetic rotation of u- by angle 2 atan(|t|); preserves |u| exactly in exact arithmetic.
+    const f = kick / Math.sqrt(1 + (umx * umx + umy * umy + umz * umz) * INV_C2);
+    const tx = f * B[0]!, ty = f * B[1]!, tz = f * B[2]!;
+    const s = 2 / (1 + tx * tx + ty * ty + tz * tz);
+    const upx = umx + (umy * tz - umz * ty);
+    const upy = umy + (umz * tx - umx * tz);
+    const upz = umz + (umx * ty - umy * tx);
+    const rx = umx + s * (upy * tz - upz * ty);
+    const ry = umy + s * (upz * tx - upx * tz);
+    const rz = umz + s * (upx * ty - upy * tx);
+    // Second half electric kick.
+    ux = rx + kick * E[0]!; uy = ry + kick * E[1]!; uz = rz + kick * E[2]!;
+    gamma = Math.sqrt(1 + (ux * ux + uy * uy + uz * uz) * INV_C2);
+    // Half drift with the new velocity.
+    ig = 1 / gamma;
+    x += h * ux * ig; y += h * uy * ig; z += h * uz * ig;
+    if (!(x - x === 0 && y - y === 0 && z - z === 0 && gamma - gamma === 0)) {
+      throw new FormulaError("out_of_range", { formula: ID, detail: `the motion overflowed at step ${n}` });
+    }
+    if (n % every === 0) {
+      t[k] = t0 + n * dt;
+      const j = 3 * k;
+      pos[j] = x; pos[j + 1] = y; pos[j + 2] = z;
+      vel[j] = ux * ig; vel[j + 1] = uy * ig; vel[j + 2] = uz * ig;
+      k++;
+    }
+  }
+  return { t, positions: pos, velocities: vel, samples };
+}
+
+interface ResolvedField {
+  readonly uniform?: readonly number[];
+  readonly fn?: FieldFunction;
+}
+
+function fieldOf(input: string, f: unknown): ResolvedField {
+  if (f === undefined) return { uniform: [0, 0, 0] };
+  if (typeof f === "function") return { fn: f as FieldFunction };
+  return { uniform: vector3(input, f) };
+}
+
+function read(fn: FieldFunction, input: string, x: number, y: number, z: number, t: number, out: Float64Array): void {
+  const r = fn(x, y, z, t);
+  const a = r?.[0], b = r?.[1], c = r?.[2];
+  if (r?.length !== 3 || typeof a !== "number" || typeof b !== "number" || typeof c !== "number" || a - a !== 0 || b - b !== 0 || c - c !== 0) {
+    throw bad(input, undefined, `the field function must return three finite numbers; at (${x}, ${y}, ${z}) m, t = ${t} s it did not`);
+  }
+  out[0] = a; out[1] = b; out[2] = c;
+}

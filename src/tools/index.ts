@@ -1,0 +1,11 @@
+// Design tools that work on every registry formula: solve, tolerance, sweeps, catalog JSON.
+export { solve, solveDetails, solveRequest } from "./solve.js";
+export type { SolvableInput, SolveOptions, SolveRequest, SolveResult } from "./solve.js";
+export { tolerance, toleranceRequest } from "./tolerance.js";
+export type { QuantityValue, Sensitivity, ToleranceOptions, ToleranceResult, ToleranceSpec, ToleranceValue } from "./tolerance.js";
+export { sweep, sweepRequest, sweepToCsv, sweepToVegaLite } from "./sweep.js";
+export type { SweepAxis, SweepAxisSpec, SweepResult, SweepSpec } from "./sweep.js";
+export { catalogEntry, formulaCatalog, inputSchema } from "./catalog.js";
+export type { CatalogEntry, CatalogInput, CatalogNote } from "./catalog.js";
+export { createRandom } from "./random.js";
+export type { Random } from "./random.js";

@@ -1,0 +1,295 @@
+import { FormulaError } from "../core/errors.js";
+import type { AnyFormula, Formula } from "../core/formula.js";
+import { getFormula } from "../core/registry.js";
+import type { ComputeInputs, InputSpecs, OutputSpec, QuantityInput } from "../core/spec.js";
+import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
+import type { QuantityValue } from "./tolerance.js";
+
+/** One swept input: `points` values from `from` to `to`, evenly spaced or geometric. */
+export interface SweepAxisSpec {
+  readonly from: QuantityValue;
+  readonly to: QuantityValue;
+  readonly points: number;
+  /** "linear" (default) or "log" (geometric spacing; needs from and to of one sign). */
+  readonly scale?: "linear" | "log";
+}
+
+export interface SweepSpec<N extends string = string> {
+  /** One or two inputs to vary. */
+  readonly vary: { readonly [K in N]?: SweepAxisSpec };
+  /** The other inputs: numbers in SI, unit strings, choice words, 3-arrays. */
+  readonly fixed?: Readonly<Record<string, unknown>>;
+}
+
+export interface SweepAxis {
+  readonly name: string;
+  /** SI unit symbol of the input. */
+  readonly unit: string;
+  readonly scale: "linear" | "log";
+  readonly values: Float64Array;
+}
+
+/**
+ * A grid of results. For two axes the arrays are row-major: index = i * n1 + j,
+ * i along axes[0], j along axes[1].
+ *
+ * NaN appears here and nowhere else in the library: it marks a point that was
+ * not computed (an input outside its domain, a relation broken, or a result out
+ * of range). `computed[k]` is 1 where a value was computed, 0 where not.
+ */
+export interface SweepResult {
+  readonly formula: string;
+  readonly axes: readonly SweepAxis[];
+  readonly output: {
+    readonly name: string;
+    readonly description: string;
+    readonly unit: string;
+    /** Scalar output values; for formulas with components, the first component. */
+    readonly values: Float64Array;
+    /** One array per named component (vector outputs), same layout as `values`. */
+    readonly components?: Readonly<Record<string, Float64Array>>;
+  };
+  readonly computed: Uint8Array;
+  readonly notComputed: number;
+}
+
+/**
+ * Evaluate a formula over a grid of one or two inputs into Float64Arrays.
+ * The fixed inputs are checked once; per point one reused inputs object is
+ * updated and only the domain checks of the varied inputs, the relations and
+ * compute run. Whole-number inputs (counts) are rounded to whole numbers.
+ *
+ * @example
+ * sweep(parallelPlateCapacitance, { vary: { gap: { from: 1e-4, to: 1e-3, points: 10 } }, fixed: { area: 1e-4 } });
+ */
+export function sweep<I extends InputSpecs, O extends OutputSpec>(
+  formula: Formula<I, O> | string,
+  spec: SweepSpec<keyof I & string>,
+): SweepResult {
+  const f = typeof formula === "string" ? getFormula(formula) : (formula as unknown as AnyFormula);
+  return run(f, spec as SweepSpec);
+}
+
+/** JSON form: `{ formula, vary, fixed }` with unit strings. */
+export function sweepRequest(request: { readonly formula: string } & SweepSpec): SweepResult {
+  if (typeof request !== "object" || request === null) {
+    throw new FormulaError("wrong_type", { input: "request", value: request, expected: "an object { formula, vary, fixed }" });
+  }
+  return run(getFormula(request.formula), request);
+}
+
+const MAX_POINTS = 4_000_000;
+
+function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
+  const id = formula.id;
+  const def = formula.definition;
+  const specs = specsOf(formula);
+  if (typeof spec !== "object" || spec === null || typeof spec.vary !== "object" || spec.vary === null) {
+    throw new FormulaError("invalid_argument", { formula: id, input: "vary", detail: "give { vary: { input: { from, to, points } } }" });
+  }
+  const names = Object.keys(spec.vary);
+  if (names.length < 1 || names.length > 2) {
+    throw new FormulaError("invalid_argument", { formula: id, input: "vary", detail: "vary one or two inputs" });
+  }
+  const fixedRaw = spec.fixed ?? {};
+  const axes: SweepAxis[] = names.map((name) => {
+    const s = specs[name];
+    if (s === undefined) throw new FormulaError("unknown_input", { formula: id, input: name });
+    if (!isScalarQuantity(s)) throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "only scalar quantity inputs can be swept" });
+    if (typeof fixedRaw === "object" && fixedRaw !== null && Object.hasOwn(fixedRaw, name)) {
+      throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "an input cannot be both swept and fixed" });
+    }
+    return axisValues(id, name, s, (spec.vary as Record<string, SweepAxisSpec>)[name]!);
+  });
+  const n0 = axes[0]!.values.length;
+  const n1 = axes.length === 2 ? axes[1]!.values.length : 1;
+  if (n0 * n1 > MAX_POINTS) throw new FormulaError("invalid_argument", { formula: id, input: "points", detail: `at most ${MAX_POINTS} points in all` });
+
+  const fixed = convertInputs(formula, fixedRaw, names);
+  // Probe the fixed inputs with in-domain values of the swept ones: the first in-domain grid value.
+  const probes: Record<string, number> = {};
+  for (const a of axes) {
+    const s = specs[a.name] as QuantityInput;
+    probes[a.name] = a.values.find((v) => inDomain(v, s.domain)) ?? a.values[0]!;
+  }
+  const b = bind(formula, fixed, probes);
+  const x = b.x;
+  const comps = def.output.components as readonly string[] | undefined;
+  const total = n0 * n1;
+  const values = new Float64Array(total);
+  const computed = new Uint8Array(total);
+  const componentArrays = comps ? comps.map(() => new Float64Array(total)) : undefined;
+  const relations = def.relations ?? [];
+  const compute = def.compute as (x: unknown) => unknown;
+  const name0 = axes[0]!.name;
+  const name1 = axes.length === 2 ? axes[1]!.name : undefined;
+  const dom0 = (specs[name0] as QuantityInput).domain;
+  const dom1 = name1 !== undefined ? (specs[name1] as QuantityInput).domain : undefined;
+  const v0 = axes[0]!.values;
+  const v1 = name1 !== undefined ? axes[1]!.values : undefined;
+  let failed = 0;
+  for (let i = 0; i < n0; i++) {
+    const a = v0[i]!;
+    const okA = inDomain(a, dom0);
+    x[name0] = a;
+    for (let j = 0; j < n1; j++) {
+      const k = i * n1 + j;
+      let ok = okA;
+      if (v1 !== undefined) {
+        const c = v1[j]!;
+        x[name1!] = c;
+        ok = ok && inDomain(c, dom1);
+      }
+      for (let r = 0; ok && r < relations.length; r++) ok = relations[r]!.holds(x as ComputeInputs<InputSpecs>);
+      let out: unknown;
+      if (ok) {
+        try {
+          out = compute(x);
+        } catch (e) {
+          if (!(e instanceof FormulaError)) throw e;
+          ok = false;
+        }
+      }
+      if (ok && componentArrays === undefined) {
+        const r = out as number;
+        if (typeof r === "number" && r - r === 0) {
+          values[k] = r;
+          computed[k] = 1;
+          continue;
+        }
+      } else if (ok && componentArrays !== undefined && Array.isArray(out)) {
+        let finite = true;
+        for (let c = 0; c < componentArrays.length; c++) finite = finite && out[c] - out[c] === 0;
+        if (finite) {
+          for (let c = 0; c < componentArrays.length; c++) componentArrays[c]![k] = out[c];
+          values[k] = out[0];
+          computed[k] = 1;
+          continue;
+        }
+      }
+      values[k] = NaN;
+      if (componentArrays) for (const arr of componentArrays) arr[k] = NaN;
+      failed++;
+    }
+  }
+  return {
+    formula: id,
+    axes,
+    output: {
+      name: id,
+      description: def.output.description,
+      unit: siUnit(def.output.dimension),
+      values,
+      ...(comps && componentArrays ? { components: Object.fromEntries(comps.map((c, i) => [c, componentArrays[i]!])) } : {}),
+    },
+    computed,
+    notComputed: failed,
+  };
+}
+
+function axisValues(id: string, name: string, spec: QuantityInput, a: SweepAxisSpec): SweepAxis {
+  if (typeof a !== "object" || a === null) {
+    throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "an axis is { from, to, points, scale }" });
+  }
+  const from = readQuantity(id, name, spec.dimension, a.from);
+  const to = readQuantity(id, name, spec.dimension, a.to);
+  const points = a.points;
+  if (typeof points !== "number" || !Number.isInteger(points) || points < 1 || points > MAX_POINTS) {
+    throw new FormulaError("invalid_argument", { formula: id, input: name, value: points, detail: "points must be a whole number from 1" });
+  }
+  const scale = a.scale ?? "linear";
+  if (scale !== "linear" && scale !== "log") {
+    throw new FormulaError("invalid_argument", { formula: id, input: name, value: scale, detail: 'scale is "linear" or "log"' });
+  }
+  if (scale === "log" && !(from * to > 0)) {
+    throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "a log sweep needs from and to of the same sign, not zero" });
+  }
+  const values = new Float64Array(points);
+  for (let i = 0; i < points; i++) {
+    const t = points === 1 ? 0 : i / (points - 1);
+    // Ends exact; log spacing by exp of interpolated logs (sign carried separately).
+    values[i] = i === 0 ? from : i === points - 1 ? to
+      : scale === "log" ? Math.sign(from) * Math.exp(Math.log(Math.abs(from)) * (1 - t) + Math.log(Math.abs(to)) * t)
+      : from + (to - from) * t;
+    if (spec.domain?.integer) values[i] = Math.round(values[i]!);
+  }
+  return { name, unit: siUnit(spec.dimension), scale, values };
+}
+
+// ---- export ----
+
+function header(name: string, unit: string): string {
+  const h = unit ? `${name} (${unit})` : name;
+  return /[",\n]/.test(h) ? `"${h.replace(/"/g, '""')}"` : h;
+}
+
+/**
+ * CSV text: one row per point, swept inputs first, then the output (and its
+ * components); the header carries the SI units. Points not computed have empty
+ * output cells. Numbers are written with full precision (round-trip).
+ */
+export function sweepToCsv(result: SweepResult): string {
+  const cols = result.axes.map((a) => header(a.name, a.unit));
+  const comps = result.output.components ? Object.entries(result.output.components) : [];
+  if (comps.length === 0) cols.push(header(result.output.name, result.output.unit));
+  for (const [c] of comps) cols.push(header(`${result.output.name}.${c}`, result.output.unit));
+  const lines = [cols.join(",")];
+  const n1 = result.axes.length === 2 ? result.axes[1]!.values.length : 1;
+  const total = result.output.values.length;
+  for (let k = 0; k < total; k++) {
+    const i = Math.floor(k / n1);
+    const j = k % n1;
+    const row: string[] = [String(result.axes[0]!.values[i])];
+    if (result.axes.length === 2) row.push(String(result.axes[1]!.values[j]));
+    const ok = result.computed[k] === 1;
+    if (comps.length === 0) row.push(ok ? String(result.output.values[k]) : "");
+    for (const [, arr] of comps) row.push(ok ? String(arr[k]) : "");
+    lines.push(row.join(","));
+  }
+  return `${lines.join("\n")}\n`;
+}
+
+/**
+ * A Vega-Lite v5 specification with the data inline: a line chart for one
+ * swept input, a heatmap (rect marks coloured by the output) for two. Points
+ * not computed are left out. Log-spaced axes get log scales.
+ */
+export function sweepToVegaLite(result: SweepResult): Record<string, unknown> {
+  const title = (name: string, unit: string): string => (unit ? `${name} (${unit})` : name);
+  const out = result.output;
+  const n1 = result.axes.length === 2 ? result.axes[1]!.values.length : 1;
+  const values: Record<string, number>[] = [];
+  for (let k = 0; k < out.values.length; k++) {
+    if (result.computed[k] !== 1) continue;
+    const row: Record<string, number> = { [result.axes[0]!.name]: result.axes[0]!.values[Math.floor(k / n1)]! };
+    if (result.axes.length === 2) row[result.axes[1]!.name] = result.axes[1]!.values[k % n1]!;
+    row[out.name] = out.values[k]!;
+    values.push(row);
+  }
+  const a0 = result.axes[0]!;
+  const base = {
+    $schema: "https://vega.github.io/schema/vega-lite/v5.json",
+    description: `${out.description} (${result.formula})`,
+    data: { values },
+  };
+  if (result.axes.length === 1) {
+    return {
+      ...base,
+      mark: { type: "line", point: values.length <= 50 },
+      encoding: {
+        x: { field: a0.name, type: "quantitative", title: title(a0.name, a0.unit), ...(a0.scale === "log" ? { scale: { type: "log" } } : {}) },
+        y: { field: out.name, type: "quantitative", title: title(out.name, out.unit) },
+      },
+    };
+  }
+  const a1 = result.axes[1]!;
+  return {
+    ...base,
+    mark: "rect",
+    encoding: {
+      x: { field: a0.name, type: "ordinal", title: title(a0.name, a0.unit), axis: { format: ".3~g" } },
+      y: { field: a1.name, type: "ordinal", title: title(a1.name, a1.unit), sort: "descending", axis: { format: ".3~g" } },
+      color: { field: out.name, type: "quantitative", title: title(out.name, out.unit) },
+    },
+  };
+}

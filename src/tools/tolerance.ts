@@ -1,0 +1,446 @@
+import { FormulaError } from "../core/errors.js";
+import type { AnyFormula, Formula } from "../core/formula.js";
+import { getFormula } from "../core/registry.js";
+import type { InputSpecs, Note, OutputSpec, QuantityInput } from "../core/spec.js";
+import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
+import { createRandom } from "./random.js";
+
+/** A value in SI, or a unit string ("0.2 mm"). */
+export type QuantityValue = number | string;
+
+/**
+ * How one input varies. A plain value is held at nominal. Plus-minus and
+ * percent bands are sampled uniformly in the Monte Carlo; a normal input's
+ * worst-case band is mean +- 3 sd.
+ */
+export type ToleranceSpec =
+  | { readonly nominal: QuantityValue; readonly plusMinus: QuantityValue }
+  | { readonly nominal: QuantityValue; readonly percent: number }
+  | { readonly distribution: "normal"; readonly mean: QuantityValue; readonly sd: QuantityValue }
+  | { readonly distribution: "uniform"; readonly min: QuantityValue; readonly max: QuantityValue };
+
+/** An input of a tolerance analysis: a nominal value (number, unit string, choice, vector) or a tolerance. */
+export type ToleranceValue = QuantityValue | readonly QuantityValue[] | ToleranceSpec;
+
+export interface ToleranceOptions {
+  /** Monte Carlo samples (default 10000, at most 1e6; 0 skips the Monte Carlo). */
+  readonly samples?: number;
+  /** Seed of the generator (default 1). Same seed, same samples. */
+  readonly seed?: number;
+  /** Up to this many toleranced inputs every corner of the box is evaluated (default 12). */
+  readonly maxCornerInputs?: number;
+}
+
+/** One input's first-order contribution. */
+export interface Sensitivity {
+  readonly input: string;
+  /** d output / d input at nominal, in SI (output unit per input unit). */
+  readonly derivative: number;
+  /** The unit of the derivative, e.g. "F/m". */
+  readonly derivativeUnit: string;
+  /** Standard deviation of the input (SI). */
+  readonly sd: number;
+  /** Share of the RSS variance, 0..1. */
+  readonly share: number;
+}
+
+export interface ToleranceResult {
+  readonly formula: string;
+  /** SI unit symbol of the output. */
+  readonly unit: string;
+  readonly nominal: number;
+  readonly worstCase: {
+    readonly min: number;
+    readonly max: number;
+    /** "corners": every corner of the box evaluated; "derivative signs": the two corners the slopes point to. */
+    readonly method: "corners" | "derivative signs";
+    readonly evaluated: number;
+    readonly rejected: number;
+  };
+  readonly rss: {
+    /** Standard deviation of the output from first-order propagation. */
+    readonly sd: number;
+    /** RSS of each input's band half-width times its slope (the classic "RSS tolerance"). */
+    readonly plusMinus: number;
+  };
+  readonly monteCarlo?: {
+    readonly generator: string;
+    readonly seed: number;
+    readonly samples: number;
+    readonly accepted: number;
+    /** Samples outside an input's domain or breaking a relation, not computed. */
+    readonly rejected: number;
+    readonly mean: number;
+    readonly sd: number;
+    readonly p1: number;
+    readonly p5: number;
+    readonly p50: number;
+    readonly p95: number;
+    readonly p99: number;
+    readonly min: number;
+    readonly max: number;
+  };
+  /** Largest share first. */
+  readonly sensitivities: readonly Sensitivity[];
+  /** Remarks on the method: non-monotonic inputs, clipped bands, rejected corners. */
+  readonly remarks: readonly string[];
+  /** Warnings and cautions at nominal and at any evaluated corner (deduplicated by code). */
+  readonly warnings: readonly Note[];
+  readonly cautions: readonly Note[];
+}
+
+interface Varied {
+  readonly name: string;
+  readonly spec: QuantityInput;
+  readonly nominal: number;
+  readonly lo: number;
+  readonly hi: number;
+  readonly sd: number;
+  readonly kind: "uniform" | "normal";
+}
+
+/**
+ * Tolerance analysis of a formula with scalar output: worst-case bounds (box
+ * corners, checked against slopes), first-order RSS with each input's share,
+ * and a seeded Monte Carlo (xoshiro128**) with percentiles.
+ *
+ * @example
+ * tolerance(parallelPlateCapacitance, { area: 1e-4, gap: { nominal: 1e-4, percent: 5 } }).worstCase;
+ */
+export function tolerance<I extends InputSpecs, O extends OutputSpec>(
+  formula: Formula<I, O>,
+  inputs: { readonly [K in keyof I & string]?: ToleranceValue },
+  options: ToleranceOptions = {},
+): ToleranceResult {
+  return analyse(formula as unknown as AnyFormula, inputs as Record<string, unknown>, options);
+}
+
+/** JSON form: `{ formula, inputs, options }` with unit strings; returns plain JSON. */
+export function toleranceRequest(request: {
+  readonly formula: string;
+  readonly inputs: Readonly<Record<string, unknown>>;
+  readonly options?: ToleranceOptions;
+}): ToleranceResult {
+  if (typeof request !== "object" || request === null) {
+    throw new FormulaError("wrong_type", { input: "request", value: request, expected: "an object { formula, inputs }" });
+  }
+  return analyse(getFormula(request.formula), request.inputs, request.options ?? {});
+}
+
+function isPlainObject(v: unknown): v is Record<string, unknown> {
+  return typeof v === "object" && v !== null && !Array.isArray(v);
+}
+
+function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions): ToleranceResult {
+  const id = formula.id;
+  const def = formula.definition;
+  if (def.output.components) {
+    throw new FormulaError("invalid_argument", { formula: id, detail: "tolerance analysis needs a scalar output; this formula returns components" });
+  }
+  if (!isPlainObject(inputs)) {
+    throw new FormulaError("wrong_type", { formula: id, input: "inputs", value: inputs, expected: "an object of named inputs" });
+  }
+  const specs = specsOf(formula);
+  const plain: Record<string, unknown> = {};
+  const varied: Varied[] = [];
+  const remarks: string[] = [];
+  for (const [name, raw] of Object.entries(inputs)) {
+    if (!Object.hasOwn(specs, name)) throw new FormulaError("unknown_input", { formula: id, input: name });
+    if (!isPlainObject(raw)) {
+      plain[name] = raw;
+      continue;
+    }
+    const spec = specs[name]!;
+    if (!isScalarQuantity(spec)) {
+      throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "only scalar quantity inputs can carry a tolerance" });
+    }
+    varied.push(readTolerance(id, name, spec, raw, remarks));
+  }
+  const fixed = convertInputs(formula, plain);
+  const samples = Math.floor(options.samples ?? 10000);
+  if (!(samples >= 0 && samples <= 1e6)) {
+    throw new FormulaError("invalid_argument", { formula: id, input: "samples", value: options.samples, detail: "samples must be from 0 to 1000000" });
+  }
+  const seed = options.seed ?? 1;
+  if (!Number.isInteger(seed)) throw new FormulaError("invalid_argument", { formula: id, input: "seed", value: seed, detail: "seed must be a whole number" });
+  const maxCorner = Math.min(16, Math.max(0, Math.floor(options.maxCornerInputs ?? 12)));
+
+  // Nominal: the full checks, so a bad nominal input fails as in evaluate.
+  const nominalInputs: Record<string, unknown> = { ...fixed };
+  for (const v of varied) nominalInputs[v.name] = v.nominal;
+  const prepared = formula.prepare(nominalInputs);
+  const nominal = formula.run(prepared) as number;
+  const notes = formula.notes(prepared, nominal);
+  const warnings = new Map(notes.warnings.map((n) => [n.code, n]));
+  const cautions = new Map(notes.cautions.map((n) => [n.code, n]));
+
+  const probes: Record<string, number> = {};
+  for (const v of varied) probes[v.name] = v.nominal;
+  const b = bind(formula, fixed, probes);
+  const x = b.x;
+  const resetNominal = (): void => {
+    for (const v of varied) x[v.name] = v.nominal;
+  };
+  const at = (name: string, value: number): number => {
+    x[name] = value;
+    const r = b.scalar();
+    return r;
+  };
+  const outUnit = siUnit(def.output.dimension);
+
+  // ---- slopes (Richardson-extrapolated central differences) ----
+  const derivatives = varied.map((v) => {
+    resetNominal();
+    const d = derivative((t) => at(v.name, t), v, id);
+    resetNominal();
+    if (d === undefined) remarks.push(`the slope with respect to ${v.name} could not be computed at nominal (a relation or the domain ends there); it is left out of the RSS`);
+    return d ?? 0;
+  });
+  let variance = 0;
+  let bandSquare = 0;
+  const contributions = varied.map((v, i) => {
+    const c = derivatives[i]! * v.sd;
+    variance += c * c;
+    const h = derivatives[i]! * (v.hi - v.lo) / 2;
+    bandSquare += h * h;
+    return c * c;
+  });
+  const sensitivities: Sensitivity[] = varied
+    .map((v, i) => {
+      const inUnit = siUnit(v.spec.dimension);
+      return {
+        input: v.name,
+        derivative: derivatives[i]!,
+        derivativeUnit: `${outUnit || "1"}${inUnit ? `/${inUnit}` : ""}`,
+        sd: v.sd,
+        share: variance > 0 ? contributions[i]! / variance : 0,
+      };
+    })
+    .sort((a, c) => c.share - a.share);
+
+  // ---- worst case ----
+  let min = nominal;
+  let max = nominal;
+  let evaluated = 0;
+  let rejected = 0;
+  const collectNotes = (value: number): void => {
+    const n = formula.notes(x as never, value as never);
+    for (const w of n.warnings) if (!warnings.has(w.code)) warnings.set(w.code, w);
+    for (const c of n.cautions) if (!cautions.has(c.code)) cautions.set(c.code, c);
+  };
+  const visit = (): void => {
+    const r = b.scalar();
+    evaluated++;
+    if (r !== r) {
+      rejected++;
+      return;
+    }
+    if (r < min) min = r;
+    if (r > max) max = r;
+    collectNotes(r);
+  };
+  const endValue = (v: Varied, high: boolean): number => {
+    const e = high ? v.hi : v.lo;
+    return v.spec.domain?.integer ? (high ? Math.floor(e) : Math.ceil(e)) : e;
+  };
+  let method: "corners" | "derivative signs";
+  if (varied.length <= maxCorner) {
+    method = "corners";
+    const n = varied.length;
+    for (let mask = 0; mask < 1 << n; mask++) {
+      for (let i = 0; i < n; i++) x[varied[i]!.name] = endValue(varied[i]!, (mask & (1 << i)) !== 0);
+      visit();
+    }
+  } else {
+    method = "derivative signs";
+    remarks.push(`${varied.length} toleranced inputs: only the two corners the slopes point to were evaluated, not all ${2 ** varied.length}`);
+    for (const up of [true, false]) {
+      varied.forEach((v, i) => (x[v.name] = endValue(v, derivatives[i]! >= 0 === up)));
+      visit();
+    }
+  }
+  if (rejected > 0) remarks.push(`${rejected} of ${evaluated} corners break a relation or the domain and were not computed`);
+  // Monotonic along each input (others at nominal)? If not, the extremes may lie inside the band.
+  for (const v of varied) {
+    resetNominal();
+    const steps = 16;
+    let dir = 0;
+    let monotonic = true;
+    let prev = NaN;
+    for (let k = 0; k <= steps; k++) {
+      let t = v.lo + ((v.hi - v.lo) * k) / steps;
+      if (v.spec.domain?.integer) t = Math.round(t);
+      const r = at(v.name, t);
+      if (r !== r) continue;
+      if (r < min) min = r;
+      if (r > max) max = r;
+      if (prev === prev) {
+        const s = Math.sign(r - prev);
+        if (s !== 0) {
+          if (dir !== 0 && s !== dir) monotonic = false;
+          dir = s;
+        }
+      }
+      prev = r;
+    }
+    if (!monotonic) {
+      remarks.push(`the output is not monotonic in ${v.name} over its band: the extremes may lie inside the band, so the worst case includes interior samples and the Monte Carlo range`);
+    }
+  }
+  resetNominal();
+
+  // ---- Monte Carlo ----
+  let monteCarlo: ToleranceResult["monteCarlo"];
+  if (samples > 0) {
+    const rng = createRandom(seed);
+    const values = new Float64Array(samples);
+    let accepted = 0;
+    const n = varied.length;
+    for (let s = 0; s < samples; s++) {
+      let ok = true;
+      for (let i = 0; i < n; i++) {
+        const v = varied[i]!;
+        let t = v.kind === "normal" ? v.nominal + v.sd * rng.normal() : v.lo + (v.hi - v.lo) * rng.next();
+        if (v.spec.domain?.integer) t = Math.round(t);
+        if (!inDomain(t, v.spec.domain)) ok = false;
+        x[v.name] = t;
+      }
+      if (!ok) continue;
+      const r = b.scalar();
+      if (r === r) values[accepted++] = r;
+    }
+    resetNominal();
+    if (accepted === 0) {
+      throw new FormulaError("invalid_argument", { formula: id, detail: "every Monte Carlo sample broke a relation or an input's domain; narrow the tolerances" });
+    }
+    const acc = values.subarray(0, accepted).sort();
+    let sum = 0;
+    for (let i = 0; i < accepted; i++) sum += acc[i]!;
+    const mean = sum / accepted;
+    let ss = 0;
+    for (let i = 0; i < accepted; i++) ss += (acc[i]! - mean) ** 2;
+    const sd = accepted > 1 ? Math.sqrt(ss / (accepted - 1)) : 0;
+    const pct = (p: number): number => {
+      const pos = (p / 100) * (accepted - 1);
+      const i = Math.floor(pos);
+      const f = pos - i;
+      return i + 1 < accepted ? acc[i]! * (1 - f) + acc[i + 1]! * f : acc[i]!;
+    };
+    monteCarlo = {
+      generator: "xoshiro128** seeded by splitmix32; bands uniform, normal inputs by Box-Muller",
+      seed, samples, accepted, rejected: samples - accepted, mean, sd,
+      p1: pct(1), p5: pct(5), p50: pct(50), p95: pct(95), p99: pct(99),
+      min: acc[0]!, max: acc[accepted - 1]!,
+    };
+    if (monteCarlo.min < min || monteCarlo.max > max) {
+      const bandLimited = varied.every((v) => v.kind === "uniform");
+      if (bandLimited) {
+        remarks.push("Monte Carlo samples fall outside the corner bounds (the function is not monotonic over the box): the worst case is widened to include them");
+        min = Math.min(min, monteCarlo.min);
+        max = Math.max(max, monteCarlo.max);
+      } else {
+        remarks.push("normal inputs: the worst case uses mean +- 3 sd, so Monte Carlo samples can fall outside it");
+      }
+    }
+  }
+
+  return {
+    formula: id, unit: outUnit, nominal,
+    worstCase: { min, max, method, evaluated, rejected },
+    rss: { sd: Math.sqrt(variance), plusMinus: Math.sqrt(bandSquare) },
+    ...(monteCarlo ? { monteCarlo } : {}),
+    sensitivities, remarks,
+    warnings: [...warnings.values()], cautions: [...cautions.values()],
+  };
+}
+
+function readTolerance(id: string, name: string, spec: QuantityInput, raw: Record<string, unknown>, remarks: string[]): Varied {
+  const q = (field: string, v: unknown): number => {
+    if (v === undefined) throw new FormulaError("invalid_argument", { formula: id, input: name, detail: `the tolerance needs "${field}"` });
+    return readQuantity(id, name, spec.dimension, v);
+  };
+  const keys = Object.keys(raw).sort().join(",");
+  let nominal: number;
+  let lo: number;
+  let hi: number;
+  let sd: number;
+  let kind: "uniform" | "normal" = "uniform";
+  const bad = (detail: string): FormulaError => new FormulaError("invalid_argument", { formula: id, input: name, detail });
+  if (keys === "nominal,plusMinus" || keys === "nominal,percent") {
+    nominal = q("nominal", raw.nominal);
+    let h: number;
+    if (keys === "nominal,percent") {
+      const p = raw.percent;
+      if (typeof p !== "number" || !(p >= 0) || !Number.isFinite(p)) throw bad("percent must be a number >= 0");
+      h = (Math.abs(nominal) * p) / 100;
+    } else {
+      h = q("plusMinus", raw.plusMinus);
+      if (!(h >= 0)) throw bad("plusMinus must be >= 0");
+    }
+    lo = nominal - h;
+    hi = nominal + h;
+    sd = h / Math.sqrt(3);
+  } else if (raw.distribution === "normal" && keys === "distribution,mean,sd") {
+    kind = "normal";
+    nominal = q("mean", raw.mean);
+    sd = q("sd", raw.sd);
+    if (!(sd >= 0)) throw bad("sd must be >= 0");
+    lo = nominal - 3 * sd;
+    hi = nominal + 3 * sd;
+  } else if (raw.distribution === "uniform" && keys === "distribution,max,min") {
+    lo = q("min", raw.min);
+    hi = q("max", raw.max);
+    if (!(lo <= hi)) throw bad("min must not exceed max");
+    nominal = (lo + hi) / 2;
+    sd = (hi - lo) / Math.sqrt(12);
+  } else {
+    throw bad('a tolerance is { nominal, plusMinus }, { nominal, percent }, { distribution: "normal", mean, sd } or { distribution: "uniform", min, max }');
+  }
+  const d = spec.domain;
+  if (d?.min !== undefined && lo < d.min) {
+    remarks.push(`the band of ${name} reaches below its domain (${d.minExclusive ? ">" : ">="} ${d.min}); worst-case ends are clipped there and Monte Carlo samples outside are rejected`);
+    lo = d.minExclusive ? Math.min(nominal, d.min + Math.max(Math.abs(d.min), Math.abs(nominal)) * 1e-9) : d.min;
+  }
+  if (d?.max !== undefined && hi > d.max) {
+    remarks.push(`the band of ${name} reaches above its domain (${d.maxExclusive ? "<" : "<="} ${d.max}); worst-case ends are clipped there and Monte Carlo samples outside are rejected`);
+    hi = d.maxExclusive ? Math.max(nominal, d.max - Math.max(Math.abs(d.max), Math.abs(nominal)) * 1e-9) : d.max;
+  }
+  return { name, spec, nominal, lo, hi, sd, kind };
+}
+
+/**
+ * d f / d t at the nominal by central differences h, h/2, h/4, h/8 combined by
+ * Richardson extrapolation (error O(h^8) for smooth f). h starts at 1e-3 of the
+ * input's scale (its nominal or band) and shrinks to stay inside the domain.
+ * Undefined when f cannot be computed on both sides.
+ */
+function derivative(f: (t: number) => number, v: Varied, _id: string): number | undefined {
+  const n = v.nominal;
+  const scale = Math.max(Math.abs(n), (v.hi - v.lo) / 2, 1e-300);
+  let h = 1e-3 * scale;
+  const d = v.spec.domain;
+  if (d?.min !== undefined) h = Math.min(h, 0.5 * (n - d.min) || h);
+  if (d?.max !== undefined) h = Math.min(h, 0.5 * (d.max - n) || h);
+  for (let attempt = 0; attempt < 4; attempt++, h /= 16) {
+    const levels = 4;
+    const t: number[] = [];
+    let ok = true;
+    for (let j = 0; j < levels; j++) {
+      const hj = h / 2 ** j;
+      const r = (f(n + hj) - f(n - hj)) / (2 * hj);
+      if (!Number.isFinite(r)) {
+        ok = false;
+        break;
+      }
+      t.push(r);
+    }
+    if (!ok) continue;
+    // Neville tableau: after k passes t[j] holds the O(h^(2k+2)) estimate.
+    for (let k = 1; k < levels; k++) {
+      const w = 4 ** k;
+      for (let j = 0; j < levels - k; j++) t[j] = (w * t[j + 1]! - t[j]!) / (w - 1);
+    }
+    return t[0]!;
+  }
+  return undefined;
+}

@@ -1,0 +1,93 @@
+// High-precision oracle for the capacitance closed forms: decimal.js at 50
+// significant digits, from the exact decimal values of the double inputs and
+// the published CODATA 2022 string for eps0. Written from the textbook
+// expressions as they stand (ln(b/a), acosh(D/2a), ab/(b-a)): at 50 digits the
+// cancellation that hurts doubles costs nothing.
+import Decimal from "decimal.js";
+import { constant } from "../../src/constants/index.js";
+import { constantDecimal } from "../../src/constants/decimal.js";
+
+export const D = Decimal.clone({ precision: 50, toExpNeg: -9e15, toExpPos: 9e15, minE: -9e15, maxE: 9e15 });
+export type Dec = Decimal;
+
+const view = new DataView(new ArrayBuffer(8));
+
+/** The exact value of a double as a decimal (no rounding: decimal.js keeps constructed digits). */
+export function exact(x: number): Dec {
+  if (!Number.isFinite(x)) throw new Error(`not finite: ${x}`);
+  if (x === 0) return new D(0);
+  view.setFloat64(0, x);
+  const b = view.getBigUint64(0);
+  const negative = b >> 63n === 1n;
+  const expBits = Number((b >> 52n) & 0x7ffn);
+  const frac = b & ((1n << 52n) - 1n);
+  const m = expBits === 0 ? frac : frac | (1n << 52n);
+  const e = (expBits === 0 ? 1 : expBits) - 1075; // x = m * 2^e
+  // m 2^e = m 5^k / 10^k for e = -k < 0: an exact decimal string.
+  const s = e >= 0 ? (m << BigInt(e)).toString() : `${m * 5n ** BigInt(-e)}e-${-e}`;
+  return new D(negative ? `-${s}` : s);
+}
+
+export const EPS0 = constantDecimal(constant("vacuumPermittivity"), D);
+export const PI = D.acos(-1);
+
+export interface LineInputs {
+  length: number;
+  relativePermittivity: number;
+}
+
+/** 2 pi eps0 epsr l / ln(b/a). */
+export function coaxialOracle(x: LineInputs & { innerRadius: number; outerRadius: number }): Dec {
+  const ln = exact(x.outerRadius).div(exact(x.innerRadius)).ln();
+  return PI.times(2).times(EPS0).times(exact(x.relativePermittivity)).times(exact(x.length)).div(ln);
+}
+
+/** 4 pi eps0 epsr a b / (b - a). */
+export function sphericalOracle(x: { innerRadius: number; outerRadius: number; relativePermittivity: number }): Dec {
+  const a = exact(x.innerRadius);
+  const b = exact(x.outerRadius);
+  return PI.times(4).times(EPS0).times(exact(x.relativePermittivity)).times(a).times(b).div(b.minus(a));
+}
+
+/** 4 pi eps0 epsr a. */
+export function isolatedSphereOracle(x: { radius: number; relativePermittivity: number }): Dec {
+  return PI.times(4).times(EPS0).times(exact(x.relativePermittivity)).times(exact(x.radius));
+}
+
+/** pi eps0 epsr l / acosh(D / 2a). */
+export function twoWireOracle(x: LineInputs & { wireRadius: number; separation: number }): Dec {
+  const ach = exact(x.separation).div(exact(x.wireRadius).times(2)).acosh();
+  return PI.times(EPS0).times(exact(x.relativePermittivity)).times(exact(x.length)).div(ach);
+}
+
+/** 2 pi eps0 epsr l / acosh(h / a). */
+export function wireOverPlaneOracle(x: LineInputs & { wireRadius: number; height: number }): Dec {
+  const ach = exact(x.height).div(exact(x.wireRadius)).acosh();
+  return PI.times(2).times(EPS0).times(exact(x.relativePermittivity)).times(exact(x.length)).div(ach);
+}
+
+/** eps0 epsr A / d. */
+export function parallelPlateOracle(x: { area: number; gap: number; relativePermittivity: number }): Dec {
+  return EPS0.times(exact(x.relativePermittivity)).times(exact(x.area)).div(exact(x.gap));
+}
+
+/** C V^2 / 2. */
+export function energyOracle(x: { capacitance: number; voltage: number }): Dec {
+  return exact(x.capacitance).times(exact(x.voltage).pow(2)).div(2);
+}
+
+/** C V. */
+export function chargeOracle(x: { capacitance: number; voltage: number }): Dec {
+  return exact(x.capacitance).times(exact(x.voltage));
+}
+
+/** |got - want| / |want| as a double. */
+export function relErr(got: number, want: Dec): number {
+  return exact(got).minus(want).abs().div(want.abs()).toNumber();
+}
+
+/** True when a positive decimal lies in the range of normal doubles. */
+export function representable(v: Dec): boolean {
+  const m = v.abs();
+  return m.gte("2.2250738585072014e-308") && m.lte("1.7976931348623157e308");
+}

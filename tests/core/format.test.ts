@@ -1,0 +1,30 @@
+// Message formatting: readable numbers in warnings, never "1.0e+2".
+import { describe, expect, it } from "vitest";
+import fc from "fast-check";
+import { formatNumber, formatPercent } from "../../src/core/format.js";
+
+describe("number formatting for messages", () => {
+  it("round numbers print plainly and extremes in short exponent form", () => {
+    const cases: [number, string][] = [
+      [100, "100"], [99.96, "100"], [999.6, "1000"], [1.5, "1.5"], [2, "2"], [0.012345, "0.012"],
+      [0.001, "0.001"], [0.00099996, "0.001"], [123456, "120000"], [999999, "1e6"], [3.4e-7, "3.4e-7"],
+      [-2.5e12, "-2.5e12"], [0, "0"], [1.7976931348623157e308, "1.8e308"], [5e-324, "4.9e-324"],
+    ];
+    for (const [v, s] of cases) expect(formatNumber(v), String(v)).toBe(s);
+    expect(formatNumber(0.000123456, 3)).toBe("1.23e-4");
+    expect(formatPercent(1)).toBe("100 %");
+    expect(formatPercent(0.0123)).toBe("1.2 %");
+  });
+
+  it("formatted numbers read back within the requested precision and never show e+", () => {
+    fc.assert(
+      fc.property(fc.double({ noNaN: true, noDefaultInfinity: true }), fc.integer({ min: 1, max: 6 }), (v, d) => {
+        const s = formatNumber(v, d);
+        expect(s).not.toMatch(/e\+|\.0*$|\.\d*0$/);
+        const back = Number(s);
+        if (v === 0) expect(back).toBe(0);
+        else if (Math.abs(v) >= 1e-300 && Math.abs(v) < 1e300) expect(Math.abs(back - v) / Math.abs(v)).toBeLessThanOrEqual(0.5 * 10 ** (1 - d) * 1.0000001);
+      }),
+    );
+  });
+});

@@ -1,0 +1,109 @@
+import fc from "fast-check";
+import { describe, expect, it } from "vitest";
+import {
+  evaluate, magneticFlux, motionalEmf, transformerEmf, transformerPeakFluxDensity,
+  type Angle, type Area, type FluxDensity, type Frequency, type Length, type Velocity, type Voltage,
+} from "../../src/index.js";
+import { checkCases, expectClose, relativeError } from "../helpers/reference.js";
+import { D, PI } from "./oracle.js";
+
+const T = (v: number) => v as FluxDensity;
+const m2 = (v: number) => v as Area;
+const Hz = (v: number) => v as Frequency;
+
+describe("magneticFlux", () => {
+  it("is B A cos(theta) (decimal.js oracle), with a unit-string angle in degrees", () => {
+    const expected = new D("0.2").times("1e-4").times(D.cos(PI.div(6))).toNumber();
+    expectClose(evaluate("magneticFlux", { fluxDensity: "0.2 T", area: "1 cm^2", angle: "30 deg" }).value as number, {
+      input: "0.2 T, 1 cm^2, 30 deg", expected, tolerance: 1e-15, source: "decimal.js oracle of B A cos(theta)",
+    });
+    expect(magneticFlux({ fluxDensity: T(1), area: m2(2) })).toBe(2);
+  });
+
+  it("is linear in flux density and in area (fast-check)", () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: -10, max: 10, noNaN: true }),
+        fc.double({ min: 0, max: 10, noNaN: true }),
+        fc.double({ min: 1e-3, max: 100, noNaN: true }),
+        fc.double({ min: 0, max: Math.PI, noNaN: true }),
+        (B, A, k, th) => {
+          const base = magneticFlux({ fluxDensity: T(B), area: m2(A), angle: th as Angle });
+          const tol = 1e-15 * Math.abs(B * A * k) + 1e-300;
+          expect(Math.abs(magneticFlux({ fluxDensity: T(k * B), area: m2(A), angle: th as Angle }) - k * base)).toBeLessThanOrEqual(2 * tol);
+          expect(Math.abs(magneticFlux({ fluxDensity: T(B), area: m2(k * A), angle: th as Angle }) - k * base)).toBeLessThanOrEqual(2 * tol);
+        },
+      ),
+    );
+  });
+});
+
+describe("transformerEmf", () => {
+  it("uses the 4.44 constant of the transformer equation for sine waves", () => {
+    // McLyman, Transformer and Inductor Design Handbook 3rd ed., ch. 1: E = 4.44 B f A N (sine wave); 4.44 rounded.
+    expectClose(transformerEmf({ frequency: Hz(1), turns: 1, area: m2(1), peakFluxDensity: T(1) }), {
+      input: "unit inputs", expected: 4.44, tolerance: 1e-3, source: "McLyman (2004) ch. 1, K_f = 4.44",
+    });
+    expectClose(transformerEmf({ frequency: Hz(1), turns: 1, area: m2(1), peakFluxDensity: T(1) }), {
+      input: "unit inputs", expected: PI.times(new D(2).sqrt()).toNumber(), tolerance: 2e-16, source: "decimal.js oracle of sqrt(2) pi",
+    });
+  });
+
+  it("matches sqrt(2) pi f N A B for a mains transformer (decimal.js oracle)", () => {
+    checkCases(
+      [
+        { input: { f: 50, N: 100, A: 1e-3, B: 1.2 }, expected: new D(2).sqrt().times(PI).times(50 * 100).times("1e-3").times("1.2").toNumber(), tolerance: 1e-15, source: "decimal.js oracle" },
+        { input: { f: 100e3, N: 7, A: 5.2e-5, B: 0.1 }, expected: new D(2).sqrt().times(PI).times("1e5").times(7).times("5.2e-5").times("0.1").toNumber(), tolerance: 1e-15, source: "decimal.js oracle" },
+      ],
+      (x) => transformerEmf({ frequency: Hz(x.f), turns: x.N, area: m2(x.A), peakFluxDensity: T(x.B) }),
+    );
+  });
+
+  it("cautions above the 50 V extra-low-voltage band", () => {
+    const d = transformerEmf.details({ frequency: Hz(50), turns: 1000, area: m2(1e-3), peakFluxDensity: T(1) });
+    expect(d.cautions.map((c) => c.code)).toContain("high_voltage");
+  });
+});
+
+describe("transformerPeakFluxDensity", () => {
+  it("inverts transformerEmf (fast-check)", () => {
+    fc.assert(
+      fc.property(
+        fc.double({ min: 1, max: 1e6, noNaN: true }),
+        fc.integer({ min: 1, max: 5000 }),
+        fc.double({ min: 1e-6, max: 1e-1, noNaN: true }),
+        fc.double({ min: 1e-3, max: 2, noNaN: true }),
+        (f, N, A, B) => {
+          const v = transformerEmf({ frequency: Hz(f), turns: N, area: m2(A), peakFluxDensity: T(B) });
+          const back = transformerPeakFluxDensity({ voltage: v, frequency: Hz(f), turns: N, area: m2(A) });
+          expect(relativeError(back, B)).toBeLessThan(1e-14);
+        },
+      ),
+    );
+  });
+
+  it("warns when the given saturation flux density is reached, and not when none is given", () => {
+    const input = { voltage: 230 as Voltage, frequency: Hz(50), turns: 800, area: m2(1e-3) };
+    expect(transformerPeakFluxDensity.details({ ...input, saturationFluxDensity: T(1.2) }).warnings.map((w) => w.code)).toContain("saturation");
+    expect(transformerPeakFluxDensity.details({ ...input, saturationFluxDensity: T(1.6) }).warnings.map((w) => w.code)).not.toContain("saturation");
+    expect(transformerPeakFluxDensity.details(input).warnings.map((w) => w.code)).not.toContain("saturation");
+  });
+});
+
+describe("motionalEmf", () => {
+  it("is B l v and changes sign with the speed", () => {
+    expect(motionalEmf({ fluxDensity: T(0.5), length: 0.2 as Length, speed: 10 as Velocity })).toBeCloseTo(1, 15);
+    expect(motionalEmf({ fluxDensity: T(0.5), length: 0.2 as Length, speed: -10 as Velocity })).toBeCloseTo(-1, 15);
+  });
+
+  it("agrees with the rate of change of flux through a sliding-bar circuit, dPhi/dt = B l v (Faraday's law)", () => {
+    fc.assert(
+      fc.property(fc.double({ min: 1e-3, max: 5, noNaN: true }), fc.double({ min: 1e-2, max: 2, noNaN: true }), fc.double({ min: 0.1, max: 100, noNaN: true }), (B, l, v) => {
+        const dt = 1e-3;
+        const area = (t: number) => m2(l * (1 + v * t));
+        const dPhi = magneticFlux({ fluxDensity: T(B), area: area(dt) }) - magneticFlux({ fluxDensity: T(B), area: area(0) });
+        expect(relativeError(dPhi / dt, motionalEmf({ fluxDensity: T(B), length: l as Length, speed: v as Velocity }))).toBeLessThan(1e-9);
+      }),
+    );
+  });
+});
