@@ -10,6 +10,9 @@ export { POSITIVE, NON_NEGATIVE, AT_LEAST_ONE, COUNT } from "./core/spec.js";
 export { evaluate } from "./core/evaluate.js";
 export type { EvaluateResult, RawInput } from "./core/evaluate.js";
 export { listFormulas, getFormula } from "./core/registry.js";
+export * from "./constants/index.js";
+// decimal.js is only pulled into a bundle that uses these two.
+export { constantDecimal, uncertaintyDecimal } from "./constants/decimal.js";
 export * from "./capacitance/index.js";
 export * from "./inductance/index.js";
 export * from "./flux/index.js";

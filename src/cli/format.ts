@@ -35,3 +35,10 @@ export function formatQuantity(v: number, unit: string, precision = 4): string {
 export function formatSI(v: number, unit: string): string {
   return unit ? `${v} ${unit}` : String(v);
 }
+
+/** "38.96 pF   (3.8958426402720006e-11 F)": readable, then full SI when that says more. */
+export function formatBoth(v: number, unit: string, precision = 4): string {
+  const a = formatQuantity(v, unit, precision);
+  const b = formatSI(v, unit);
+  return a === b ? a : `${a}   (${b})`;
+}

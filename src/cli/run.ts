@@ -6,7 +6,7 @@ import { catalogEntry } from "../tools/catalog.js";
 import { solveRequest } from "../tools/solve.js";
 import { sweepRequest, sweepToCsv, sweepToVegaLite } from "../tools/sweep.js";
 import { toleranceRequest } from "../tools/tolerance.js";
-import { formatQuantity, formatSI } from "./format.js";
+import { formatBoth, formatQuantity } from "./format.js";
 
 /** Where the command line writes. */
 export interface CliIO {
@@ -254,9 +254,9 @@ function compute(p: Parsed, io: CliIO, json: boolean): number {
   const lines: string[] = [];
   if (Array.isArray(r.value)) {
     lines.push(`${f.definition.output.description}:`);
-    (r.value as number[]).forEach((v, i) => lines.push(`  ${comps?.[i] ?? i} = ${formatQuantity(v, r.unit)}   (${formatSI(v, r.unit)})`));
+    (r.value as number[]).forEach((v, i) => lines.push(`  ${comps?.[i] ?? i} = ${formatBoth(v, r.unit)}`));
   } else {
-    lines.push(`${f.definition.output.description} = ${formatQuantity(r.value as number, r.unit)}   (${formatSI(r.value as number, r.unit)})`);
+    lines.push(`${f.definition.output.description} = ${formatBoth(r.value as number, r.unit)}`);
   }
   lines.push(...notesText(r.warnings, r.cautions));
   io.out(lines.join("\n"));
@@ -281,7 +281,7 @@ function solveCommand(p: Parsed, io: CliIO, json: boolean): number {
     io.out(JSON.stringify(r, null, 2));
     return 0;
   }
-  const lines = [`${r.input} = ${formatQuantity(r.value, r.unit, 6)}   (${formatSI(r.value, r.unit)})`];
+  const lines = [`${r.input} = ${formatBoth(r.value, r.unit, 6)}`];
   if (r.exact !== undefined) lines.push(`  rounded to a whole number from ${r.exact.toPrecision(6)}`);
   lines.push(`  output there: ${formatQuantity(r.outputAtValue, r.outputUnit, 6)} (target ${formatQuantity(r.target, r.outputUnit, 6)})`);
   lines.push(...notesText(r.warnings, r.cautions));

@@ -22,9 +22,9 @@ export type CodataEdition = (typeof CODATA_EDITIONS)[number];
 /** Where each edition's values are published. */
 export const CODATA_REFERENCES: Readonly<Record<CodataEdition, string>> = Object.freeze({
   "2022":
-    "P. J. Mohr, D. B. Newell, B. N. Taylor, E. Tiesinga et al., CODATA Recommended Values of the Fundamental Physical Constants: 2022, Rev. Mod. Phys. 97, 025002 (2025); NIST web version 9.0 (2024), physics.nist.gov/constants",
+    "E. Tiesinga, P. J. Mohr, D. B. Newell, B. N. Taylor, The 2022 CODATA Recommended Values of the Fundamental Physical Constants (web version 9.0, NIST, 2024), physics.nist.gov/constants; P. J. Mohr et al., CODATA Recommended Values of the Fundamental Physical Constants: 2022, Rev. Mod. Phys. 97, 025002 (2025)",
   "2018":
-    "E. Tiesinga, P. J. Mohr, D. B. Newell, B. N. Taylor, CODATA Recommended Values of the Fundamental Physical Constants: 2018, Rev. Mod. Phys. 93, 025010 (2021); J. Phys. Chem. Ref. Data 50, 033105 (2021)",
+    "E. Tiesinga, P. J. Mohr, D. B. Newell, B. N. Taylor, The 2018 CODATA Recommended Values of the Fundamental Physical Constants (web version 8.0, NIST, 2019), physics.nist.gov/constants; Rev. Mod. Phys. 93, 025010 (2021)",
 });
 
 /** One recommended value of one CODATA edition. */

@@ -252,8 +252,8 @@ export const chargingCapacitorField = /* @__PURE__ */ defineFormula({
  * impedance limits the peak when it is not small against 1/(omega C).
  *
  * Reference: H. W. Ott, Electromagnetic Compatibility Engineering (2009),
- * ch. 3 (capacitive coupling; common practice); IEC 60990 (measurement of touch
- * current and protective conductor current).
+ * ch. 2 (capacitive coupling; chapter from memory); IEC 60990 (measurement of
+ * touch current and protective conductor current).
  *
  * @example
  * parasiticCouplingCurrent({ capacitance: quantity(100, "pF"), voltageSlewRate: quantity(10, "V/ns") }); // ≈ 1 A
@@ -271,7 +271,7 @@ export const parasiticCouplingCurrent = /* @__PURE__ */ defineFormula({
   output: { dimension: "Current", description: "Peak current during the edge" },
   cautions: [{ code: "leakage_and_emc", message: LEAKAGE_MESSAGE }],
   source: [
-    { authors: "H. W. Ott", year: 2009, title: "Electromagnetic Compatibility Engineering", locator: "ch. 3, capacitive coupling" },
+    { authors: "H. W. Ott", year: 2009, title: "Electromagnetic Compatibility Engineering", locator: "ch. 2, capacitive coupling (chapter from memory)" },
     { authors: "IEC", title: "IEC 60990, Methods of measurement of touch current and protective conductor current" },
   ],
   compute: (x) => x.capacitance * x.voltageSlewRate,

@@ -1,11 +1,12 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { NON_NEGATIVE, POSITIVE } from "../core/spec.js";
-import { ellipticD } from "../math/elliptic.js";
 import { loopKernel } from "./loop-series.js";
 import { IMPLANT_CAUTION, TURNS } from "./shared.js";
 
 const CURRENT = { dimension: "Current", description: "Current in the conductor", example: 10 } as const;
+/** Scratch for loopKernel's [f, E, mc D]: no allocation per call. */
+const KERNEL = /* @__PURE__ */ new Float64Array(3);
 const GRIFFITHS = { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed." } as const;
 
 /**
@@ -127,7 +128,10 @@ export const loopField = /* @__PURE__ */ defineFormula({
     const m = 4 * (a / beta) * (rho / beta);
     const q = alpha / beta;
     const mc = q * q; // from the geometry: 1 - m would lose digits next to the wire
-    const { f, e } = loopKernel(m, mc);
+    loopKernel(m, mc, KERNEL);
+    const f = KERNEL[0]!;
+    const e = KERNEL[1]!;
+    const mcD = KERNEL[2]!;
     // mu0 I a^2 / (pi alpha^2 beta), factored so nothing overflows or underflows early.
     const s = a / alpha;
     const scale = ((MU0 * x.current) / Math.PI) * s * (s / beta);
@@ -135,7 +139,7 @@ export const loopField = /* @__PURE__ */ defineFormula({
     // equal form 2 mc D + 2 (a - rho) f / a (E - 2 f = 2 mc D): its terms do not cancel there,
     // while a E - 2 rho f loses digits as E and 2 rho f / a both tend to 1. Far outside,
     // where m is small, the first form is the one without cancellation.
-    const axial = rho <= a || m > 0.5 ? 2 * mc * ellipticD(m, mc) + 2 * (((a - rho) * f) / a) : e - 2 * ((rho * f) / a);
+    const axial = rho <= a || m > 0.5 ? 2 * mcD + 2 * (((a - rho) * f) / a) : e - 2 * ((rho * f) / a);
     return [scale * 2 * ((z * f) / a), scale * axial];
   },
 });

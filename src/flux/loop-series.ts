@@ -1,4 +1,4 @@
-import { ellipticD, ellipticE } from "../math/elliptic.js";
+import { carlsonRD, carlsonRF } from "../math/elliptic.js";
 
 /**
  * The loop-field kernel f(m) = E(m)/2 - (1 - m) D(m), with D = (K - E)/m, and E(m).
@@ -28,14 +28,27 @@ const F_COEFFS: Float64Array = /* @__PURE__ */ (() => {
   return c;
 })();
 
-/** f(m) = E/2 - mc D and E(m), given m and its complement mc (from geometry). */
-export function loopKernel(m: number, mc: number): { f: number; e: number } {
+/**
+ * Writes [f, E, mc D] for parameter m and its complement mc (taken from the geometry)
+ * into `out`. E and D share Carlson's R_D(0, mc, 1): E = R_F - m R_D / 3, D = R_D / 3
+ * (DLMF 19.25.1), so one R_F and one R_D serve both.
+ */
+export function loopKernel(m: number, mc: number, out: Float64Array): void {
+  const rf = carlsonRF(0, mc, 1);
+  const rd = carlsonRD(0, mc, 1);
+  const e = rf - (m * rd) / 3;
   if (m < SERIES_LIMIT) {
     // Horner from the top; c_0 = 0 so f = m * (c_1 + m (c_2 + ...)).
     let s = F_COEFFS[TERMS]!;
     for (let n = TERMS - 1; n >= 1; n--) s = s * m + F_COEFFS[n]!;
-    return { f: s * m, e: ellipticE(m, mc) };
+    const f = s * m;
+    out[0] = f;
+    out[1] = e;
+    out[2] = e / 2 - f; // mc D = E/2 - f: f is small here, so no digits are lost
+    return;
   }
-  const e = ellipticE(m, mc);
-  return { f: e / 2 - mc * ellipticD(m, mc), e };
+  const mcD = (mc * rd) / 3;
+  out[0] = e / 2 - mcD;
+  out[1] = e;
+  out[2] = mcD;
 }

@@ -116,8 +116,7 @@ export function solveRequest(request: SolveRequest): SolveResult {
     }
     range = [readQuantity(formula.id, "range", spec.dimension, opts.range[0]), readQuantity(formula.id, "range", spec.dimension, opts.range[1])];
   }
-  return solveSI(formula, request.solveFor, target, si, { ...opts, range });
-}
+  return solveSI(formula, request.solveFor, target, si, { ...opts, ...(range ? { range } : { range: undefined }) } as SolveOptions);
 }
 
 function solveSI(formula: AnyFormula, name: string, target: unknown, others: Record<string, unknown>, options: SolveOptions): SolveResult {

@@ -114,7 +114,7 @@ describe("closedSurfaceFlux", () => {
     fc.assert(
       fc.property(fc.double({ min: -0.3, max: 0.3, noNaN: true }), fc.double({ min: -0.3, max: 0.3, noNaN: true }), (sx, sz) => {
         const shifted = new Float64Array(mesh.vertices);
-        for (let i = 0; i < shifted.length; i += 3) { shifted[i] += sx; shifted[i + 2] += sz; }
+        for (let i = 0; i < shifted.length; i += 3) { shifted[i]! += sx; shifted[i + 2]! += sz; }
         const { flux, absoluteFlux } = closedSurfaceFlux({ vertices: shifted, triangles: mesh.triangles }, dipole);
         expect(Math.abs(flux)).toBeLessThan(1e-4 * absoluteFlux);
       }),

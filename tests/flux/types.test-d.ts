@@ -19,7 +19,7 @@ export const bPeak: FluxDensity = transformerPeakFluxDensity({ voltage: quantity
 export const L2: Inductance = inductanceFromFactor({ inductanceFactor: quantity(250, "nH"), turns: 20 });
 export const sol = solveMagneticCircuit({ branches: [{ from: 0, to: 1, reluctance: 1e6 as never, mmf: I }] });
 
-// @ts-expect-error an angle in degrees must come through quantity(), not as a plain number... radians are an Angle
+// @ts-expect-error an angle is an Angle (write quantity(30, "deg")), not a plain number
 magneticFlux({ fluxDensity: B, area: A, angle: 30 });
 // @ts-expect-error a length is not an area
 magneticFlux({ fluxDensity: B, area: l });

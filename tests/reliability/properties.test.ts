@@ -20,6 +20,9 @@ import {
   components, domainsHold, evLocal, exps, failingRelations, type Inputs, isChoice, relDiff, specsOf, withExamples,
 } from "./harness.js";
 
+// A fixed seed keeps runs reproducible; set FC_SEED to explore other cases.
+fc.configureGlobal({ seed: Number(process.env.FC_SEED ?? 20261201) });
+
 const RUNS = 25;
 const list = withExamples();
 const registered = new Set(list.map((e) => e.f));
@@ -106,7 +109,7 @@ function similitudeHolds(f: AnyFormula, x: Inputs, s: number, a: number, d: numb
   const v1 = value(f, similitudeScaled(f, x, s, a, d));
   if (!v0 || !v1) return undefined;
   const m = similitudeFactor(f.definition.output.dimension as DimensionName, s, a, d);
-  return closeAll(v1, v0.map((c) => c * m), 1e-9);
+  return closeAll(v1, v0.map((c) => c * m), scalingTolerance(f, x, v0));
 }
 
 const GEO: Partial<Record<DimensionName, number>> = { Length: 1, Area: 2, Volume: 3 };
@@ -134,13 +137,39 @@ function geometricPower(f: AnyFormula, x: Inputs): number | undefined | "rejecte
   const k = Math.log(v2[i]! / v0[i]!) / Math.log(2);
   if (!Number.isFinite(k)) return undefined;
   const q = Math.round(k * 6) / 6;
-  if (Math.abs(k - q) > 1e-6) return undefined;
-  if (!closeAll(v3, v0.map((c) => c * 3 ** q), 1e-9)) return undefined;
+  if (Math.abs(k - q) > Math.max(1e-6, scalingTolerance(f, x, v0))) return undefined;
+  const tol = scalingTolerance(f, x, v0);
+  if (!closeAll(v3, v0.map((c) => c * 3 ** q), tol)) return undefined;
   for (const s of [5, 0.3]) {
     const v = value(f, geometricScaled(f, x, s));
-    if (v && !closeAll(v, v0.map((c) => c * s ** q), 1e-9)) return undefined;
+    if (v && !closeAll(v, v0.map((c) => c * s ** q), tol)) return undefined;
   }
   return q;
+}
+
+/**
+ * Scaled inputs are rounded by an ulp or so; an ill-conditioned result (a
+ * square root of a near-zero difference, a sine near pi) amplifies that by its
+ * condition number, which the tolerance allows for.
+ */
+function scalingTolerance(f: AnyFormula, x: Inputs, base: readonly number[]): number {
+  return Math.max(1e-9, 4e-15 * conditionNumber(f, x, base));
+}
+
+/** Sum over inputs of |d ln f / d ln x| (largest over components), by finite differences. */
+function conditionNumber(f: AnyFormula, x: Inputs, base: readonly number[]): number {
+  const h = 1e-7;
+  let total = 0;
+  for (const [name, spec] of specsOf(f)) {
+    if (isChoice(spec) || spec.domain?.integer) continue;
+    const v = x[name];
+    const bump = (k: number): Inputs => ({ ...x, [name]: Array.isArray(v) ? v.map((c: number) => c * k) : (v as number) * k });
+    const r = value(f, bump(1 + h)) ?? value(f, bump(1 - h));
+    if (!r) return Infinity;
+    const scale = Math.max(...base.map(Math.abs));
+    total += Math.max(...base.map((c, i) => Math.abs(r[i]! - c) / (h * Math.max(Math.abs(c), 1e-9 * scale))));
+  }
+  return total;
 }
 
 /** The same inputs with each quantity written in a prefixed or other unit of its dimension. */
@@ -200,7 +229,11 @@ describe("registry-wide invariants", () => {
             const a = value(f, x);
             const b = value(f, inOtherUnits(f, x, pick));
             expect(b === undefined).toBe(a === undefined);
-            if (a && b) expect(closeAll(a, b, 1e-12), `${JSON.stringify(inOtherUnits(f, x, pick))}: ${a} vs ${b}`).toBe(true);
+            if (!a || !b) return;
+            // Unit conversion rounds each input by an ulp or two; an ill-conditioned result
+            // (sin near pi) amplifies that by its condition number, which is allowed for.
+            const tol = Math.max(1e-12, 1e-15 * conditionNumber(f, x, a));
+            expect(closeAll(a, b, tol), `${JSON.stringify(inOtherUnits(f, x, pick))}: ${a} vs ${b}, tolerance ${tol}`).toBe(true);
           }),
           { numRuns: RUNS },
         );

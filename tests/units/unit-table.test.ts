@@ -84,23 +84,23 @@ describe("typed unit table against the private mathjs instance", () => {
 
 describe("trade units mathjs lacks or defines with an outdated value", () => {
   const D = Decimal.clone({ precision: 40 });
-  // 1 Oe = 1000/(4 pi) A/m: NIST SP 811 (2008), Appendix B.8 ("oersted (Oe) ... (1000/4 pi) A/m").
+  // 1 Oe = (1000/4 pi) A/m, the CGS-Gaussian definition as NIST SP 811 (2008) App. B lists it (from memory).
   const OERSTED = D.div(1000, D.acos(-1).times(4)).toNumber();
   const m_u = codata2022.atomicMassConstant.value;
 
   const CASES: readonly (readonly [text: string, dimension: DimensionName, si: number, source: string])[] = [
-    ["1 eV", "Energy", 1.602176634e-19, "SI Brochure 9th ed. (2019) Table 8: 1 eV = 1.602 176 634e-19 J exactly"],
+    ["1 eV", "Energy", 1.602176634e-19, "SI Brochure 9th ed. (2019), table of non-SI units accepted (table number from memory): 1 eV = 1.602 176 634e-19 J exactly"],
     ["1 keV", "Energy", 1.602176634e-16, "SI prefix on the exact electron volt"],
-    ["1 electronvolt", "Energy", 1.602176634e-19, "SI Brochure 9th ed. Table 8"],
-    ["1 gauss", "FluxDensity", 1e-4, "NIST SP 811 Appendix B.8: 1 G = 1e-4 T"],
-    ["1 G", "FluxDensity", 1e-4, "NIST SP 811 Appendix B.8: 1 G = 1e-4 T"],
-    ["1 mG", "FluxDensity", 1e-7, "NIST SP 811 B.8 with the SI milli prefix"],
-    ["1 kilogauss", "FluxDensity", 0.1, "NIST SP 811 B.8 with the SI kilo prefix"],
-    ["1 maxwell", "MagneticFlux", 1e-8, "NIST SP 811 Appendix B.8: 1 Mx = 1e-8 Wb"],
-    ["1 Mx", "MagneticFlux", 1e-8, "NIST SP 811 Appendix B.8: 1 Mx = 1e-8 Wb"],
-    ["1 oersted", "MagneticFieldStrength", OERSTED, "NIST SP 811 B.8: 1 Oe = (1000/4 pi) A/m, decimal.js at 40 digits"],
-    ["1 Oe", "MagneticFieldStrength", OERSTED, "NIST SP 811 B.8: 1 Oe = (1000/4 pi) A/m, decimal.js at 40 digits"],
-    ["1 kOe", "MagneticFieldStrength", OERSTED * 1000, "NIST SP 811 B.8 with the SI kilo prefix"],
+    ["1 electronvolt", "Energy", 1.602176634e-19, "SI Brochure 9th ed. (2019), non-SI units accepted (from memory)"],
+    ["1 gauss", "FluxDensity", 1e-4, "NIST SP 811 (2008) App. B, locator from memory: 1 G = 1e-4 T"],
+    ["1 G", "FluxDensity", 1e-4, "NIST SP 811 (2008) App. B, locator from memory: 1 G = 1e-4 T"],
+    ["1 mG", "FluxDensity", 1e-7, "NIST SP 811 (2008) App. B (from memory) with the SI milli prefix"],
+    ["1 kilogauss", "FluxDensity", 0.1, "NIST SP 811 (2008) App. B (from memory) with the SI kilo prefix"],
+    ["1 maxwell", "MagneticFlux", 1e-8, "NIST SP 811 (2008) App. B, locator from memory: 1 Mx = 1e-8 Wb"],
+    ["1 Mx", "MagneticFlux", 1e-8, "NIST SP 811 (2008) App. B, locator from memory: 1 Mx = 1e-8 Wb"],
+    ["1 oersted", "MagneticFieldStrength", OERSTED, "NIST SP 811 (2008) App. B (from memory): 1 Oe = (1000/4 pi) A/m, decimal.js at 40 digits"],
+    ["1 Oe", "MagneticFieldStrength", OERSTED, "NIST SP 811 (2008) App. B (from memory): 1 Oe = (1000/4 pi) A/m, decimal.js at 40 digits"],
+    ["1 kOe", "MagneticFieldStrength", OERSTED * 1000, "NIST SP 811 (2008) App. B (from memory) with the SI kilo prefix"],
     ["1 dalton", "Mass", m_u, "CODATA 2022 atomic mass constant (1 Da = m_u)"],
     ["1 Da", "Mass", m_u, "CODATA 2022 atomic mass constant (1 Da = m_u)"],
     ["1 u", "Mass", m_u, "CODATA 2022 unified atomic mass unit"],
@@ -118,9 +118,9 @@ describe("trade units mathjs lacks or defines with an outdated value", () => {
   it("typed symbols eV, G, mG, Mx, Oe, Da, u and At carry the same definitions", () => {
     expect(quantity(1, "eV")).toBe(codata2022.electronVolt.value);
     expect(quantity(1, "G")).toBe(1e-4);
-    expectClose(quantity(1, "mG"), { expected: 1e-7, tolerance: 1e-15, source: "NIST SP 811 B.8" });
+    expectClose(quantity(1, "mG"), { expected: 1e-7, tolerance: 1e-15, source: "NIST SP 811 (2008) App. B (from memory)" });
     expect(quantity(1, "Mx")).toBe(1e-8);
-    expectClose(quantity(1, "Oe"), { expected: OERSTED, tolerance: 1e-15, source: "NIST SP 811 B.8, decimal.js" });
+    expectClose(quantity(1, "Oe"), { expected: OERSTED, tolerance: 1e-15, source: "NIST SP 811 (2008) App. B (from memory), decimal.js" });
     expect(quantity(1, "Da")).toBe(m_u);
     expect(quantity(1, "u")).toBe(m_u);
     expect(quantity(1, "At")).toBe(1);
