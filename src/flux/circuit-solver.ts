@@ -46,7 +46,7 @@ function bad(input: string, detail: string, value?: unknown): FormulaError {
  * branch from a node to itself, a reluctance not finite and > 0, an MMF not finite, or
  * nodes not connected to node 0.
  *
- * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 2
+ * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004)
  * (magnetic circuits); nodal analysis as for resistive networks.
  *
  * @example

@@ -5,7 +5,7 @@ import { ELV_AC_RMS, TURNS } from "./shared.js";
 const SQRT2_PI = Math.SQRT2 * Math.PI; // 4.4429, the "4.44" of the transformer equation
 
 const TRANSFORMER_SOURCE = [
-  { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed.", locator: "ch. 1, Faraday's law: E = 4.44 B_ac f A_c N (sine wave)" },
+  { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed.", locator: "Faraday's law, E = 4.44 B_ac f A_c N for a sine wave (chapter not checked; from memory)" },
   { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "sec. 7.2.1, Faraday's law" },
 ] as const;
 
@@ -56,7 +56,7 @@ export const magneticFlux = /* @__PURE__ */ defineFormula({
  * Validity: sinusoidal flux; all flux links every turn (leakage neglected).
  * For square-wave drive the factor is 4 instead of 4.44.
  *
- * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 1.
+ * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004) (from memory).
  *
  * @example
  * transformerEmf({ frequency: quantity(50, "Hz"), turns: 100, area: quantity(10, "cm^2"), peakFluxDensity: quantity(1.2, "T") }); // ≈ 26.7 V
@@ -96,7 +96,7 @@ export const transformerEmf = /* @__PURE__ */ defineFormula({
  * Optional saturationFluxDensity (T): when given (> 0) a warning is raised if B
  * exceeds it. 0 (the default) means "not given".
  *
- * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 1.
+ * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004) (from memory).
  *
  * @example
  * transformerPeakFluxDensity({ voltage: quantity(230, "V"), frequency: quantity(50, "Hz"), turns: 800, area: quantity(10, "cm^2") }); // ≈ 1.29 T

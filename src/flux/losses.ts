@@ -43,7 +43,7 @@ export const skinDepth = /* @__PURE__ */ defineFormula({
   ],
   source: [
     { authors: "J. D. Jackson", year: 1999, title: "Classical Electrodynamics, 3rd ed.", locator: "sec. 5.18, eq. (5.165) (from memory)" },
-    { authors: "IEC", year: 1925, title: "IEC 60028: International standard of resistance for copper", locator: "annealed copper 58.0 MS/m at 20 degC" },
+    { authors: "IEC", year: 1925, title: "IEC 60028: International standard of resistance for copper", locator: "annealed copper 58.0 MS/m at 20 degC (year from memory)" },
   ],
   // Product of positive factors then one sqrt: no cancellation; written as 1/sqrt to keep one rounding.
   compute: (x) => 1 / Math.sqrt(Math.PI * x.frequency * MU0 * x.relativePermeability * x.conductivity),
@@ -62,7 +62,7 @@ export const skinDepth = /* @__PURE__ */ defineFormula({
  *
  * Reference: C. P. Steinmetz, "On the law of hysteresis", Trans. AIEE 9 (1892) 3-64
  * (B^1.6 law); the frequency-exponent form as used in C. W. T. McLyman, Transformer
- * and Inductor Design Handbook, 3rd ed. (2004), ch. 2 (core loss).
+ * and Inductor Design Handbook, 3rd ed. (2004), core loss (from memory).
  *
  * @example
  * coreLoss({ coefficient: 1.5, frequencyExponent: 1.4, fluxExponent: 2.5, frequency: quantity(100, "kHz"), peakFluxDensity: quantity(0.1, "T"), volume: quantity(5, "cm^3") }); // ≈ 0.24 W
@@ -106,7 +106,7 @@ export const coreLoss = /* @__PURE__ */ defineFormula({
   ],
   source: [
     { authors: "C. P. Steinmetz", year: 1892, title: "On the law of hysteresis, Trans. AIEE 9, 3-64" },
-    { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed.", locator: "ch. 2, core loss" },
+    { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed.", locator: "core loss (chapter not checked; from memory)" },
   ],
   // Powers through exp/log would lose nothing here; Math.pow is exact to an ulp for positive bases.
   compute: (x) => x.coefficient * Math.pow(x.frequency, x.frequencyExponent) * Math.pow(x.peakFluxDensity, x.fluxExponent) * x.volume,

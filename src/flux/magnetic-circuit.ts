@@ -8,7 +8,7 @@ const IEC_60205 = {
   authors: "IEC",
   year: 2016,
   title: "IEC 60205: Calculation of the effective parameters of magnetic piece parts",
-  locator: "effective length l_e, area A_e; A_L = L / N^2",
+  locator: "effective length l_e, area A_e; A_L = L / N^2 (edition year from memory)",
 } as const;
 
 const PATH_LENGTH = { dimension: "Length", description: "Effective magnetic path length of the core, l_e (excluding the gap)", domain: POSITIVE, example: 0.1 } as const;
@@ -35,7 +35,7 @@ const FRINGING_WARNING = {
  *
  * Validity: uniform flux over the cross-section, linear (unsaturated) material.
  *
- * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 2 (magnetic circuits).
+ * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), magnetic circuits (from memory).
  *
  * @example
  * reluctance({ length: quantity(1, "mm"), area: quantity(1, "cm^2") }); // ≈ 7.96e6 1/H (an air gap)
@@ -52,7 +52,7 @@ export const reluctance = /* @__PURE__ */ defineFormula({
     relativePermeability: RELATIVE_PERMEABILITY,
   },
   output: { dimension: "Reluctance", description: "Reluctance (ampere-turns per weber)" },
-  source: { ...MCLYMAN, locator: "ch. 2, magnetic circuits (reluctance)" },
+  source: { ...MCLYMAN, locator: "magnetic circuits, reluctance (chapter not checked; from memory)" },
   compute: (x) => x.length / (MU0 * x.relativePermeability * x.area),
 });
 
@@ -93,7 +93,7 @@ export const gappedCoreInductance = /* @__PURE__ */ defineFormula({
   },
   output: { dimension: "Inductance", description: "Inductance of the winding" },
   validity: [{ ...FRINGING_WARNING, when: (x) => x.fringingFactor === 1 && fringingMatters(x.gapLength, x.area) }],
-  source: { ...MCLYMAN, locator: "ch. 8, inductance of a gapped core, L = 0.4 pi N^2 A_c 1e-8 / (l_g + MPL / mu_m) in cgs units" },
+  source: { ...MCLYMAN, locator: "ch. 8 (from memory), inductance of a gapped core, L = 0.4 pi N^2 A_c 1e-8 / (l_g + MPL / mu_m) in cgs units" },
   // l / mur goes smoothly to 0 as mur grows: no 1 - 1/mur style cancellation.
   compute: (x) => (x.fringingFactor * MU0 * x.turns * x.turns * x.area) / (x.gapLength + x.pathLength / x.relativePermeability),
 });
@@ -145,7 +145,7 @@ export const coreFluxDensity = /* @__PURE__ */ defineFormula({
     },
     FRINGING_WARNING,
   ],
-  source: { ...MCLYMAN, locator: "ch. 8, B = 0.4 pi N I 1e-4 / (l_g + MPL / mu_m) in cgs units" },
+  source: { ...MCLYMAN, locator: "ch. 8 (from memory), B = 0.4 pi N I 1e-4 / (l_g + MPL / mu_m) in cgs units" },
   compute: (x) => (MU0 * x.turns * x.current) / (x.gapLength + x.pathLength / x.relativePermeability),
 });
 
@@ -187,7 +187,7 @@ export const gapFringingFactor = /* @__PURE__ */ defineFormula({
         "the empirical correction is rough here; check by measurement or a field solution (common practice)",
     },
   ],
-  source: { ...MCLYMAN, locator: "ch. 8, Fringing Flux: F = 1 + (l_g / sqrt(A_c)) ln(2G / l_g)" },
+  source: { ...MCLYMAN, locator: "ch. 8 (from memory), Fringing Flux: F = 1 + (l_g / sqrt(A_c)) ln(2G / l_g)" },
   // ln(2G/g) is well conditioned for g < 2G (the relation); the product is a small positive addend.
   compute: (x) => 1 + (x.gapLength / Math.sqrt(x.area)) * Math.log((2 * x.windowLength) / x.gapLength),
 });
@@ -217,7 +217,7 @@ export const inductanceFactor = /* @__PURE__ */ defineFormula({
   },
   output: { dimension: "Inductance", description: "Inductance factor A_L (H per turn squared)" },
   validity: [FRINGING_WARNING],
-  source: [IEC_60205, { ...MCLYMAN, locator: "ch. 8" }],
+  source: [IEC_60205, { ...MCLYMAN, locator: "ch. 8 (from memory)" }],
   compute: (x) => (MU0 * x.area) / (x.gapLength + x.pathLength / x.relativePermeability),
 });
 
@@ -244,6 +244,6 @@ export const inductanceFromFactor = /* @__PURE__ */ defineFormula({
     turns: TURNS,
   },
   output: { dimension: "Inductance", description: "Inductance of the winding" },
-  source: [IEC_60205, { ...MCLYMAN, locator: "ch. 8" }],
+  source: [IEC_60205, { ...MCLYMAN, locator: "ch. 8 (from memory)" }],
   compute: (x) => x.inductanceFactor * x.turns * x.turns,
 });

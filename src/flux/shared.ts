@@ -1,4 +1,4 @@
-import { AT_LEAST_ONE, COUNT, POSITIVE } from "../core/spec.js";
+import { AT_LEAST_ONE, COUNT } from "../core/spec.js";
 
 /** Relative permeability of a core material (1 for air and vacuum). */
 export const RELATIVE_PERMEABILITY = {
@@ -26,7 +26,6 @@ export const MEDIUM_PERMITTIVITY = {
   example: 1,
 } as const;
 
-export { POSITIVE };
 
 /**
  * Flux density above which implanted medical devices (pacemakers, defibrillators)

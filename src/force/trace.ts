@@ -143,30 +143,58 @@ export function traceParticle(options: TraceOptions): ParticleTrace {
   const t = new Float64Array(samples);
   const pos = new Float64Array(3 * samples);
   const vel = new Float64Array(3 * samples);
-  let x = x0, y = y0, z = z0;
-  let ux = g0 * v0[0], uy = g0 * v0[1], uz = g0 * v0[2];
-  let gamma = g0;
   t[0] = t0;
-  pos[0] = x; pos[1] = y; pos[2] = z;
+  pos[0] = x0; pos[1] = y0; pos[2] = z0;
   vel[0] = v0[0]; vel[1] = v0[1]; vel[2] = v0[2];
 
+  // State carried between chunks: x, y, z, ux, uy, uz (u = gamma v), gamma, next sample index, steps to it.
+  const st = new Float64Array([x0, y0, z0, g0 * v0[0], g0 * v0[1], g0 * v0[2], g0, 1, every]);
+  const uniform = new Float64Array([...(eField.uniform ?? [0, 0, 0]), ...(bField.uniform ?? [0, 0, 0])]);
+  const kick = (q / m) * 0.5 * dt;
+  const eFn = eField.fn, bFn = bField.fn;
+  // Short chunks: the kernel is then optimized as a whole from full type feedback instead of
+  // by on-stack replacement in the middle of one long loop (which deoptimizes at its exit).
+  // Plain arguments, no options object: nothing whose shape can invalidate the optimized code.
+  for (let n0 = 0; n0 < steps; n0 += CHUNK) {
+    borisSteps(st, uniform, eFn, bFn, t0, dt, kick, every, t, pos, vel, n0, Math.min(steps, n0 + CHUNK));
+  }
+  return { t, positions: pos, velocities: vel, samples };
+}
+
+/** Steps per kernel call. */
+const CHUNK = 256;
+
+/**
+ * Boris steps n0+1 .. n1 (drift-kick-rotate-kick-drift), state in `st`, uniform E and B in
+ * `uniform`; kick = (q/m)(dt/2); samples every `every` steps into t, pos, vel.
+ */
+function borisSteps(
+  st: Float64Array, uniform: Float64Array, eFn: FieldFunction | undefined, bFn: FieldFunction | undefined,
+  t0: number, dt: number, kick: number, every: number, t: Float64Array, pos: Float64Array, vel: Float64Array,
+  n0: number, n1: number,
+): void {
   const h = 0.5 * dt;
-  const kick = (q / m) * h; // (q/m)(dt/2)
-  const E = new Float64Array(eField.uniform ?? [0, 0, 0]);
-  const B = new Float64Array(bField.uniform ?? [0, 0, 0]);
-  let k = 1;
-  for (let n = 1; n <= steps; n++) {
+  let x = st[0]!, y = st[1]!, z = st[2]!, ux = st[3]!, uy = st[4]!, uz = st[5]!, gamma = st[6]!;
+  let k = st[7]!, untilSample = st[8]!;
+  // Field components as plain locals: uniform fields never leave registers.
+  let ex = uniform[0]!, ey = uniform[1]!, ez = uniform[2]!, bx = uniform[3]!, by = uniform[4]!, bz = uniform[5]!;
+  for (let n = n0 + 1; n <= n1; n++) {
     // Half drift to the mid-step position.
     let ig = 1 / gamma;
     x += h * ux * ig; y += h * uy * ig; z += h * uz * ig;
-    const tm = t0 + (n - 0.5) * dt;
-    if (eField.fn) read(eField.fn, "electricField", x, y, z, tm, E);
-    if (bField.fn) read(bField.fn, "fluxDensity", x, y, z, tm, B);
+    if (eFn !== undefined) {
+      read(eFn, "electricField", x, y, z, t0 + (n - 0.5) * dt, uniform, 0);
+      ex = uniform[0]!; ey = uniform[1]!; ez = uniform[2]!;
+    }
+    if (bFn !== undefined) {
+      read(bFn, "fluxDensity", x, y, z, t0 + (n - 0.5) * dt, uniform, 3);
+      bx = uniform[3]!; by = uniform[4]!; bz = uniform[5]!;
+    }
     // Half electric kick.
-    const umx = ux + kick * E[0]!, umy = uy + kick * E[1]!, umz = uz + kick * E[2]!;
+    const umx = ux + kick * ex, umy = uy + kick * ey, umz = uz + kick * ez;
     // Magnetic rotation of u- by angle 2 atan(|t|); preserves |u| exactly in exact arithmetic.
     const f = kick / Math.sqrt(1 + (umx * umx + umy * umy + umz * umz) * INV_C2);
-    const tx = f * B[0]!, ty = f * B[1]!, tz = f * B[2]!;
+    const tx = f * bx, ty = f * by, tz = f * bz;
     const s = 2 / (1 + tx * tx + ty * ty + tz * tz);
     const upx = umx + (umy * tz - umz * ty);
     const upy = umy + (umz * tx - umx * tz);
@@ -175,15 +203,14 @@ export function traceParticle(options: TraceOptions): ParticleTrace {
     const ry = umy + s * (upz * tx - upx * tz);
     const rz = umz + s * (upx * ty - upy * tx);
     // Second half electric kick.
-    ux = rx + kick * E[0]!; uy = ry + kick * E[1]!; uz = rz + kick * E[2]!;
+    ux = rx + kick * ex; uy = ry + kick * ey; uz = rz + kick * ez;
     gamma = Math.sqrt(1 + (ux * ux + uy * uy + uz * uz) * INV_C2);
+    if (!(gamma < 1e300)) throw overflow(n); // also catches NaN
     // Half drift with the new velocity.
     ig = 1 / gamma;
     x += h * ux * ig; y += h * uy * ig; z += h * uz * ig;
-    if (!(x - x === 0 && y - y === 0 && z - z === 0 && gamma - gamma === 0)) {
-      throw new FormulaError("out_of_range", { formula: ID, detail: `the motion overflowed at step ${n}` });
-    }
-    if (n % every === 0) {
+    if (--untilSample === 0) {
+      untilSample = every;
       t[k] = t0 + n * dt;
       const j = 3 * k;
       pos[j] = x; pos[j + 1] = y; pos[j + 2] = z;
@@ -191,7 +218,9 @@ export function traceParticle(options: TraceOptions): ParticleTrace {
       k++;
     }
   }
-  return { t, positions: pos, velocities: vel, samples };
+  // Positions overflow only for absurd time spans; non-finite values propagate, so checking once per chunk suffices.
+  if (!(x - x === 0 && y - y === 0 && z - z === 0)) throw overflow(n1);
+  st[0] = x; st[1] = y; st[2] = z; st[3] = ux; st[4] = uy; st[5] = uz; st[6] = gamma; st[7] = k; st[8] = untilSample;
 }
 
 interface ResolvedField {
@@ -205,11 +234,15 @@ function fieldOf(input: string, f: unknown): ResolvedField {
   return { uniform: vector3(input, f) };
 }
 
-function read(fn: FieldFunction, input: string, x: number, y: number, z: number, t: number, out: Float64Array): void {
+function overflow(n: number): FormulaError {
+  return new FormulaError("out_of_range", { formula: ID, detail: `the motion overflowed by step ${n}` });
+}
+
+function read(fn: FieldFunction, input: string, x: number, y: number, z: number, t: number, out: Float64Array, at: number): void {
   const r = fn(x, y, z, t);
   const a = r?.[0], b = r?.[1], c = r?.[2];
   if (r?.length !== 3 || typeof a !== "number" || typeof b !== "number" || typeof c !== "number" || a - a !== 0 || b - b !== 0 || c - c !== 0) {
     throw bad(input, undefined, `the field function must return three finite numbers; at (${x}, ${y}, ${z}) m, t = ${t} s it did not`);
   }
-  out[0] = a; out[1] = b; out[2] = c;
+  out[at] = a; out[at + 1] = b; out[at + 2] = c;
 }

@@ -40,9 +40,9 @@ describe("magneticFlux", () => {
 
 describe("transformerEmf", () => {
   it("uses the 4.44 constant of the transformer equation for sine waves", () => {
-    // McLyman, Transformer and Inductor Design Handbook 3rd ed., ch. 1: E = 4.44 B f A N (sine wave); 4.44 rounded.
+    // McLyman, Transformer and Inductor Design Handbook 3rd ed.: E = 4.44 B f A N for a sine wave (from memory); 4.44 is rounded.
     expectClose(transformerEmf({ frequency: Hz(1), turns: 1, area: m2(1), peakFluxDensity: T(1) }), {
-      input: "unit inputs", expected: 4.44, tolerance: 1e-3, source: "McLyman (2004) ch. 1, K_f = 4.44",
+      input: "unit inputs", expected: 4.44, tolerance: 1e-3, source: "McLyman (2004), K_f = 4.44 for a sine wave (from memory)",
     });
     expectClose(transformerEmf({ frequency: Hz(1), turns: 1, area: m2(1), peakFluxDensity: T(1) }), {
       input: "unit inputs", expected: PI.times(new D(2).sqrt()).toNumber(), tolerance: 2e-16, source: "decimal.js oracle of sqrt(2) pi",

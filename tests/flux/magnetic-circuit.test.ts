@@ -100,10 +100,10 @@ describe("coreFluxDensity", () => {
 });
 
 describe("gapFringingFactor", () => {
-  it("is 1 + (g / sqrt(A)) ln(2G / g) (McLyman ch. 8; decimal.js oracle)", () => {
+  it("is 1 + (g / sqrt(A)) ln(2G / g) (McLyman 2004, fringing flux; decimal.js oracle)", () => {
     const expected = new D(1).plus(new D("5e-4").div(new D("1e-4").sqrt()).times(D.ln(new D("0.04").div("5e-4")))).toNumber();
     expectClose(gapFringingFactor({ gapLength: mm(0.5), area: m2(1e-4), windowLength: mm(20) }), {
-      input: "g 0.5 mm, A 1 cm^2, G 20 mm", expected, tolerance: 1e-15, source: "McLyman (2004) ch. 8 fringing flux factor, decimal.js oracle",
+      input: "g 0.5 mm, A 1 cm^2, G 20 mm", expected, tolerance: 1e-15, source: "McLyman (2004) fringing flux factor (equation as given in the handbook, from memory), decimal.js oracle",
     });
   });
 

@@ -225,6 +225,15 @@ function breakers(t: Target, rule: string): Inputs[] {
   for (const n of named) {
     for (const k of [0.5, 2, 0.1, 10, 1e-3, 1e3, 1e-6, 1e6, 1e9, 0.99, 1.01, -1, 0]) out.push({ ...ex, [n]: times(ex[n], k) });
   }
+  // Rules about coincidence (a point on a wire): one input copied to another, with a third set to zero.
+  for (const a of named) {
+    for (const b of named) {
+      if (a === b) continue;
+      const copied = { ...ex, [b]: ex[a] };
+      out.push(copied);
+      for (const z of named) if (z !== a && z !== b) out.push({ ...copied, [z]: times(ex[z], 0) });
+    }
+  }
   return out;
 }
 

@@ -156,18 +156,25 @@ function scalingTolerance(f: AnyFormula, x: Inputs, base: readonly number[]): nu
   return Math.max(1e-9, 4e-15 * conditionNumber(f, x, base));
 }
 
-/** Sum over inputs of |d ln f / d ln x| (largest over components), by finite differences. */
+/**
+ * Sum over inputs of |d ln f / d ln x| (largest over components), by finite
+ * differences at three step sizes (the largest estimate wins, so a derivative
+ * that blows up near a singular point is not missed).
+ */
 function conditionNumber(f: AnyFormula, x: Inputs, base: readonly number[]): number {
-  const h = 1e-7;
+  const scale = Math.max(...base.map(Math.abs));
   let total = 0;
   for (const [name, spec] of specsOf(f)) {
     if (isChoice(spec) || spec.domain?.integer) continue;
     const v = x[name];
     const bump = (k: number): Inputs => ({ ...x, [name]: Array.isArray(v) ? v.map((c: number) => c * k) : (v as number) * k });
-    const r = value(f, bump(1 + h)) ?? value(f, bump(1 - h));
-    if (!r) return Infinity;
-    const scale = Math.max(...base.map(Math.abs));
-    total += Math.max(...base.map((c, i) => Math.abs(r[i]! - c) / (h * Math.max(Math.abs(c), 1e-9 * scale))));
+    let worst = 0;
+    for (const h of [1e-6, 1e-9, 1e-12]) {
+      const r = value(f, bump(1 + h)) ?? value(f, bump(1 - h));
+      if (!r) return Infinity;
+      worst = Math.max(worst, ...base.map((c, i) => Math.abs(r[i]! - c) / (h * Math.max(Math.abs(c), 1e-9 * scale))));
+    }
+    total += worst;
   }
   return total;
 }
