@@ -4,8 +4,9 @@
  * with plain node (`npm run bench`); loaders such as tsx wrap imports in
  * getters and distort the timing of small functions.
  *
- * Optional modules written elsewhere (bench/neumann.ts, bench/biot-savart.ts)
- * are included when present: the build resolves "bench-optional" to them.
+ * Modules written elsewhere (bench/neumann.ts, bench/biot-savart.ts, any other
+ * bench/*.ts exporting run()) are included when present: the build resolves
+ * "bench-optional" to them.
  */
 import { cpus, loadavg } from "node:os";
 import optional from "bench-optional";

@@ -175,7 +175,8 @@ function borisSteps(
 ): void {
   const h = 0.5 * dt;
   let x = st[0]!, y = st[1]!, z = st[2]!, ux = st[3]!, uy = st[4]!, uz = st[5]!, gamma = st[6]!;
-  let k = st[7]!, untilSample = st[8]!;
+  // Small integers kept as int32 so the sample stores are plain indexed stores.
+  let k = st[7]! | 0, untilSample = st[8]! | 0;
   // Field components as plain locals: uniform fields never leave registers.
   let ex = uniform[0]!, ey = uniform[1]!, ez = uniform[2]!, bx = uniform[3]!, by = uniform[4]!, bz = uniform[5]!;
   for (let n = n0 + 1; n <= n1; n++) {

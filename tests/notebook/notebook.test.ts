@@ -1,0 +1,79 @@
+import { describe, expect, it } from "vitest";
+import * as mathjs from "mathjs";
+import { FormulaError } from "../../src/core/errors.js";
+import { evaluate } from "../../src/core/evaluate.js";
+import { listFormulas } from "../../src/core/registry.js";
+import type { InputSpec, Note } from "../../src/core/spec.js";
+import { DISABLED_IN_EXPRESSIONS, createNotebookMath } from "../../src/notebook/index.js";
+
+describe("the notebook mathjs instance", () => {
+  const seen: { id: string; warnings: readonly Note[]; cautions: readonly Note[] }[] = [];
+  const math = createNotebookMath({ onNotes: (id, n) => seen.push({ id, ...n }) });
+
+  it("evaluates formulas on units, positionally and with an object of named inputs", () => {
+    // eps0 A / d with eps0 = 8.8541878188e-12 F/m (CODATA 2022), A = 1 cm^2, d = 0.1 mm.
+    const c = math.evaluate("parallelPlateCapacitance(1 cm^2, 0.1 mm)");
+    expect(c.toNumber("F")).toBeCloseTo(8.8541878188e-12, 22);
+    expect(c.toString()).toBe("8.8541878188 pF");
+    const named = math.evaluate("parallelPlateCapacitance({gap: 100 um, area: 100 mm^2, relativePermittivity: 4.4})");
+    expect(named.toNumber("pF")).toBeCloseTo(8.8541878188 * 4.4, 10);
+    expect(math.evaluate("to(parallelPlateCapacitance(1 cm^2, 0.1 mm) * 5 V, nC)").toNumber("nC")).toBeCloseTo(0.044270939094, 10);
+  });
+
+  it("gives every registry formula's example the same value as evaluate", () => {
+    for (const f of listFormulas()) {
+      const specs = f.definition.inputs as Record<string, InputSpec>;
+      const ex: Record<string, unknown> = {};
+      for (const [n, s] of Object.entries(specs)) if (s.example !== undefined) ex[n] = s.example;
+      const expected = evaluate(f.id, ex).value;
+      const got = math.evaluate(`${f.id}(x)`, { x: ex });
+      const unit = evaluate(f.id, ex).unit;
+      const toSI = (v: any): number => (typeof v === "number" ? v : v.toSI().value);
+      if (typeof expected === "number") expect(toSI(got), f.id).toBeCloseTo(expected, 12 - Math.floor(Math.log10(Math.abs(expected) || 1)));
+      else expect((got.toArray() as unknown[]).map(toSI), `${f.id} [${unit}]`).toEqual(expected);
+    }
+  });
+
+  it("makes warnings reachable: a notes() function in expressions and an onNotes callback", () => {
+    const n = math.evaluate('notes("parallelPlateCapacitance", 1 cm^2, 2 mm)');
+    expect(n.warnings[0].code).toBe("fringing");
+    seen.length = 0;
+    math.evaluate("parallelPlateCapacitance(1 cm^2, 2 mm)");
+    expect(seen[0]!.id).toBe("parallelPlateCapacitance");
+    expect(seen[0]!.warnings[0]!.code).toBe("fringing");
+  });
+
+  it("throws FormulaError for a unit of the wrong dimension or an input out of its domain", () => {
+    expect(() => math.evaluate("parallelPlateCapacitance(1 kg, 0.1 mm)")).toThrow(FormulaError);
+    try {
+      math.evaluate("parallelPlateCapacitance(1 cm^2, -0.1 mm)");
+      expect.fail("expected out_of_domain");
+    } catch (e) {
+      expect((e as FormulaError).code).toBe("out_of_domain");
+      expect((e as FormulaError).input).toBe("gap");
+    }
+    expect(() => math.evaluate("parallelPlateCapacitance(1 cm^2, 0.1 mm, 4, 5)")).toThrow(/invalid argument/);
+  });
+
+  it("disables import, createUnit, reviver, evaluate, parse, compile, simplify, derivative and resolve inside expressions", () => {
+    const calls: Record<string, string> = {
+      import: "import({x: 1}, {})", createUnit: 'createUnit("furlong", "201.168 m")', reviver: 'reviver("a", 1)',
+      evaluate: 'evaluate("1 + 1")', parse: 'parse("1 + 1")', compile: 'compile("1 + 1")', simplify: 'simplify("x + x")',
+      derivative: 'derivative("x^2", "x")', resolve: 'resolve("x", {})',
+    };
+    expect(Object.keys(calls).sort()).toEqual([...DISABLED_IN_EXPRESSIONS].sort());
+    for (const [name, expr] of Object.entries(calls)) {
+      expect(() => math.evaluate(expr), name).toThrow(`Function ${name} is disabled`);
+    }
+    // Ordinary unit arithmetic still works, including the trade units added to this instance.
+    expect(math.evaluate("to(10 G, mT)").toNumber("mT")).toBeCloseTo(1, 12);
+  });
+
+  it("is a new instance: the global mathjs keeps its functions and gains no formulas", () => {
+    expect(mathjs.evaluate("1 + 1")).toBe(2);
+    expect(() => mathjs.evaluate("parallelPlateCapacitance(1 cm^2, 0.1 mm)")).toThrow();
+    const other = createNotebookMath();
+    expect(other).not.toBe(math);
+    expect(other.evaluate("parallelPlateCapacitance(1 cm^2, 0.1 mm)").toNumber("pF")).toBeCloseTo(8.8541878188, 10);
+  });
+});
