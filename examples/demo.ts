@@ -107,4 +107,4 @@ notes(hold.warnings, hold.cautions);
 const bank = capacitorEnergy.details({ capacitance: quantity(470, "uF"), voltage: quantity(400, "V") });
 show("the PFC bulk capacitor, 470 uF at 400 V", bank.value, "J");
 notes(bank.warnings, bank.cautions);
-console.log(`\n  hold-up capacitor in nF, via inUnit: ${inUnit(quantity(2200, "uF"), "nF").toPrecision(6)}`);
+console.log(`\n  hold-up capacitor in nF, via inUnit: ${inUnit(quantity(2200, "uF"), "nF").toFixed(1)} nF`);
