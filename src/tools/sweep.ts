@@ -1,7 +1,7 @@
 import { FormulaError } from "../core/errors.js";
 import type { AnyFormula, Formula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
-import type { ComputeInputs, InputSpecs, OutputSpec, QuantityInput } from "../core/spec.js";
+import type { InputSpecs, OutputSpec, QuantityInput } from "../core/spec.js";
 import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
 import type { QuantityValue } from "./tolerance.js";
 
@@ -126,52 +126,19 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
   const dom0 = (specs[name0] as QuantityInput).domain;
   const dom1 = name1 !== undefined ? (specs[name1] as QuantityInput).domain : undefined;
   const v0 = axes[0]!.values;
-  const v1 = name1 !== undefined ? axes[1]!.values : undefined;
-  let failed = 0;
-  for (let i = 0; i < n0; i++) {
-    const a = v0[i]!;
-    const okA = inDomain(a, dom0);
-    x[name0] = a;
-    for (let j = 0; j < n1; j++) {
-      const k = i * n1 + j;
-      let ok = okA;
-      if (v1 !== undefined) {
-        const c = v1[j]!;
-        x[name1!] = c;
-        ok = ok && inDomain(c, dom1);
-      }
-      for (let r = 0; ok && r < relations.length; r++) ok = relations[r]!.holds(x as ComputeInputs<InputSpecs>);
-      let out: unknown;
-      if (ok) {
-        try {
-          out = compute(x);
-        } catch (e) {
-          if (!(e instanceof FormulaError)) throw e;
-          ok = false;
-        }
-      }
-      if (ok && componentArrays === undefined) {
-        const r = out as number;
-        if (typeof r === "number" && r - r === 0) {
-          values[k] = r;
-          computed[k] = 1;
-          continue;
-        }
-      } else if (ok && componentArrays !== undefined && Array.isArray(out)) {
-        let finite = true;
-        for (let c = 0; c < componentArrays.length; c++) finite = finite && out[c] - out[c] === 0;
-        if (finite) {
-          for (let c = 0; c < componentArrays.length; c++) componentArrays[c]![k] = out[c];
-          values[k] = out[0];
-          computed[k] = 1;
-          continue;
-        }
-      }
-      values[k] = NaN;
-      if (componentArrays) for (const arr of componentArrays) arr[k] = NaN;
-      failed++;
-    }
-  }
+  const v1 = name1 !== undefined ? axes[1]!.values : new Float64Array(1);
+  // Domain checks once per axis value, not per point.
+  const okMask = (vs: Float64Array, d: typeof dom0): Uint8Array => {
+    const m = new Uint8Array(vs.length);
+    for (let i = 0; i < vs.length; i++) m[i] = inDomain(vs[i]!, d) ? 1 : 0;
+    return m;
+  };
+  const ok0 = okMask(v0, dom0);
+  const ok1 = name1 !== undefined ? okMask(v1, dom1) : Uint8Array.of(1);
+  const holds = relations.map((r) => r.holds) as ((x: unknown) => boolean)[];
+  const failed = componentArrays === undefined
+    ? scalarLoop(x, compute, holds, name0, name1, v0, v1, ok0, ok1, values, computed)
+    : componentLoop(x, compute, holds, name0, name1, v0, v1, ok0, ok1, values, computed, componentArrays);
   return {
     formula: id,
     axes,
@@ -185,6 +152,87 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
     computed,
     notComputed: failed,
   };
+}
+
+// The hot loops: one reused inputs object, no allocation per point. Kept as separate
+// functions so the engine optimises each on its own (the scalar one has no array checks).
+function scalarLoop(
+  x: Record<string, unknown>, compute: (x: unknown) => unknown, holds: ((x: unknown) => boolean)[],
+  name0: string, name1: string | undefined, v0: Float64Array, v1: Float64Array, ok0: Uint8Array, ok1: Uint8Array,
+  values: Float64Array, computed: Uint8Array,
+): number {
+  const n0 = v0.length;
+  const n1 = name1 === undefined ? 1 : v1.length;
+  const nRel = holds.length;
+  let failed = 0;
+  for (let i = 0; i < n0; i++) {
+    x[name0] = v0[i]!;
+    for (let j = 0; j < n1; j++) {
+      const k = i * n1 + j;
+      if (name1 !== undefined) x[name1] = v1[j]!;
+      let ok = (ok0[i]! & ok1[j]!) === 1;
+      for (let r = 0; ok && r < nRel; r++) ok = holds[r]!(x);
+      if (ok) {
+        let out: unknown;
+        try {
+          out = compute(x);
+        } catch (e) {
+          if (!(e instanceof FormulaError)) throw e;
+          out = NaN;
+        }
+        if (typeof out === "number" && out - out === 0) {
+          values[k] = out;
+          computed[k] = 1;
+          continue;
+        }
+      }
+      values[k] = NaN;
+      failed++;
+    }
+  }
+  return failed;
+}
+
+function componentLoop(
+  x: Record<string, unknown>, compute: (x: unknown) => unknown, holds: ((x: unknown) => boolean)[],
+  name0: string, name1: string | undefined, v0: Float64Array, v1: Float64Array, ok0: Uint8Array, ok1: Uint8Array,
+  values: Float64Array, computed: Uint8Array, componentArrays: Float64Array[],
+): number {
+  const n0 = v0.length;
+  const n1 = name1 === undefined ? 1 : v1.length;
+  const nc = componentArrays.length;
+  let failed = 0;
+  for (let i = 0; i < n0; i++) {
+    x[name0] = v0[i]!;
+    for (let j = 0; j < n1; j++) {
+      const k = i * n1 + j;
+      if (name1 !== undefined) x[name1] = v1[j]!;
+      let ok = (ok0[i]! & ok1[j]!) === 1;
+      for (let r = 0; ok && r < holds.length; r++) ok = holds[r]!(x);
+      if (ok) {
+        let out: unknown;
+        try {
+          out = compute(x);
+        } catch (e) {
+          if (!(e instanceof FormulaError)) throw e;
+        }
+        if (Array.isArray(out) && out.length >= nc) {
+          let finite = true;
+          for (let c = 0; c < nc; c++) finite = finite && out[c] - out[c] === 0;
+          if (finite) {
+            for (let c = 0; c < nc; c++) componentArrays[c]![k] = out[c];
+            values[k] = out[0];
+            computed[k] = 1;
+            continue;
+          }
+        }
+      }
+      values[k] = NaN;
+      for (let c = 0; c < nc; c++) componentArrays[c]![k] = NaN;
+      failed++;
+    }
+  }
+  return failed;
 }
 
 function axisValues(id: string, name: string, spec: QuantityInput, a: SweepAxisSpec): SweepAxis {
