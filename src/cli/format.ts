@@ -19,7 +19,11 @@ export function engineering(v: number, precision = 4): string {
  * well, engineering notation otherwise. `precision` significant digits.
  */
 export function formatQuantity(v: number, unit: string, precision = 4): string {
-  if (!unit) return engineering(v, precision);
+  if (!unit) {
+    // Pure numbers (turns, ratios) read best plain in the usual range: "1000", "4.4".
+    const m = Math.abs(v);
+    return m >= 1e-3 && m < 1e6 ? String(Number(v.toPrecision(precision))) : engineering(v, precision);
+  }
   const mag = Math.abs(v);
   if (PREFIXABLE.has(unit) && mag >= 1e-24 && mag < 1e27) {
     try {

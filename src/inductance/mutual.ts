@@ -149,7 +149,14 @@ export const coaxialCoilsMutualInductance = /* @__PURE__ */ defineFormula({
     },
   ],
   source: [MAXWELL, { authors: "F. W. Grover", year: 1946, title: "Inductance Calculations: Working Formulas and Tables", locator: "coaxial single-layer coils" }],
-  compute: (x) => x.turns1 * x.turns2 * coaxialSheetsMutual(x.radius1, x.length1, x.radius2, x.length2, x.distance),
+  // M is linear in the lengths: integrate at unit size (a power-of-two scale, so the
+  // rescaling is exact) and scale back; the quadrature's internal products then
+  // neither underflow nor overflow for tiny or huge coils.
+  compute: (x) => {
+    const s = 2 ** Math.round(Math.log2(Math.max(x.radius1, x.radius2, x.length1, x.length2, Math.abs(x.distance))));
+    const m = coaxialSheetsMutual(x.radius1 / s, x.length1 / s, x.radius2 / s, x.length2 / s, x.distance / s);
+    return x.turns1 * x.turns2 * m * s;
+  },
 });
 
 /**

@@ -14,9 +14,7 @@ import {
 } from "./harness.js";
 
 /** Formulas with a known defect found here, id -> the bug (their test is `it.fails`). */
-const KNOWN_BUGS: Readonly<Record<string, string>> = {
-  coaxialCoilsMutualInductance: "all lengths x 1e-150 silently gives 0 instead of about 6e-156 H (underflow inside the compute)",
-};
+const KNOWN_BUGS: Readonly<Record<string, string>> = {};
 
 const EXTREME = [1e-150, 1e150];
 const MODERATE = [1e-30, 1e30];
