@@ -6,6 +6,7 @@
  *   POST /evaluate            { formula, inputs }                  -> { id, value, unit, warnings, cautions }
  *   POST /solve               { formula, solveFor, target, inputs } -> { value, unit, exact?, outputAtValue, ... }
  *   POST /tolerance           { formula, inputs, options }         -> worst case, RSS, Monte Carlo, sensitivities
+ *   POST /sweep               { formula, vary, fixed }             -> axes and output values (null = not computed)
  *
  * Inputs are numbers in SI or unit strings ("0.2 mm"). Errors are
  * { error: { code, message, input } }: 400 unreadable JSON, 404 unknown route or
@@ -17,13 +18,15 @@
 import { createServer, type IncomingMessage, type Server, type ServerResponse } from "node:http";
 import { pathToFileURL } from "node:url";
 import { evaluate, FormulaError } from "../src/index.js";
-import { catalogEntry, formulaCatalog, inputSchema, solveRequest, toleranceRequest } from "../src/tools/index.js";
+import { catalogEntry, formulaCatalog, inputSchema, solveRequest, sweepRequest, toleranceRequest } from "../src/tools/index.js";
 
 export interface HandlerOptions {
   /** Largest request body in bytes (default 64 kB); larger bodies get 413 and are not read further. */
   readonly maxBody?: number;
   /** Largest Monte Carlo sample count a request may ask for (default 100000). */
   readonly maxSamples?: number;
+  /** Largest number of grid points a sweep request may ask for (default 10000). */
+  readonly maxPoints?: number;
 }
 
 type Json = Record<string, unknown> | readonly unknown[];
@@ -92,12 +95,13 @@ function object(body: unknown): Record<string, unknown> {
   return body as Record<string, unknown>;
 }
 
-const POST_ROUTES = new Set(["/evaluate", "/solve", "/tolerance"]);
+const POST_ROUTES = new Set(["/evaluate", "/solve", "/tolerance", "/sweep"]);
 
 /** The request handler; pass it to http.createServer or call it from another server. */
 export function createHandler(options: HandlerOptions = {}): (req: IncomingMessage, res: ServerResponse) => void {
   const limit = options.maxBody ?? 64 * 1024;
   const maxSamples = options.maxSamples ?? 100_000;
+  const maxPoints = options.maxPoints ?? 10_000;
 
   async function handle(req: IncomingMessage, res: ServerResponse): Promise<void> {
     const url = new URL(req.url ?? "/", "http://localhost");
@@ -142,6 +146,24 @@ export function createHandler(options: HandlerOptions = {}): (req: IncomingMessa
           throw new HttpError(422, "invalid_argument", `samples must be a number up to ${maxSamples}`, "samples");
         }
         send(res, 200, toleranceRequest({ formula: body.formula as string, inputs: body.inputs as Record<string, unknown>, options: { ...opts, samples } }) as unknown as Json);
+        return;
+      }
+      case "/sweep": {
+        // Count the points before computing anything.
+        const vary = body.vary;
+        if (typeof vary === "object" && vary !== null) {
+          let total = 1;
+          for (const a of Object.values(vary)) total *= typeof a === "object" && a !== null && typeof a.points === "number" ? a.points : 1;
+          if (!(total <= maxPoints)) throw new HttpError(422, "invalid_argument", `at most ${maxPoints} points per sweep`, "points");
+        }
+        const r = sweepRequest(body as never);
+        send(res, 200, {
+          formula: r.formula,
+          axes: r.axes.map((a) => ({ name: a.name, unit: a.unit, scale: a.scale, values: [...a.values] })),
+          // NaN is not JSON: points not computed are null.
+          output: { name: r.output.name, unit: r.output.unit, values: Array.from(r.output.values, (v, k) => (r.computed[k] ? v : null)) },
+          notComputed: r.notComputed,
+        });
         return;
       }
     }

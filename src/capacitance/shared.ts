@@ -64,6 +64,12 @@ export function mulDiv(a: number, b: number, c: number, d: number): number {
   const abc = ab * c;
   const r = abc / d;
   if (ab >= MIN_NORMAL && abc >= MIN_NORMAL && r >= MIN_NORMAL && r <= Number.MAX_VALUE) return r;
+  // The rare path lives in its own function so this one stays small enough for
+  // the engine to inline into callers (measured: several times faster typed calls).
+  return mulDivScaled(a, b, c, d);
+}
+
+function mulDivScaled(a: number, b: number, c: number, d: number): number {
   if (a === 0 || b === 0 || c === 0) return 0;
   const [ma, ea] = split(a);
   const [mb, eb] = split(b);

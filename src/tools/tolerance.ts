@@ -259,6 +259,19 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
       visit();
     }
   }
+  if (method === "corners" && varied.length > 0) {
+    // The corners the slopes at nominal point to should be the extremes when the output is monotonic.
+    const slopeCorner = (up: boolean): number => {
+      varied.forEach((v, i) => (x[v.name] = endValue(v, derivatives[i]! >= 0 === up)));
+      return b.scalar();
+    };
+    const hi = slopeCorner(true);
+    const lo = slopeCorner(false);
+    const tol = 1e-9 * Math.max(Math.abs(max), Math.abs(min));
+    if ((hi === hi && max - hi > tol) || (lo === lo && lo - min > tol)) {
+      remarks.push("the extreme corners are not those the slopes at nominal point to: the output is not monotonic over the tolerance box");
+    }
+  }
   if (rejected > 0) remarks.push(`${rejected} of ${evaluated} corners break a relation or the domain and were not computed`);
   // Monotonic along each input (others at nominal)? If not, the extremes may lie inside the band.
   for (const v of varied) {

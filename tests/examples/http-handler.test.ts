@@ -43,6 +43,16 @@ describe("the HTTP handler example over loopback", () => {
     expect(t.json.monteCarlo.samples).toBe(1000);
   });
 
+  it("sweeps, with null for points not computed, and refuses oversized grids", async () => {
+    const r = await call("POST", "/sweep", { formula: "parallelPlateCapacitance", vary: { relativePermittivity: { from: 0, to: 4, points: 5 } }, fixed: { area: "1 cm^2", gap: "1 mm" } });
+    expect(r.status).toBe(200);
+    expect(r.json.output.values[0]).toBeNull();
+    expect(r.json.output.values[4]).toBeCloseTo(8.8541878188e-12 * 4 * 1e-4 / 1e-3, 25);
+    expect(r.json.notComputed).toBe(1);
+    const big = await call("POST", "/sweep", { formula: "parallelPlateCapacitance", vary: { gap: { from: 1e-4, to: 1e-3, points: 1e6 } }, fixed: { area: 1e-4 } });
+    expect(big.status).toBe(422);
+  });
+
   it("lists formulas and serves one with its input schema", async () => {
     const all = await call("GET", "/formulas");
     expect(all.status).toBe(200);

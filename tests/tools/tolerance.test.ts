@@ -123,6 +123,23 @@ describe("tolerance's treatment of non-monotonic outputs", () => {
   });
 });
 
+describe("tolerance when slopes at nominal mislead", () => {
+  const product = defineFormula({
+    id: "testProduct", title: "test", category: "test", description: "test", equation: "y = a b",
+    inputs: { a: { dimension: "Dimensionless", description: "a", example: 1 }, b: { dimension: "Dimensionless", description: "b", example: 1 } },
+    output: { dimension: "Dimensionless", description: "y" },
+    source: { authors: "test", title: "test" },
+    compute: (v) => v.a * v.b,
+  });
+  it("takes the extremes from all corners (a b over [-1, 3]^2 is -3 to 9) and says the slopes pointed elsewhere", () => {
+    const t = tolerance(product, { a: { nominal: 1, plusMinus: 2 }, b: { nominal: 1, plusMinus: 2 } }, { samples: 2000 });
+    expect(t.worstCase.min).toBe(-3);
+    expect(t.worstCase.max).toBe(9);
+    expect(t.remarks.join(" ")).toMatch(/not those the slopes at nominal point to/);
+    expect(t.monteCarlo!.min).toBeGreaterThanOrEqual(-3);
+  });
+});
+
 describe("the seeded generator", () => {
   it("gives uniform numbers in [0, 1) with mean 1/2 and standard normals with sd 1", () => {
     const rng = createRandom(42);
