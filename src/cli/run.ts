@@ -101,7 +101,7 @@ function inputValue(spec: InputSpec | undefined, text: string): unknown {
 function inputsFrom(id: string, pairs: readonly [string, string][]): Record<string, unknown> {
   const specs = getFormula(id).definition.inputs as Readonly<Record<string, InputSpec>>;
   const out: Record<string, unknown> = {};
-  for (const [k, v] of pairs) out[k] = inputValue(specs[k], v);
+  for (const [k, v] of pairs) out[k] = inputValue(Object.hasOwn(specs, k) ? specs[k] : undefined, v);
   return out;
 }
 
@@ -295,7 +295,7 @@ function toleranceCommand(p: Parsed, io: CliIO, json: boolean): number {
   const specs = getFormula(id).definition.inputs as Readonly<Record<string, InputSpec>>;
   const inputs: Record<string, unknown> = {};
   for (const [k, v] of p.pairs) {
-    const s = specs[k];
+    const s = Object.hasOwn(specs, k) ? specs[k] : undefined;
     inputs[k] = s && !("choices" in s) && !s.vector ? parseToleranceText(v) : inputValue(s, v);
   }
   const samples = intFlag(p, "samples");

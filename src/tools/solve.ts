@@ -110,7 +110,7 @@ export function solveRequest(request: SolveRequest): SolveResult {
   const opts = request.options ?? {};
   let range: [number, number] | undefined;
   if (opts.range !== undefined) {
-    const spec = specsOf(formula)[request.solveFor];
+    const spec = Object.hasOwn(specsOf(formula), request.solveFor) ? specsOf(formula)[request.solveFor] : undefined;
     if (!Array.isArray(opts.range) || opts.range.length !== 2 || !isScalarQuantity(spec)) {
       throw new FormulaError("invalid_argument", { formula: formula.id, input: "range", detail: "range is [low, high] in the solved input's unit" });
     }
@@ -123,7 +123,7 @@ function solveSI(formula: AnyFormula, name: string, target: unknown, others: Rec
   const id = formula.id;
   const def = formula.definition;
   const specs = specsOf(formula);
-  const spec = specs[name];
+  const spec = Object.hasOwn(specs, name) ? specs[name] : undefined;
   if (spec === undefined) throw new FormulaError("unknown_input", { formula: id, input: name });
   if (def.output.components) {
     throw new FormulaError("invalid_argument", { formula: id, detail: "solve needs a scalar output; this formula returns components" });

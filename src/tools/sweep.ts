@@ -93,7 +93,7 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
   }
   const fixedRaw = spec.fixed ?? {};
   const axes: SweepAxis[] = names.map((name) => {
-    const s = specs[name];
+    const s = Object.hasOwn(specs, name) ? specs[name] : undefined;
     if (s === undefined) throw new FormulaError("unknown_input", { formula: id, input: name });
     if (!isScalarQuantity(s)) throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "only scalar quantity inputs can be swept" });
     if (typeof fixedRaw === "object" && fixedRaw !== null && Object.hasOwn(fixedRaw, name)) {

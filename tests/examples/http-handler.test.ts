@@ -86,6 +86,8 @@ describe("the HTTP handler example over loopback", () => {
       JSON.stringify({ formula: "parallelPlateCapacitance", inputs: { area: { nominal: 1 }, gap: null } }),
       '{"formula": "parallelPlateCapacitance", "inputs": {"__proto__": {"area": 1}, "constructor": "x"}}',
       '{"formula": "parallelPlateCapacitance", "solveFor": {}, "target": [1]}',
+      '{"formula": "parallelPlateCapacitance", "vary": {"gap": {"from": "x", "to": 1, "points": 2}}, "fixed": []}',
+      '{"formula": "parallelPlateCapacitance", "vary": {"gap": null}, "inputs": {"area": 1}}',
     ];
     for (const body of odd) {
       const r = await call("POST", "/evaluate", undefined, body);
@@ -94,9 +96,11 @@ describe("the HTTP handler example over loopback", () => {
       const s = await call("POST", "/solve", undefined, body);
       expect(s.status, body).toBeGreaterThanOrEqual(400);
       expect(s.status, body).toBeLessThan(500);
-      const t = await call("POST", "/tolerance", undefined, body);
-      expect(t.status, body).toBeGreaterThanOrEqual(400);
-      expect(t.status, body).toBeLessThan(500);
+      for (const route of ["/tolerance", "/sweep"]) {
+        const t = await call("POST", route, undefined, body);
+        expect(t.status, `${route} ${body}`).toBeGreaterThanOrEqual(400);
+        expect(t.status, `${route} ${body}`).toBeLessThan(500);
+      }
     }
     const tol = await call("POST", "/tolerance", { formula: "parallelPlateCapacitance", inputs: { area: 1e-4, gap: 1e-4 }, options: { samples: 1e9 } });
     expect(tol.status).toBe(422);
