@@ -136,7 +136,10 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
   const ok0 = okMask(v0, dom0);
   const ok1 = name1 !== undefined ? okMask(v1, dom1) : Uint8Array.of(1);
   const holds = relations.map((r) => r.holds) as ((x: unknown) => boolean)[];
-  const failed = componentArrays === undefined
+  const specialised = componentArrays === undefined ? specialisedLoop(Object.keys(x), name0, name1) : undefined;
+  const failed = specialised !== undefined
+    ? specialised(x, compute, holds, v0, v1, ok0, ok1, values, computed, FormulaError)
+    : componentArrays === undefined
     ? scalarLoop(x, compute, holds, name0, name1, v0, v1, ok0, ok1, values, computed)
     : componentLoop(x, compute, holds, name0, name1, v0, v1, ok0, ok1, values, computed, componentArrays);
   return {
@@ -152,6 +155,79 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
     computed,
     notComputed: failed,
   };
+}
+
+type Loop = (
+  x: Record<string, unknown>, compute: (x: unknown) => unknown, holds: ((x: unknown) => boolean)[],
+  v0: Float64Array, v1: Float64Array, ok0: Uint8Array, ok1: Uint8Array, values: Float64Array, computed: Uint8Array,
+  errorClass: typeof FormulaError,
+) => number;
+const loops = new Map<string, Loop | null>();
+
+/**
+ * The scalar loop generated for one formula's input names, so the inputs object
+ * is an object literal of fixed shape and the swept inputs are stored by
+ * literal property names, and the point loop itself has no try/catch (a
+ * FormulaError thrown by compute leaves the inner loop, is recorded for that
+ * point, and the loop resumes after it). Engines optimise that like
+ * hand-written code; stores through a variable key (`x[name] = v`) and a
+ * try/catch per point cost several times more (bench/sweep.ts). Undefined
+ * where `new Function` is not allowed (strict Content-Security-Policy);
+ * `scalarLoop` below is the general fallback.
+ */
+function specialisedLoop(names: readonly string[], name0: string, name1: string | undefined): Loop | undefined {
+  const key = `${names.join(",")}|${name0}|${name1 ?? ""}`;
+  const hit = loops.get(key);
+  if (hit !== undefined) return hit ?? undefined;
+  const ident = /^[A-Za-z_$][A-Za-z0-9_$]*$/;
+  let made: Loop | null = null;
+  if (names.every((n) => ident.test(n))) {
+    const lit = names.map((n) => `${n}: x.${n}`).join(", ");
+    const body = `
+      const o = { ${lit} };
+      const n0 = v0.length, n1 = ${name1 === undefined ? "1" : "v1.length"}, nRel = holds.length;
+      const pos = new Int32Array(2); // the point being computed, for resuming after a throw
+      let failed = 0;
+      function points(i0, j0) {
+        for (let i = i0; i < n0; i++) {
+          o.${name0} = v0[i];
+          for (let j = i === i0 ? j0 : 0; j < n1; j++) {
+            const k = i * n1 + j;
+            ${name1 === undefined ? "" : `o.${name1} = v1[j];`}
+            let ok = (ok0[i] & ok1[j]) === 1;
+            for (let r = 0; ok && r < nRel; r++) ok = holds[r](o);
+            if (ok) {
+              pos[0] = i; pos[1] = j;
+              const out = compute(o);
+              if (typeof out === "number" && out - out === 0) { values[k] = out; computed[k] = 1; continue; }
+            }
+            values[k] = NaN;
+            failed++;
+          }
+        }
+        return true;
+      }
+      let i0 = 0, j0 = 0;
+      for (;;) {
+        try {
+          if (points(i0, j0)) return failed;
+        } catch (e) {
+          if (!(e instanceof errorClass)) throw e;
+          const i = pos[0], j = pos[1];
+          values[i * n1 + j] = NaN;
+          failed++;
+          if (j + 1 < n1) { i0 = i; j0 = j + 1; } else { i0 = i + 1; j0 = 0; }
+        }
+      }`;
+    try {
+      // eslint-disable-next-line @typescript-eslint/no-implied-eval
+      made = new Function("x", "compute", "holds", "v0", "v1", "ok0", "ok1", "values", "computed", "errorClass", body) as Loop;
+    } catch {
+      made = null;
+    }
+  }
+  loops.set(key, made);
+  return made ?? undefined;
 }
 
 // The hot loops: one reused inputs object, no allocation per point. Kept as separate
@@ -253,14 +329,25 @@ function axisValues(id: string, name: string, spec: QuantityInput, a: SweepAxisS
     throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "a log sweep needs from and to of the same sign, not zero" });
   }
   const values = new Float64Array(points);
-  for (let i = 0; i < points; i++) {
-    const t = points === 1 ? 0 : i / (points - 1);
-    // Ends exact; log spacing by exp of interpolated logs (sign carried separately).
-    values[i] = i === 0 ? from : i === points - 1 ? to
-      : scale === "log" ? Math.sign(from) * Math.exp(Math.log(Math.abs(from)) * (1 - t) + Math.log(Math.abs(to)) * t)
-      : from + (to - from) * t;
-    if (spec.domain?.integer) values[i] = Math.round(values[i]!);
+  const last = points - 1;
+  // Branches hoisted out of the loops: this runs once per grid value.
+  if (scale === "log") {
+    // Log spacing by exp of interpolated logs (sign carried separately).
+    const sign = Math.sign(from);
+    const la = Math.log(Math.abs(from));
+    const lb = Math.log(Math.abs(to));
+    for (let i = 1; i < last; i++) {
+      const t = i / last;
+      values[i] = sign * Math.exp(la * (1 - t) + lb * t);
+    }
+  } else {
+    const span = to - from;
+    for (let i = 1; i < last; i++) values[i] = from + span * (i / last);
   }
+  // Ends exact.
+  values[0] = from;
+  if (last > 0) values[last] = to;
+  if (spec.domain?.integer) for (let i = 0; i < points; i++) values[i] = Math.round(values[i]!);
   return { name, unit: siUnit(spec.dimension), scale, values };
 }
 

@@ -1,0 +1,51 @@
+import { describe, expect, it } from "vitest";
+import { defineFormula, FormulaError, POSITIVE, sweep } from "../../src/index.js";
+
+// Test-only formula: compute throws a FormulaError on one band of inputs and
+// returns Infinity on another, the two ways a point can fail inside compute.
+const picky = defineFormula({
+  id: "testPicky", title: "t", category: "test", description: "fails on purpose", equation: "y = a b",
+  inputs: {
+    a: { dimension: "Length", description: "a", domain: POSITIVE, example: 1 },
+    b: { dimension: "Length", description: "b", domain: POSITIVE, example: 1 },
+  },
+  output: { dimension: "Area", description: "a b" },
+  source: { authors: "common practice", title: "test" },
+  compute: (x) => {
+    if (x.a > 3 && x.a < 5) throw new FormulaError("out_of_range", { formula: "testPicky" });
+    if (x.b > 8) return Infinity;
+    return x.a * x.b;
+  },
+});
+
+describe("a sweep over points where compute fails", () => {
+  it("marks exactly the failing points as not computed and computes every other point", () => {
+    const r = sweep(picky, { vary: { a: { from: 1, to: 10, points: 10 }, b: { from: 1, to: 10, points: 10 } } });
+    let expectedFailures = 0;
+    for (let i = 0; i < 10; i++) {
+      for (let j = 0; j < 10; j++) {
+        const a = i + 1;
+        const b = j + 1;
+        const k = i * 10 + j;
+        const fails = (a > 3 && a < 5) || b > 8;
+        if (fails) {
+          expectedFailures++;
+          expect(r.computed[k]).toBe(0);
+          expect(Number.isNaN(r.output.values[k])).toBe(true);
+        } else {
+          expect(r.computed[k]).toBe(1);
+          expect(r.output.values[k]).toBe(a * b);
+        }
+      }
+    }
+    expect(r.notComputed).toBe(expectedFailures);
+  });
+
+  it("resumes after a failure at the last point of a row and of the grid", () => {
+    const r = sweep(picky, { vary: { a: { from: 4, to: 4, points: 1 }, b: { from: 1, to: 2, points: 2 } } });
+    expect([...r.computed]).toEqual([0, 0]);
+    const one = sweep(picky, { vary: { a: { from: 1, to: 4, points: 4 } }, fixed: { b: 2 } });
+    expect([...one.computed]).toEqual([1, 1, 1, 0]);
+    expect(one.notComputed).toBe(1);
+  });
+});
