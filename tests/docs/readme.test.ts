@@ -14,3 +14,12 @@ describe("the README", () => {
     expect(readme).toContain("npm ci && npm test");
   });
 });
+
+describe("the README's quick start", () => {
+  it("states the coaxial example's capacitance (2 pi eps0 2.25 / ln(1.47/0.45) per metre, eps0 from CODATA 2022)", async () => {
+    const { coaxialCapacitance, inUnit, quantity } = await import("../../src/index.js");
+    const c = coaxialCapacitance({ innerRadius: quantity(0.45, "mm"), outerRadius: quantity(1.47, "mm"), length: quantity(1, "m"), relativePermittivity: 2.25 });
+    expect(readme).toContain('inUnit(c, "pF"); // ≈ 105.7');
+    expect(inUnit(c, "pF")).toBeCloseTo(105.7, 1);
+  });
+});
