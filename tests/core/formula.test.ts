@@ -1,6 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { defineFormula, evaluate, FormulaError, POSITIVE, type Length } from "../../src/index.js";
+import { codeOf } from "../helpers/errors.js";
 
 // A formula defined only for these tests: the core's behaviour, not physics.
 const ratio = defineFormula({
@@ -23,15 +24,6 @@ const ratio = defineFormula({
   compute: (x) => (x.factor * x.shorter) / x.longer * (x.mode === "doubled" ? 2 : 1),
 });
 
-function codeOf(fn: () => unknown): string | undefined {
-  try {
-    fn();
-  } catch (e) {
-    expect(e).toBeInstanceOf(FormulaError);
-    return (e as FormulaError).code;
-  }
-  return undefined;
-}
 
 describe("a defined formula", () => {
   const m = (v: number) => v as Length;

@@ -8,6 +8,7 @@ import {
 import { ELEMENTARY_CHARGE, MU0 as MU0_SI, SPEED_OF_LIGHT } from "../../src/constants/si.js";
 import { checkCases, expectClose, relativeError } from "../helpers/reference.js";
 import { D, d, E, MU0, PI } from "./oracle.js";
+import { codeOf } from "../helpers/errors.js";
 
 const A = (v: number) => v as Current;
 const m = (v: number) => v as Length;
@@ -20,15 +21,6 @@ const vec = (lim: number) => fc.tuple(finite(lim), finite(lim), finite(lim));
 // Speeds below c/2 per component keep |v| < c.
 const speedVec = vec(SPEED_OF_LIGHT / 2);
 
-function codeOf(fn: () => unknown): string | undefined {
-  try {
-    fn();
-  } catch (e) {
-    expect(e).toBeInstanceOf(FormulaError);
-    return (e as FormulaError).code;
-  }
-  return undefined;
-}
 
 describe("lorentzForce", () => {
   it("gives q v B on a proton crossing a 1 T field, as a decimal.js oracle of q(E + v x B)", () => {

@@ -7,6 +7,7 @@ import { electron, proton } from "../../src/constants/index.js";
 import { SPEED_OF_LIGHT } from "../../src/constants/si.js";
 import { expectClose, relativeError } from "../helpers/reference.js";
 import { C, D, E, ME } from "./oracle.js";
+import { errorOf } from "../helpers/errors.js";
 
 const c = SPEED_OF_LIGHT;
 const len = (v: readonly number[]) => v as unknown as Vec3<Length>;
@@ -31,14 +32,10 @@ function stepForTurn(omega: number, m: number): number {
   return (2 / omega) * Math.tan(Math.PI / m);
 }
 
+/** [code, input] of the FormulaError thrown. */
 function codeOf(fn: () => unknown): [string | undefined, string | undefined] {
-  try {
-    fn();
-  } catch (e) {
-    expect(e).toBeInstanceOf(FormulaError);
-    return [(e as FormulaError).code, (e as FormulaError).input];
-  }
-  return [undefined, undefined];
+  const e = errorOf(fn);
+  return [e?.code, e?.input];
 }
 
 describe("traceParticle in a uniform magnetic field", () => {

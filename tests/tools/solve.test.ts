@@ -9,19 +9,11 @@ import { solve, solveDetails, solveRequest } from "../../src/tools/solve.js";
 import { quantity } from "../../src/units/quantity.js";
 import type { Length } from "../../src/units/types.js";
 import { expectClose } from "../helpers/reference.js";
+import { codeOf } from "../helpers/errors.js";
 
 // eps0, CODATA 2022 recommended value (NIST), F/m.
 const EPS0_CODATA_2022 = 8.8541878188e-12;
 
-function codeOf(fn: () => unknown): string | undefined {
-  try {
-    fn();
-  } catch (e) {
-    if (e instanceof FormulaError) return e.code;
-    throw e;
-  }
-  return undefined;
-}
 
 describe("solve on the parallel-plate capacitor", () => {
   it("finds the gap that gives 100 pF on 1 cm^2 (gap = eps0 A / C)", () => {

@@ -1,0 +1,18 @@
+import { expect } from "vitest";
+import { FormulaError } from "../../src/core/errors.js";
+
+/** The FormulaError `fn` throws, or undefined if it returns; anything else thrown fails the test. */
+export function errorOf(fn: () => unknown): FormulaError | undefined {
+  try {
+    fn();
+  } catch (e) {
+    expect(e).toBeInstanceOf(FormulaError);
+    return e as FormulaError;
+  }
+  return undefined;
+}
+
+/** The code of the FormulaError `fn` throws, or undefined if it returns. */
+export function codeOf(fn: () => unknown): string | undefined {
+  return errorOf(fn)?.code;
+}
