@@ -1,3 +1,4 @@
+import { inDomain } from "./domain.js";
 import { FormulaError } from "./errors.js";
 import { buildFastPath } from "./fast-path.js";
 import type {
@@ -47,12 +48,6 @@ export function domainRule(d: Domain): string {
   return parts.join(" and ") || "finite";
 }
 
-function inDomain(v: number, d: Domain): boolean {
-  if (d.min !== undefined && (d.minExclusive ? !(v > d.min) : !(v >= d.min))) return false;
-  if (d.max !== undefined && (d.maxExclusive ? !(v < d.max) : !(v <= d.max))) return false;
-  if (d.integer && !Number.isInteger(v)) return false;
-  return true;
-}
 
 /**
  * Define a formula once; the typed function, registry metadata, `evaluate`,

@@ -1,8 +1,10 @@
 import { FormulaError } from "../core/errors.js";
 import type { AnyFormula } from "../core/formula.js";
 import type { ComputeInputs, Domain, InputSpec, InputSpecs, QuantityInput } from "../core/spec.js";
-import { DIMENSIONS, type DimensionName, type Exponents, nameExponents, sameExponents } from "../units/dimensions.js";
-import { parseQuantity } from "../units/parse.js";
+import { DIMENSIONS, type DimensionName } from "../units/dimensions.js";
+import { convertInputs, inDomain, readQuantity } from "../core/convert.js";
+
+export { convertInputs, inDomain, readQuantity };
 
 /** The input specs of a formula, as a plain record. */
 export function specsOf(formula: AnyFormula): Readonly<Record<string, InputSpec>> {
@@ -17,72 +19,6 @@ export function isScalarQuantity(spec: InputSpec | undefined): spec is QuantityI
 /** SI unit symbol of a dimension ("" for dimensionless). */
 export function siUnit(dimension: DimensionName): string {
   return DIMENSIONS[dimension].unit;
-}
-
-/**
- * Read one run-time value of the given dimension: a number (SI), a bare number
- * string (SI) or a unit string. FormulaError naming `input` otherwise.
- */
-export function readQuantity(formula: string, input: string, dimension: DimensionName, raw: unknown): number {
-  if (typeof raw === "number") {
-    if (raw - raw !== 0) throw new FormulaError("not_finite", { formula, input, value: raw });
-    return raw;
-  }
-  if (typeof raw !== "string") {
-    throw new FormulaError("wrong_type", { formula, input, value: raw, expected: "a number in SI units or a unit string" });
-  }
-  const q = parseQuantity(raw, input, formula);
-  if (!q.plain && !sameExponents(q.exps, DIMENSIONS[dimension].exps as Exponents)) {
-    throw new FormulaError("wrong_dimension", { formula, input, value: raw, expected: dimension, received: nameExponents(q.exps) });
-  }
-  if (q.si - q.si !== 0) throw new FormulaError("not_finite", { formula, input, value: raw });
-  return q.si;
-}
-
-/**
- * Convert the given run-time inputs (numbers in SI, unit strings, choice words,
- * 3-arrays) to SI without filling defaults or checking domains: unknown names,
- * types, units and dimensions only. `skip` names are left out (a solved input).
- */
-export function convertInputs(formula: AnyFormula, inputs: unknown, skip: readonly string[] = []): Record<string, unknown> {
-  const id = formula.id;
-  if (typeof inputs !== "object" || inputs === null || Array.isArray(inputs)) {
-    throw new FormulaError("wrong_type", { formula: id, input: "inputs", value: inputs, expected: "an object of named inputs" });
-  }
-  const specs = specsOf(formula);
-  for (const name of Object.keys(inputs)) {
-    if (!Object.hasOwn(specs, name)) throw new FormulaError("unknown_input", { formula: id, input: name });
-  }
-  const out: Record<string, unknown> = {};
-  for (const [name, spec] of Object.entries(specs)) {
-    if (skip.includes(name)) continue;
-    const raw = (inputs as Record<string, unknown>)[name];
-    if (raw === undefined) continue;
-    if ("choices" in spec) {
-      if (typeof raw !== "string") {
-        throw new FormulaError("wrong_type", { formula: id, input: name, value: raw, expected: `one of ${spec.choices.join(", ")}` });
-      }
-      out[name] = raw;
-    } else if (spec.vector) {
-      if (!Array.isArray(raw) || raw.length !== 3) {
-        throw new FormulaError("wrong_type", { formula: id, input: name, value: raw, expected: "a 3-array [x, y, z] of numbers or unit strings" });
-      }
-      out[name] = raw.map((c: unknown) => readQuantity(id, name, spec.dimension, c));
-    } else {
-      out[name] = readQuantity(id, name, spec.dimension, raw);
-    }
-  }
-  return out;
-}
-
-/** True when v lies in the domain (the integer rule is checked only when `integer`). */
-export function inDomain(v: number, d: Domain | undefined, checkInteger = true): boolean {
-  if (!(v - v === 0)) return false;
-  if (d === undefined) return true;
-  if (d.min !== undefined && (d.minExclusive ? !(v > d.min) : !(v >= d.min))) return false;
-  if (d.max !== undefined && (d.maxExclusive ? !(v < d.max) : !(v <= d.max))) return false;
-  if (checkInteger && d.integer && !Number.isInteger(v)) return false;
-  return true;
 }
 
 /**
