@@ -10,9 +10,8 @@ import { mkdirSync, writeFileSync } from "node:fs";
 import {
   capacitorEnergy, coaxialCapacitance, coreFluxDensity, coreLoss, evaluate, gappedCoreInductance,
   inUnit, parasiticCouplingCurrent, quantity, skinDepth, solveDetails, sweep, sweepToCsv,
-  sweepToVegaLite, tolerance, wireForce, type Note,
+  sweepToVegaLite, tolerance, wireForce, formatQuantity, type Note,
 } from "../src/index.js";
-import { formatQuantity } from "../src/cli/format.js";
 
 const show = (label: string, value: number, unit: string): void =>
   console.log(`  ${label.padEnd(38)} ${formatQuantity(value, unit)}`);
