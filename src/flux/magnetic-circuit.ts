@@ -23,8 +23,8 @@ const FRINGING_WARNING = {
   code: "fringing",
   when: (x: { gapLength: number; area: number }) => fringingMatters(x.gapLength, x.area),
   message: (x: { gapLength: number; area: number }) =>
-    `gap is ${((100 * x.gapLength) / Math.sqrt(x.area)).toPrecision(2)} % of sqrt(area): fringing flux around the gap is neglected here ` +
-    "and raises the result by roughly 5 % or more above 1 %; apply gapFringingFactor",
+    `the gap is ${((100 * x.gapLength) / Math.sqrt(x.area)).toPrecision(2)} % of the core's width (sqrt of its area); fringing flux ` +
+    "around a gap longer than about 1 % of the width raises the inductance by roughly 5 % or more, which this result neglects: apply gapFringingFactor",
 };
 
 /**
