@@ -184,7 +184,12 @@ function specialisedLoop(names: readonly string[], name0: string, name1: string 
   if (names.every((n) => ident.test(n))) {
     const lit = names.map((n) => `${n}: x.${n}`).join(", ");
     const body = `
-      const o = { ${lit} };
+      // The leading key gives this object a hidden class of its own. The formula's
+      // definition has an object literal with exactly the input names (its inputs),
+      // holding objects; a literal with the same keys in the same order shares that
+      // hidden class, whose fields then hold any value, and every number stored
+      // into them is a fresh heap allocation. Measured: 41 -> 18 ns per point.
+      const o = { $sweep: 0, ${lit} };
       const n0 = v0.length, n1 = ${name1 === undefined ? "1" : "v1.length"}, nRel = holds.length;
       const pos = new Int32Array(2); // the point being computed, for resuming after a throw
       let failed = 0;
