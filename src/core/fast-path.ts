@@ -36,7 +36,10 @@ export function buildFastPath(
     if (spec.default !== undefined) lines.push(`if (v${i} === undefined) v${i} = ${numberLiteral(spec.default)};`);
     lines.push(`if (typeof v${i} !== "number" || !(${domainTest(`v${i}`, spec.domain)})) return slow(x);`);
   }
-  lines.push(`const o = { ${names.map((n, i) => `${JSON.stringify(n)}: v${i}`).join(", ")} };`);
+  // "$fast" gives `o` a hidden class of its own: the definition's `inputs` literal
+  // has exactly these keys, and sharing its class would box every number stored
+  // here (see src/tools/sweep.ts; measured 8.2 -> 7.5 ns per typed call).
+  lines.push(`const o = { $fast: 0, ${names.map((n, i) => `${JSON.stringify(n)}: v${i}`).join(", ")} };`);
   relations.forEach((_, i) => lines.push(`if (!relations[${i}].holds(o)) return slow(x);`));
   lines.push("const r = compute(o);");
   lines.push('if (typeof r !== "number" || r - r !== 0) return slow(x);');
