@@ -128,9 +128,21 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
   const v0 = axes[0]!.values;
   const v1 = name1 !== undefined ? axes[1]!.values : new Float64Array(1);
   // Domain checks once per axis value, not per point.
+  // Bounds hoisted into locals so the loop is plain comparisons (a call per value
+  // cost about as much as computing the formula). Open ends become +-Infinity,
+  // which every finite value passes; NaN fails every comparison.
   const okMask = (vs: Float64Array, d: typeof dom0): Uint8Array => {
     const m = new Uint8Array(vs.length);
-    for (let i = 0; i < vs.length; i++) m[i] = inDomain(vs[i]!, d) ? 1 : 0;
+    const lo = d?.min ?? -Infinity;
+    const hi = d?.max ?? Infinity;
+    const loOpen = d?.minExclusive === true;
+    const hiOpen = d?.maxExclusive === true;
+    const whole = d?.integer === true;
+    for (let i = 0; i < vs.length; i++) {
+      const v = vs[i]!;
+      const ok = (loOpen ? v > lo : v >= lo) && (hiOpen ? v < hi : v <= hi) && v - v === 0 && (!whole || Number.isInteger(v));
+      m[i] = ok ? 1 : 0;
+    }
     return m;
   };
   const ok0 = okMask(v0, dom0);
