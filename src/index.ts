@@ -6,7 +6,7 @@ export type { ErrorCode, FormulaErrorFields } from "./core/errors.js";
 export { defineFormula, isFormula, domainRule } from "./core/formula.js";
 export type { Formula, AnyFormula } from "./core/formula.js";
 export type * from "./core/spec.js";
-export { POSITIVE, NON_NEGATIVE, AT_LEAST_ONE, COUNT } from "./core/spec.js";
+export { POSITIVE, NON_NEGATIVE, AT_LEAST_ONE, COUNT, TURNS } from "./core/spec.js";
 export { evaluate } from "./core/evaluate.js";
 export type { EvaluateResult, RawInput } from "./core/evaluate.js";
 export { listFormulas, getFormula } from "./core/registry.js";

@@ -19,6 +19,14 @@ export const NON_NEGATIVE: Domain = { min: 0 };
 export const AT_LEAST_ONE: Domain = { min: 1 };
 export const COUNT: Domain = { min: 1, integer: true };
 
+/** Number of turns of a winding: a whole number, at least 1. Spread it and set the example. */
+export const TURNS = {
+  dimension: "Dimensionless",
+  description: "Number of turns of the winding",
+  domain: COUNT,
+  example: 20,
+} as const;
+
 /** An input measured in a dimension (a scalar, or a 3-vector when `vector`). */
 export interface QuantityInput {
   readonly dimension: DimensionName;

@@ -1,8 +1,8 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
-import { NON_NEGATIVE, POSITIVE } from "../core/spec.js";
+import { NON_NEGATIVE, POSITIVE, TURNS } from "../core/spec.js";
 import { loopKernel } from "./loop-series.js";
-import { IMPLANT_CAUTION, TURNS } from "./shared.js";
+import { IMPLANT_CAUTION} from "./shared.js";
 
 const CURRENT = { dimension: "Current", description: "Current in the conductor", example: 10 } as const;
 /** Scratch for loopKernel's [f, E, mc D]: no allocation per call. */

@@ -1,6 +1,6 @@
 import { defineFormula } from "../core/formula.js";
-import { NON_NEGATIVE, POSITIVE } from "../core/spec.js";
-import { ELV_AC_RMS, TURNS } from "./shared.js";
+import { NON_NEGATIVE, POSITIVE, TURNS } from "../core/spec.js";
+import { ELV_AC_RMS} from "./shared.js";
 
 const SQRT2_PI = Math.SQRT2 * Math.PI; // 4.4429, the "4.44" of the transformer equation
 

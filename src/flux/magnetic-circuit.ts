@@ -1,7 +1,7 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
-import { AT_LEAST_ONE, NON_NEGATIVE, POSITIVE } from "../core/spec.js";
-import { RELATIVE_PERMEABILITY, TURNS } from "./shared.js";
+import { AT_LEAST_ONE, NON_NEGATIVE, POSITIVE, TURNS } from "../core/spec.js";
+import { RELATIVE_PERMEABILITY} from "./shared.js";
 
 const MCLYMAN = { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed." } as const;
 const IEC_60205 = {

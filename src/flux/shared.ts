@@ -1,4 +1,4 @@
-import { AT_LEAST_ONE, COUNT } from "../core/spec.js";
+import { AT_LEAST_ONE } from "../core/spec.js";
 
 /** Relative permeability of a core material (1 for air and vacuum). */
 export const RELATIVE_PERMEABILITY = {
@@ -7,14 +7,6 @@ export const RELATIVE_PERMEABILITY = {
   default: 1,
   domain: AT_LEAST_ONE,
   example: 2000,
-} as const;
-
-/** Number of turns of a winding: a whole number, at least 1. */
-export const TURNS = {
-  dimension: "Dimensionless",
-  description: "Number of turns of the winding",
-  domain: COUNT,
-  example: 20,
 } as const;
 
 /** Relative permittivity of the medium around charges (1 for vacuum). */

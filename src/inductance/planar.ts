@@ -1,6 +1,6 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
-import { COUNT, NON_NEGATIVE, POSITIVE } from "../core/spec.js";
+import { NON_NEGATIVE, POSITIVE, TURNS } from "../core/spec.js";
 
 const MOHAN = {
   authors: "S. S. Mohan, M. del Mar Hershenson, S. P. Boyd, T. H. Lee",
@@ -23,7 +23,7 @@ const WHEELER = {
 } as const;
 
 const SPIRAL_INPUTS = {
-  turns: { dimension: "Dimensionless", description: "Number of turns", domain: COUNT, example: 5 },
+  turns: { ...TURNS, example: 5 },
   outerDiameter: { dimension: "Length", description: "Outer diameter of the spiral (across flats for polygons)", domain: POSITIVE, example: 0.0004 },
   innerDiameter: { dimension: "Length", description: "Inner diameter of the spiral (across flats for polygons)", domain: NON_NEGATIVE, example: 0.0002 },
 } as const;

@@ -1,6 +1,6 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
-import { COUNT, POSITIVE } from "../core/spec.js";
+import { POSITIVE, TURNS } from "../core/spec.js";
 import { nagaoka } from "./shared.js";
 
 const NAGAOKA_SOURCE = {
@@ -72,7 +72,7 @@ export const solenoidInductance = /* @__PURE__ */ defineFormula({
   description: "Inductance of a finite single-layer solenoid as a uniform cylindrical current sheet, exact through Nagaoka's coefficient, for any length-to-diameter ratio.",
   equation: "L = mu0 N^2 pi r^2 K(2r/l) / l",
   inputs: {
-    turns: { dimension: "Dimensionless", description: "Number of turns", domain: COUNT, example: 100 },
+    turns: { ...TURNS, example: 100 },
     radius: { dimension: "Length", description: "Coil radius (to the wire centre)", domain: POSITIVE, example: 0.01 },
     length: { dimension: "Length", description: "Winding length", domain: POSITIVE, example: 0.02 },
   },
@@ -110,7 +110,7 @@ export const idealSolenoidInductance = /* @__PURE__ */ defineFormula({
   description: "Inductance of a solenoid from the infinitely long solenoid's uniform field; end effects neglected.",
   equation: "L = mu0 N^2 pi r^2 / l",
   inputs: {
-    turns: { dimension: "Dimensionless", description: "Number of turns", domain: COUNT, example: 1000 },
+    turns: { ...TURNS, example: 1000 },
     radius: { dimension: "Length", description: "Coil radius", domain: POSITIVE, example: 0.01 },
     length: { dimension: "Length", description: "Winding length", domain: POSITIVE, example: 1 },
   },
@@ -149,7 +149,7 @@ export const wheelerSolenoidInductance = /* @__PURE__ */ defineFormula({
   description: "Wheeler's simple approximation for a single-layer air-core coil; within 1 % when the length exceeds 0.8 radius.",
   equation: "L = (1e-7 H/0.0254 m) N^2 r^2 / (l + 0.9 r)",
   inputs: {
-    turns: { dimension: "Dimensionless", description: "Number of turns", domain: COUNT, example: 100 },
+    turns: { ...TURNS, example: 100 },
     radius: { dimension: "Length", description: "Coil radius (to the wire centre)", domain: POSITIVE, example: 0.01 },
     length: { dimension: "Length", description: "Winding length", domain: POSITIVE, example: 0.02 },
   },
@@ -189,7 +189,7 @@ export const multilayerCoilInductance = /* @__PURE__ */ defineFormula({
   description: "Wheeler's approximation for a multilayer air-core coil of rectangular winding section; about 1 % when 6a, 9b and 10c are comparable.",
   equation: "L = (0.8e-6 H/0.0254 m) N^2 a^2 / (6a + 9b + 10c)",
   inputs: {
-    turns: { dimension: "Dimensionless", description: "Number of turns", domain: COUNT, example: 200 },
+    turns: { ...TURNS, example: 200 },
     meanRadius: { dimension: "Length", description: "Mean radius of the winding", domain: POSITIVE, example: 0.01 },
     length: { dimension: "Length", description: "Winding length (axial)", domain: POSITIVE, example: 0.01 },
     depth: { dimension: "Length", description: "Winding depth (radial build)", domain: POSITIVE, example: 0.006 },

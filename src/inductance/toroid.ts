@@ -1,6 +1,6 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
-import { COUNT, POSITIVE } from "../core/spec.js";
+import { POSITIVE, TURNS } from "../core/spec.js";
 import { RELATIVE_PERMEABILITY } from "./shared.js";
 
 const CORE_NONLINEAR = {
@@ -33,7 +33,7 @@ export const toroidInductance = /* @__PURE__ */ defineFormula({
   description: "Inductance of a closely wound toroid on a core of rectangular cross-section, exact for a uniform winding and a linear core.",
   equation: "L = mu0 mur N^2 h ln(b/a) / (2 pi)",
   inputs: {
-    turns: { dimension: "Dimensionless", description: "Number of turns", domain: COUNT, example: 50 },
+    turns: { ...TURNS, example: 50 },
     innerRadius: { dimension: "Length", description: "Inner radius of the core", domain: POSITIVE, example: 0.01 },
     outerRadius: { dimension: "Length", description: "Outer radius of the core", domain: POSITIVE, example: 0.02 },
     height: { dimension: "Length", description: "Height (axial thickness) of the core", domain: POSITIVE, example: 0.01 },
@@ -73,7 +73,7 @@ export const circularToroidInductance = /* @__PURE__ */ defineFormula({
   description: "Inductance of a closely wound toroid on a core of circular cross-section, exact for a uniform winding and a linear core.",
   equation: "L = mu0 mur N^2 (R - sqrt(R^2 - r^2))",
   inputs: {
-    turns: { dimension: "Dimensionless", description: "Number of turns", domain: COUNT, example: 50 },
+    turns: { ...TURNS, example: 50 },
     majorRadius: { dimension: "Length", description: "Radius from the toroid's axis to the centre of the cross-section", domain: POSITIVE, example: 0.02 },
     minorRadius: { dimension: "Length", description: "Radius of the circular cross-section", domain: POSITIVE, example: 0.005 },
     relativePermeability: RELATIVE_PERMEABILITY,
