@@ -34,6 +34,14 @@ const CONNECTION = {
   example: "aiding",
 } as const;
 
+/** The inputs of two coupled inductors, shared by the series and parallel connections. */
+const COUPLED_PAIR = {
+  inductance1: { dimension: "Inductance", description: "Self-inductance of the first inductor", domain: POSITIVE, example: 1e-5 },
+  inductance2: { dimension: "Inductance", description: "Self-inductance of the second inductor", domain: POSITIVE, example: 2e-5 },
+  mutualInductance: { dimension: "Inductance", description: "Mutual inductance (magnitude)", domain: NON_NEGATIVE, default: 0, example: 5e-6 },
+  connection: CONNECTION,
+} as const;
+
 /**
  * Energy stored in an inductor's magnetic field.
  *
@@ -103,12 +111,7 @@ export const seriesInductance = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Inductance of two magnetically coupled inductors connected in series, fluxes aiding or opposing.",
   equation: "L = L1 + L2 +/- 2M",
-  inputs: {
-    inductance1: { dimension: "Inductance", description: "Self-inductance of the first inductor", domain: POSITIVE, example: 1e-5 },
-    inductance2: { dimension: "Inductance", description: "Self-inductance of the second inductor", domain: POSITIVE, example: 2e-5 },
-    mutualInductance: { dimension: "Inductance", description: "Mutual inductance (magnitude)", domain: NON_NEGATIVE, default: 0, example: 5e-6 },
-    connection: CONNECTION,
-  },
+  inputs: COUPLED_PAIR,
   output: { dimension: "Inductance", description: "Total inductance" },
   relations: [COUPLING_RELATION],
   source: { ...CIRCUITS, locator: "sec. 13.2 (series-aiding and series-opposing connections)" },
@@ -142,12 +145,7 @@ export const parallelInductance = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Inductance of two magnetically coupled inductors connected in parallel, fluxes aiding or opposing.",
   equation: "L = (L1 L2 - M^2) / (L1 + L2 -/+ 2M)",
-  inputs: {
-    inductance1: { dimension: "Inductance", description: "Self-inductance of the first inductor", domain: POSITIVE, example: 1e-5 },
-    inductance2: { dimension: "Inductance", description: "Self-inductance of the second inductor", domain: POSITIVE, example: 2e-5 },
-    mutualInductance: { dimension: "Inductance", description: "Mutual inductance (magnitude)", domain: NON_NEGATIVE, default: 0, example: 5e-6 },
-    connection: CONNECTION,
-  },
+  inputs: COUPLED_PAIR,
   output: { dimension: "Inductance", description: "Total inductance" },
   relations: [COUPLING_RELATION],
   source: { ...CIRCUITS, locator: "ch. 13 (coupled inductors)" },
