@@ -28,32 +28,14 @@ export function gaussLegendre(n: number): GaussRule {
   for (let i = 0; i < half; i++) {
     // Tricomi's first approximation to the i-th largest root.
     let x = Math.cos((Math.PI * (i + 0.75)) / (n + 0.5));
-    let dp = 0;
     for (let iter = 0; iter < 100; iter++) {
-      let p0 = 1;
-      let p1 = x;
-      for (let k = 2; k <= n; k++) {
-        const p2 = ((2 * k - 1) * x * p1 - (k - 1) * p0) / k;
-        p0 = p1;
-        p1 = p2;
-      }
-      if (n === 1) p0 = 1;
-      // P_n' from P_n and P_{n-1}: (1 - x^2) P_n' = n (P_{n-1} - x P_n).
-      dp = (n * (p0 - x * p1)) / (1 - x * x);
-      const dx = p1 / dp;
+      const [p, dp] = legendre(n, x);
+      const dx = p / dp;
       x -= dx;
       if (Math.abs(dx) <= 1e-16) break;
     }
-    // Recompute P_n' at the final node for the weight.
-    let p0 = 1;
-    let p1 = x;
-    for (let k = 2; k <= n; k++) {
-      const p2 = ((2 * k - 1) * x * p1 - (k - 1) * p0) / k;
-      p0 = p1;
-      p1 = p2;
-    }
-    if (n === 1) p0 = 1;
-    dp = (n * (p0 - x * p1)) / (1 - x * x);
+    // P_n' at the final node for the weight.
+    const dp = legendre(n, x)[1];
     const w = 2 / ((1 - x * x) * dp * dp);
     nodes[i] = -x;
     nodes[n - 1 - i] = x;
@@ -64,6 +46,19 @@ export function gaussLegendre(n: number): GaussRule {
   const rule = { nodes, weights };
   cache.set(n, rule);
   return rule;
+}
+
+/** [P_n(x), P_n'(x)] by the three-term recurrence; (1 - x^2) P_n' = n (P_{n-1} - x P_n). */
+function legendre(n: number, x: number): [number, number] {
+  let p0 = 1;
+  let p1 = x;
+  for (let k = 2; k <= n; k++) {
+    const p2 = ((2 * k - 1) * x * p1 - (k - 1) * p0) / k;
+    p0 = p1;
+    p1 = p2;
+  }
+  if (n === 1) p0 = 1;
+  return [p1, (n * (p0 - x * p1)) / (1 - x * x)];
 }
 
 /** Integral of f over [a, b] with the n-point Gauss-Legendre rule. */

@@ -2,22 +2,14 @@
 // decimal.js oracle for the series sum, and errors for unusable lists.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { FormulaError, parallelCapacitance, quantity, seriesCapacitance, type Capacitance } from "../../src/index.js";
+import { parallelCapacitance, quantity, seriesCapacitance, type Capacitance } from "../../src/index.js";
 import { exact, relErr } from "./oracle.js";
+import { expectFormulaError } from "../helpers/errors.js";
 
 const cap = fc.double({ min: -300, max: 300, noNaN: true }).map((p) => (10 ** p) as Capacitance);
 const caps = fc.array(cap, { minLength: 1, maxLength: 12 });
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 
-function errorOf(fn: () => unknown): FormulaError {
-  try {
-    fn();
-  } catch (e) {
-    expect(e).toBeInstanceOf(FormulaError);
-    return e as FormulaError;
-  }
-  return expect.fail("expected a FormulaError");
-}
 
 describe("series and parallel capacitance", () => {
   it("two 10 nF capacitors give 5 nF in series and 20 nF in parallel", () => {
@@ -69,16 +61,16 @@ describe("series and parallel capacitance", () => {
 
   it("unusable lists fail with a FormulaError code naming the offending entry", () => {
     for (const f of [seriesCapacitance, parallelCapacitance]) {
-      expect(errorOf(() => f()).code).toBe("invalid_argument");
-      const neg = errorOf(() => f(1e-9 as Capacitance, -1e-9 as Capacitance));
+      expect(expectFormulaError(() => f()).code).toBe("invalid_argument");
+      const neg = expectFormulaError(() => f(1e-9 as Capacitance, -1e-9 as Capacitance));
       expect([neg.code, neg.input]).toEqual(["out_of_domain", "capacitances[1]"]);
-      expect(errorOf(() => f(0 as Capacitance)).code).toBe("out_of_domain");
-      const nan = errorOf(() => f(1e-9 as Capacitance, Number.NaN as Capacitance));
+      expect(expectFormulaError(() => f(0 as Capacitance)).code).toBe("out_of_domain");
+      const nan = expectFormulaError(() => f(1e-9 as Capacitance, Number.NaN as Capacitance));
       expect([nan.code, nan.input]).toEqual(["not_finite", "capacitances[1]"]);
-      expect(errorOf(() => f(Infinity as Capacitance)).code).toBe("not_finite");
-      expect(errorOf(() => f("10 nF" as unknown as Capacitance)).code).toBe("wrong_type");
+      expect(expectFormulaError(() => f(Infinity as Capacitance)).code).toBe("not_finite");
+      expect(expectFormulaError(() => f("10 nF" as unknown as Capacitance)).code).toBe("wrong_type");
     }
-    expect(errorOf(() => parallelCapacitance(1e308 as Capacitance, 1e308 as Capacitance)).code).toBe("out_of_range");
+    expect(expectFormulaError(() => parallelCapacitance(1e308 as Capacitance, 1e308 as Capacitance)).code).toBe("out_of_range");
     expect(seriesCapacitance(1e308 as Capacitance, 1e308 as Capacitance)).toBe(5e307);
     expect(rel(seriesCapacitance(1e-200 as Capacitance, 1e200 as Capacitance), 1e-200)).toBeLessThan(1e-15);
   });

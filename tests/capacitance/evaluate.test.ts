@@ -2,23 +2,15 @@
 // errors with codes and input names, validity warnings and safety cautions.
 import { describe, expect, it } from "vitest";
 import {
-  capacitorCharge, capacitorEnergy, coaxialCapacitance, evaluate, FormulaError, getFormula,
+  capacitorCharge, capacitorEnergy, coaxialCapacitance, evaluate, getFormula,
   isolatedSphereCapacitance, parallelPlateCapacitance, quantity, sphericalCapacitance, twoWireCapacitance,
   wireOverPlaneCapacitance, type Length,
 } from "../../src/index.js";
+import { expectFormulaError } from "../helpers/errors.js";
 
 const m = (v: number) => v as Length;
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 
-function errorOf(fn: () => unknown): FormulaError {
-  try {
-    fn();
-  } catch (e) {
-    expect(e).toBeInstanceOf(FormulaError);
-    return e as FormulaError;
-  }
-  return expect.fail("expected a FormulaError");
-}
 
 const IDS = [
   "parallelPlateCapacitance", "coaxialCapacitance", "sphericalCapacitance", "isolatedSphereCapacitance",
@@ -73,24 +65,24 @@ describe("capacitance formulas through evaluate", () => {
       ["wireOverPlaneCapacitance", { wireRadius: "1 mm", height: "1 mm", length: "1 m" }, ["wireRadius", "height"]],
     ];
     for (const [id, inputs, names] of cases) {
-      const e = errorOf(() => evaluate(id, inputs));
+      const e = expectFormulaError(() => evaluate(id, inputs));
       expect(e.code).toBe("out_of_domain");
       for (const n of names) expect(e.rule).toContain(n);
     }
   });
 
   it("bad single inputs name the input and never produce NaN or a TypeError", () => {
-    const e1 = errorOf(() => evaluate("coaxialCapacitance", { innerRadius: "-1 mm", outerRadius: "2 mm", length: "1 m" }));
+    const e1 = expectFormulaError(() => evaluate("coaxialCapacitance", { innerRadius: "-1 mm", outerRadius: "2 mm", length: "1 m" }));
     expect([e1.code, e1.input]).toEqual(["out_of_domain", "innerRadius"]);
-    const e2 = errorOf(() => evaluate("twoWireCapacitance", { wireRadius: "1 mm", separation: "5 pF", length: "1 m" }));
+    const e2 = expectFormulaError(() => evaluate("twoWireCapacitance", { wireRadius: "1 mm", separation: "5 pF", length: "1 m" }));
     expect([e2.code, e2.input]).toEqual(["wrong_dimension", "separation"]);
-    const e3 = errorOf(() => coaxialCapacitance({ innerRadius: m(1e-3), outerRadius: m(Number.NaN), length: m(1) }));
+    const e3 = expectFormulaError(() => coaxialCapacitance({ innerRadius: m(1e-3), outerRadius: m(Number.NaN), length: m(1) }));
     expect([e3.code, e3.input]).toEqual(["not_finite", "outerRadius"]);
-    const e4 = errorOf(() => isolatedSphereCapacitance({ radius: m(1), relativePermittivity: 0.5 }));
+    const e4 = expectFormulaError(() => isolatedSphereCapacitance({ radius: m(1), relativePermittivity: 0.5 }));
     expect([e4.code, e4.input]).toEqual(["out_of_domain", "relativePermittivity"]);
-    const e5 = errorOf(() => evaluate("capacitorEnergy", { capacitance: "0 F", voltage: "1 V" }));
+    const e5 = expectFormulaError(() => evaluate("capacitorEnergy", { capacitance: "0 F", voltage: "1 V" }));
     expect([e5.code, e5.input]).toEqual(["out_of_domain", "capacitance"]);
-    const e6 = errorOf(() => evaluate("wireOverPlaneCapacitance", { wireRadius: "1 mm", length: "1 m" }));
+    const e6 = expectFormulaError(() => evaluate("wireOverPlaneCapacitance", { wireRadius: "1 mm", length: "1 m" }));
     expect([e6.code, e6.input]).toEqual(["missing_input", "height"]);
   });
 });

@@ -16,3 +16,8 @@ export function errorOf(fn: () => unknown): FormulaError | undefined {
 export function codeOf(fn: () => unknown): string | undefined {
   return errorOf(fn)?.code;
 }
+
+/** The FormulaError `fn` throws; the test fails if it returns or throws anything else. */
+export function expectFormulaError(fn: () => unknown): FormulaError {
+  return errorOf(fn) ?? expect.fail("expected a FormulaError");
+}

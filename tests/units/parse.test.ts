@@ -3,19 +3,11 @@ import { describe, expect, it } from "vitest";
 import { FormulaError } from "../../src/core/errors.js";
 import { evaluate } from "../../src/core/evaluate.js";
 import { parseQuantity, unitCacheSize } from "../../src/units/parse.js";
+import { expectFormulaError } from "../helpers/errors.js";
 
 const ID = "parallelPlateCapacitance";
 
 /** Run `fn`, expecting a FormulaError; return it. */
-function formulaError(fn: () => unknown): FormulaError {
-  try {
-    fn();
-  } catch (e) {
-    expect(e).toBeInstanceOf(FormulaError);
-    return e as FormulaError;
-  }
-  return expect.fail("expected a FormulaError");
-}
 
 describe("parseQuantity cache", () => {
   it("returns the identical record for the same text", () => {
@@ -83,7 +75,7 @@ describe("wrong dimension through evaluate()", () => {
     ["gap", "1 m^5", "Length", "m^5"],
   ])("%s given %j names the input, expected %s and given %s", (input, text, expected, received) => {
     const inputs: Record<string, unknown> = { area: "1 cm^2", gap: "0.1 mm", [input]: text };
-    const err = formulaError(() => evaluate(ID, inputs));
+    const err = expectFormulaError(() => evaluate(ID, inputs));
     expect(err.code).toBe("wrong_dimension");
     expect(err.input).toBe(input);
     expect(err.formula).toBe(ID);
@@ -101,14 +93,14 @@ describe("strings that are not quantities", () => {
     "__proto__", "constructor", "1 m 1 m", "1e18 1/", "m 5", "5 m)", "((", "1 mm; 2 mm", "\u0000", "5 \u00b5m2",
   ];
   it.each(UNPARSABLE)("%j is FormulaError unparsable naming the input", (text) => {
-    const err = formulaError(() => evaluate(ID, { area: "1 cm^2", gap: text }));
+    const err = expectFormulaError(() => evaluate(ID, { area: "1 cm^2", gap: text }));
     expect(err.code).toBe("unparsable");
     expect(err.input).toBe("gap");
     expect(err.formula).toBe(ID);
   });
 
   it("an overflowing value is not_finite, never Infinity", () => {
-    const err = formulaError(() => evaluate(ID, { area: "1 cm^2", gap: "1e400 mm" }));
+    const err = expectFormulaError(() => evaluate(ID, { area: "1 cm^2", gap: "1e400 mm" }));
     expect(err.code).toBe("not_finite");
     expect(err.input).toBe("gap");
   });
@@ -116,12 +108,12 @@ describe("strings that are not quantities", () => {
   it("strings longer than 200 characters are refused before mathjs sees them, with a short message", () => {
     const long = `${"1".repeat(199)} m`; // 201 characters
     expect(long.length).toBe(201);
-    const err = formulaError(() => evaluate(ID, { area: "1 cm^2", gap: long }));
+    const err = expectFormulaError(() => evaluate(ID, { area: "1 cm^2", gap: long }));
     expect(err.code).toBe("unparsable");
     expect(err.input).toBe("gap");
     expect(err.message).toContain("longer than 200");
     expect(err.message.length).toBeLessThan(200);
-    const huge = formulaError(() => parseQuantity("9".repeat(100_000), "gap"));
+    const huge = expectFormulaError(() => parseQuantity("9".repeat(100_000), "gap"));
     expect(huge.code).toBe("unparsable");
   });
 
@@ -148,7 +140,7 @@ describe("strings that are not quantities", () => {
   it.each([
     [true], [null], [{}], [[1, 2]], [() => 1], [Symbol("x")], [10n],
   ])("a %s input is FormulaError wrong_type naming the input", (value) => {
-    const err = formulaError(() => evaluate(ID, { area: "1 cm^2", gap: value }));
+    const err = expectFormulaError(() => evaluate(ID, { area: "1 cm^2", gap: value }));
     expect(err.code).toBe("wrong_type");
     expect(err.input).toBe("gap");
   });
