@@ -20,5 +20,3 @@ export * from "./force/index.js";
 export * from "./displacement/index.js";
 export * from "./tools/index.js";
 export * from "./notebook/index.js";
-// Human-readable values with SI prefixes (uses the private mathjs instance).
-export { formatQuantity } from "./cli/format.js";

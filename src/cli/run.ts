@@ -6,7 +6,7 @@ import { catalogEntry } from "../tools/catalog.js";
 import { solveRequest } from "../tools/solve.js";
 import { sweepRequest, sweepToCsv, sweepToVegaLite } from "../tools/sweep.js";
 import { toleranceRequest } from "../tools/tolerance.js";
-import { formatBoth, formatQuantity } from "./format.js";
+import { formatBoth, formatQuantity } from "../units/display.js";
 
 /** Where the command line writes. */
 export interface CliIO {

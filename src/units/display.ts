@@ -1,4 +1,4 @@
-import { unitMath } from "../units/parse.js";
+import { unitMath } from "./parse.js";
 
 // Units that read well with an SI prefix chosen by mathjs ("8.854 pF", "100 mm^2").
 // Compound units ("F/m") and the kilogram (whose prefixes mathjs would put on "g") are
