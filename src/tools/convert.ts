@@ -29,8 +29,6 @@ export function siUnit(dimension: DimensionName): string {
 export interface Binding {
   /** The object handed to compute; varied entries are overwritten in place. */
   readonly x: Record<string, unknown>;
-  /** Relations hold for the current x. */
-  relationsHold(): boolean;
   /**
    * The scalar output at the current x, or NaN when a relation fails, compute
    * throws a FormulaError or the result is not finite. (Internal; callers mask NaN.)
@@ -60,10 +58,6 @@ export function bind(formula: AnyFormula, fixedSI: Readonly<Record<string, unkno
   }
   const relations = formula.definition.relations ?? [];
   const compute = formula.definition.compute as (x: unknown) => unknown;
-  const relationsHold = (): boolean => {
-    for (let i = 0; i < relations.length; i++) if (!relations[i]!.holds(x as ComputeInputs<InputSpecs>)) return false;
-    return true;
-  };
   const scalar = (): number => {
     for (let i = 0; i < relations.length; i++) if (!relations[i]!.holds(x as ComputeInputs<InputSpecs>)) return NaN;
     let r: unknown;
@@ -75,7 +69,7 @@ export function bind(formula: AnyFormula, fixedSI: Readonly<Record<string, unkno
     }
     return typeof r === "number" && r - r === 0 ? r : NaN;
   };
-  return { x, relationsHold, scalar };
+  return { x, scalar };
 }
 
 /** An in-domain value near the input's example (or default), for probing and search starts. */
