@@ -49,3 +49,31 @@ describe("a sweep over points where compute fails", () => {
     expect(one.notComputed).toBe(1);
   });
 });
+
+describe("a sweep where code generation is forbidden (strict Content-Security-Policy)", () => {
+  it("falls back to the general loop and gives the same grid", async () => {
+    const { vi } = await import("vitest");
+    // Same physics as `picky`, other input names, so no generated loop is cached for it.
+    const pickyToo = defineFormula({
+      id: "testPickyToo", title: "t", category: "test", description: "fails on purpose", equation: "y = p q",
+      inputs: { p: picky.definition.inputs.a, q: picky.definition.inputs.b },
+      output: picky.definition.output,
+      source: picky.definition.source,
+      compute: (x) => picky.definition.compute({ a: x.p, b: x.q }),
+    });
+    const spec = { vary: { p: { from: 1, to: 10, points: 10 }, q: { from: 1, to: 10, points: 10 } } };
+    vi.stubGlobal("Function", function forbidden() {
+      throw new EvalError("code generation from strings disallowed");
+    });
+    let fallback;
+    try {
+      fallback = sweep(pickyToo, spec);
+    } finally {
+      vi.unstubAllGlobals();
+    }
+    const generated = sweep(picky, { vary: { a: spec.vary.p, b: spec.vary.q } });
+    expect([...fallback.computed]).toEqual([...generated.computed]);
+    expect([...fallback.output.values]).toEqual([...generated.output.values]);
+    expect(fallback.notComputed).toBe(generated.notComputed);
+  });
+});
