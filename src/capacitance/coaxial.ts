@@ -34,12 +34,12 @@ export const coaxialCapacitance = /* @__PURE__ */ defineFormula({
   description:
     "Capacitance between the inner and outer conductors of a coaxial line filled with one dielectric; end effects neglected.",
   equation: "C = 2 pi eps0 epsr l / ln(b / a)",
-  inputs: {
-    innerRadius: { dimension: "Length", description: "Radius of the inner conductor", domain: POSITIVE, example: 4.5e-4 },
-    outerRadius: { dimension: "Length", description: "Inner radius of the outer conductor (shield)", domain: POSITIVE, example: 1.47e-3 },
-    length: { dimension: "Length", description: "Length of the line", domain: POSITIVE, example: 1 },
-    relativePermittivity: RELATIVE_PERMITTIVITY,
-  },
+  inputs: [
+    { name: "innerRadius", dimension: "Length", description: "Radius of the inner conductor", domain: POSITIVE, example: 4.5e-4 },
+    { name: "outerRadius", dimension: "Length", description: "Inner radius of the outer conductor (shield)", domain: POSITIVE, example: 1.47e-3 },
+    { name: "length", dimension: "Length", description: "Length of the line", domain: POSITIVE, example: 1 },
+    { name: "relativePermittivity", ...RELATIVE_PERMITTIVITY },
+  ],
   output: { dimension: "Capacitance", description: "Capacitance between the conductors" },
   relations: [{ rule: "innerRadius < outerRadius", holds: (x) => x.innerRadius < x.outerRadius }],
   validity: [

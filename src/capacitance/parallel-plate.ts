@@ -25,11 +25,11 @@ export const parallelPlateCapacitance = /* @__PURE__ */ defineFormula({
   category: "capacitance",
   description: "Capacitance of two parallel conducting plates of equal area, fringing neglected.",
   equation: "C = eps0 * epsr * A / d",
-  inputs: {
-    area: { dimension: "Area", description: "Area of one plate (overlap area)", domain: POSITIVE, example: 1e-4 },
-    gap: { dimension: "Length", description: "Distance between the plates", domain: POSITIVE, example: 1e-4 },
-    relativePermittivity: RELATIVE_PERMITTIVITY,
-  },
+  inputs: [
+    { name: "area", dimension: "Area", description: "Area of one plate (overlap area)", domain: POSITIVE, example: 1e-4 },
+    { name: "gap", dimension: "Length", description: "Distance between the plates", domain: POSITIVE, example: 1e-4 },
+    { name: "relativePermittivity", ...RELATIVE_PERMITTIVITY },
+  ],
   output: { dimension: "Capacitance", description: "Capacitance" },
   validity: [
     {

@@ -31,11 +31,11 @@ export const sphericalCapacitance = /* @__PURE__ */ defineFormula({
   category: "capacitance",
   description: "Capacitance between a conducting sphere and a concentric conducting spherical shell around it.",
   equation: "C = 4 pi eps0 epsr a b / (b - a)",
-  inputs: {
-    innerRadius: { dimension: "Length", description: "Radius of the inner sphere", domain: POSITIVE, example: 0.1 },
-    outerRadius: { dimension: "Length", description: "Inner radius of the outer spherical shell", domain: POSITIVE, example: 0.2 },
-    relativePermittivity: RELATIVE_PERMITTIVITY,
-  },
+  inputs: [
+    { name: "innerRadius", dimension: "Length", description: "Radius of the inner sphere", domain: POSITIVE, example: 0.1 },
+    { name: "outerRadius", dimension: "Length", description: "Inner radius of the outer spherical shell", domain: POSITIVE, example: 0.2 },
+    { name: "relativePermittivity", ...RELATIVE_PERMITTIVITY },
+  ],
   output: { dimension: "Capacitance", description: "Capacitance between the sphere and the shell" },
   relations: [{ rule: "innerRadius < outerRadius", holds: (x) => x.innerRadius < x.outerRadius }],
   source: {
@@ -69,10 +69,10 @@ export const isolatedSphereCapacitance = /* @__PURE__ */ defineFormula({
   category: "capacitance",
   description: "Self-capacitance of a conducting sphere far from every other conductor.",
   equation: "C = 4 pi eps0 epsr a",
-  inputs: {
-    radius: { dimension: "Length", description: "Radius of the sphere", domain: POSITIVE, example: 0.1 },
-    relativePermittivity: RELATIVE_PERMITTIVITY,
-  },
+  inputs: [
+    { name: "radius", dimension: "Length", description: "Radius of the sphere", domain: POSITIVE, example: 0.1 },
+    { name: "relativePermittivity", ...RELATIVE_PERMITTIVITY },
+  ],
   output: { dimension: "Capacitance", description: "Self-capacitance" },
   source: {
     authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.",

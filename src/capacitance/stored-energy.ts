@@ -63,10 +63,10 @@ export const capacitorEnergy = /* @__PURE__ */ defineFormula({
   category: "capacitance",
   description: "Energy stored in a linear capacitor charged to a voltage (capacitance independent of voltage).",
   equation: "W = C V^2 / 2",
-  inputs: {
-    capacitance: { dimension: "Capacitance", description: "Capacitance", domain: POSITIVE, example: 1e-4 },
-    voltage: { dimension: "Voltage", description: "Voltage across the capacitor", example: 400 },
-  },
+  inputs: [
+    { name: "capacitance", dimension: "Capacitance", description: "Capacitance", domain: POSITIVE, example: 1e-4 },
+    { name: "voltage", dimension: "Voltage", description: "Voltage across the capacitor", example: 400 },
+  ],
   output: { dimension: "Energy", description: "Stored energy" },
   cautions: [
     ...cautions,
@@ -107,10 +107,10 @@ export const capacitorCharge = /* @__PURE__ */ defineFormula({
   category: "capacitance",
   description: "Charge held by a linear capacitor at a voltage; the sign follows the voltage.",
   equation: "Q = C V",
-  inputs: {
-    capacitance: { dimension: "Capacitance", description: "Capacitance", domain: POSITIVE, example: 1e-4 },
-    voltage: { dimension: "Voltage", description: "Voltage across the capacitor", example: 400 },
-  },
+  inputs: [
+    { name: "capacitance", dimension: "Capacitance", description: "Capacitance", domain: POSITIVE, example: 1e-4 },
+    { name: "voltage", dimension: "Voltage", description: "Voltage across the capacitor", example: 400 },
+  ],
   output: { dimension: "Charge", description: "Charge on the positive plate" },
   cautions,
   source: [

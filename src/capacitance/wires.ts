@@ -39,12 +39,12 @@ export const twoWireCapacitance = /* @__PURE__ */ defineFormula({
   description:
     "Capacitance between two parallel round wires of equal radius in a uniform dielectric; exact for long wires, end effects neglected.",
   equation: "C = pi eps0 epsr l / acosh(D / (2 a))",
-  inputs: {
-    wireRadius: { dimension: "Length", description: "Radius of each wire", domain: POSITIVE, example: 5e-4 },
-    separation: { dimension: "Length", description: "Distance between the wire axes (centre to centre)", domain: POSITIVE, example: 5e-3 },
-    length: { dimension: "Length", description: "Length of the wire pair", domain: POSITIVE, example: 1 },
-    relativePermittivity: RELATIVE_PERMITTIVITY,
-  },
+  inputs: [
+    { name: "wireRadius", dimension: "Length", description: "Radius of each wire", domain: POSITIVE, example: 5e-4 },
+    { name: "separation", dimension: "Length", description: "Distance between the wire axes (centre to centre)", domain: POSITIVE, example: 5e-3 },
+    { name: "length", dimension: "Length", description: "Length of the wire pair", domain: POSITIVE, example: 1 },
+    { name: "relativePermittivity", ...RELATIVE_PERMITTIVITY },
+  ],
   output: { dimension: "Capacitance", description: "Capacitance between the two wires" },
   // 2a is exact (or overflows to Infinity, which fails correctly since D is finite).
   relations: [{ rule: "wireRadius < separation / 2", holds: (x) => 2 * x.wireRadius < x.separation }],
@@ -94,12 +94,12 @@ export const wireOverPlaneCapacitance = /* @__PURE__ */ defineFormula({
   description:
     "Capacitance between a round wire and a parallel infinite conducting plane in a uniform dielectric; exact for a long wire, end effects neglected.",
   equation: "C = 2 pi eps0 epsr l / acosh(h / a)",
-  inputs: {
-    wireRadius: { dimension: "Length", description: "Radius of the wire", domain: POSITIVE, example: 5e-4 },
-    height: { dimension: "Length", description: "Distance from the wire's axis to the ground plane", domain: POSITIVE, example: 1e-2 },
-    length: { dimension: "Length", description: "Length of the wire", domain: POSITIVE, example: 1 },
-    relativePermittivity: RELATIVE_PERMITTIVITY,
-  },
+  inputs: [
+    { name: "wireRadius", dimension: "Length", description: "Radius of the wire", domain: POSITIVE, example: 5e-4 },
+    { name: "height", dimension: "Length", description: "Distance from the wire's axis to the ground plane", domain: POSITIVE, example: 1e-2 },
+    { name: "length", dimension: "Length", description: "Length of the wire", domain: POSITIVE, example: 1 },
+    { name: "relativePermittivity", ...RELATIVE_PERMITTIVITY },
+  ],
   output: { dimension: "Capacitance", description: "Capacitance between the wire and the plane" },
   relations: [{ rule: "wireRadius < height", holds: (x) => x.wireRadius < x.height }],
   validity: [

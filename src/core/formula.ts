@@ -2,8 +2,8 @@ import { inDomain } from "./domain.js";
 import { FormulaError } from "./errors.js";
 import { buildFastPath } from "./fast-path.js";
 import type {
-  ComputeInputs, ComputeOutput, Detailed, Domain, FormulaDefinition, FormulaInputs, FormulaOutput,
-  InputSpecs, Note, OutputSpec,
+  ComputeInputs, ComputeOutput, Detailed, Domain, FormulaDeclaration, FormulaDefinition, FormulaInputs, FormulaOutput,
+  InputList, InputsByName, InputSpec, InputSpecs, NamedInput, Note, OutputSpec,
 } from "./spec.js";
 
 /**
@@ -54,12 +54,14 @@ export function domainRule(d: Domain): string {
  * errors, notes and the design tools all derive from this definition.
  * Mark calls `/* @__PURE__ *\/` so bundlers drop unused formulas.
  */
-export function defineFormula<const I extends InputSpecs, const O extends OutputSpec>(
-  def: FormulaDefinition<I, O>,
-): Formula<I, O> {
+export function defineFormula<const L extends InputList, const O extends OutputSpec>(
+  declaration: FormulaDeclaration<L, O>,
+): Formula<InputsByName<L>, O> {
+  type I = InputsByName<L>;
+  const def = { ...declaration, inputs: byName(declaration) } as FormulaDefinition<I, O>;
   const id = def.id;
-  const names = Object.keys(def.inputs);
-  const specs = names.map((n) => def.inputs[n]!);
+  const specs: readonly NamedInput[] = declaration.inputs;
+  const names = specs.map((s) => s.name);
   const nComponents = def.output.components?.length ?? 0;
 
   function prepare(raw: Readonly<Record<string, unknown>>): ComputeInputs<I> {
@@ -151,6 +153,21 @@ export function defineFormula<const I extends InputSpecs, const O extends Output
   Object.defineProperty(formula, "name", { value: id });
   Object.assign(formula, { id, definition: def, details, prepare, run, notes, [FORMULA]: true });
   return formula;
+}
+
+/**
+ * The by-name view of the declared inputs, as a null-prototype object: it is
+ * built here rather than written as a literal so that it never shares a hidden
+ * class with callers' argument objects (see InputList), and an input named like
+ * an Object.prototype member cannot be mistaken for one.
+ */
+function byName(declaration: { readonly id: string; readonly inputs: InputList }): InputSpecs {
+  const out: Record<string, InputSpec> = Object.create(null) as Record<string, InputSpec>;
+  for (const spec of declaration.inputs) {
+    if (Object.hasOwn(out, spec.name)) throw new Error(`${declaration.id}: input "${spec.name}" is declared twice`);
+    out[spec.name] = spec;
+  }
+  return Object.freeze(out);
 }
 
 function quoteInputs(x: Readonly<Record<string, unknown>>): string {

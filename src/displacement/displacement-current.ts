@@ -55,10 +55,10 @@ export const displacementCurrent = /* @__PURE__ */ defineFormula({
   category: "displacement",
   description: "Maxwell's displacement current through a surface, from the rate of change of the electric flux through it.",
   equation: "I_d = eps0 epsr dPhi_E/dt",
-  inputs: {
-    electricFluxRate: { dimension: "ElectricFluxRate", description: "Rate of change of the electric flux through the surface (signed)", example: 1e12 },
-    relativePermittivity: MEDIUM_PERMITTIVITY,
-  },
+  inputs: [
+    { name: "electricFluxRate", dimension: "ElectricFluxRate", description: "Rate of change of the electric flux through the surface (signed)", example: 1e12 },
+    { name: "relativePermittivity", ...MEDIUM_PERMITTIVITY },
+  ],
   output: { dimension: "Current", description: "Displacement current through the surface" },
   source: { ...GRIFFITHS, locator: "section 7.3.2, eq. for the displacement current" },
   compute: (x) => EPSILON0 * x.relativePermittivity * x.electricFluxRate,
@@ -84,10 +84,10 @@ export const capacitorDisplacementCurrent = /* @__PURE__ */ defineFormula({
   category: "displacement",
   description: "Displacement current between the plates of a capacitor with changing voltage, equal to the current in its leads.",
   equation: "I_d = C dV/dt",
-  inputs: {
-    capacitance: { dimension: "Capacitance", description: "Capacitance", domain: POSITIVE, example: 1e-6 },
-    voltageRate: { dimension: "VoltageRate", description: "Rate of change of the voltage across it (signed)", example: 1e6 },
-  },
+  inputs: [
+    { name: "capacitance", dimension: "Capacitance", description: "Capacitance", domain: POSITIVE, example: 1e-6 },
+    { name: "voltageRate", dimension: "VoltageRate", description: "Rate of change of the voltage across it (signed)", example: 1e6 },
+  ],
   output: { dimension: "Current", description: "Displacement current (= conduction current in the leads)" },
   source: { ...GRIFFITHS, locator: "section 7.3.2, charging capacitor" },
   compute: (x) => x.capacitance * x.voltageRate,
@@ -116,11 +116,11 @@ export const displacementCurrentDensity = /* @__PURE__ */ defineFormula({
   category: "displacement",
   description: "Peak displacement current density of a sinusoidal electric field in a linear medium.",
   equation: "J_d = 2 pi f eps0 epsr E0",
-  inputs: {
-    relativePermittivity: MATERIAL_PERMITTIVITY,
-    frequency: { dimension: "Frequency", description: "Frequency of the field", domain: NON_NEGATIVE, example: 1e6 },
-    fieldAmplitude: { dimension: "ElectricField", description: "Peak electric field", domain: NON_NEGATIVE, example: 1 },
-  },
+  inputs: [
+    { name: "relativePermittivity", ...MATERIAL_PERMITTIVITY },
+    { name: "frequency", dimension: "Frequency", description: "Frequency of the field", domain: NON_NEGATIVE, example: 1e6 },
+    { name: "fieldAmplitude", dimension: "ElectricField", description: "Peak electric field", domain: NON_NEGATIVE, example: 1 },
+  ],
   output: { dimension: "CurrentDensity", description: "Peak displacement current density" },
   validity: [{ code: "dispersion", when: (x) => x.frequency > 1e8, message: DISPERSION_MESSAGE }],
   source: { ...GRIFFITHS, locator: "section 7.3.5, J_d = dD/dt" },
@@ -150,11 +150,11 @@ export const conductionDisplacementRatio = /* @__PURE__ */ defineFormula({
   category: "displacement",
   description: "Ratio sigma/(omega eps) of conduction to displacement current in a lossy medium at one frequency.",
   equation: "ratio = sigma / (2 pi f eps0 epsr)",
-  inputs: {
-    conductivity: { dimension: "Conductivity", description: "Conductivity at the frequency of interest", domain: NON_NEGATIVE, example: 4 },
-    relativePermittivity: MATERIAL_PERMITTIVITY,
-    frequency: { dimension: "Frequency", description: "Frequency", domain: POSITIVE, example: 1e6 },
-  },
+  inputs: [
+    { name: "conductivity", dimension: "Conductivity", description: "Conductivity at the frequency of interest", domain: NON_NEGATIVE, example: 4 },
+    { name: "relativePermittivity", ...MATERIAL_PERMITTIVITY },
+    { name: "frequency", dimension: "Frequency", description: "Frequency", domain: POSITIVE, example: 1e6 },
+  ],
   output: { dimension: "Dimensionless", description: "Conduction current over displacement current" },
   validity: [{ code: "dispersion", when: (x) => x.frequency > 1e8, message: DISPERSION_MESSAGE }],
   source: [
@@ -186,10 +186,10 @@ export const crossoverFrequency = /* @__PURE__ */ defineFormula({
   category: "displacement",
   description: "Frequency at which conduction and displacement currents are equal in a material (its dielectric relaxation frequency).",
   equation: "f_c = sigma / (2 pi eps0 epsr)",
-  inputs: {
-    conductivity: { dimension: "Conductivity", description: "Conductivity of the material", domain: POSITIVE, example: 4 },
-    relativePermittivity: MATERIAL_PERMITTIVITY,
-  },
+  inputs: [
+    { name: "conductivity", dimension: "Conductivity", description: "Conductivity of the material", domain: POSITIVE, example: 4 },
+    { name: "relativePermittivity", ...MATERIAL_PERMITTIVITY },
+  ],
   output: { dimension: "Frequency", description: "Crossover frequency" },
   validity: [{ code: "dispersion", when: (_x, f) => (f as number) > 1e8, message: DISPERSION_MESSAGE }],
   source: [
@@ -225,11 +225,11 @@ export const chargingCapacitorField = /* @__PURE__ */ defineFormula({
   category: "displacement",
   description: "Azimuthal flux density between circular capacitor plates carrying a charging current, from the Ampere-Maxwell law.",
   equation: "B = mu0 I r / (2 pi R^2) (r <= R); mu0 I / (2 pi r) (r >= R)",
-  inputs: {
-    current: { dimension: "Current", description: "Charging current in the leads (signed)", example: 1 },
-    plateRadius: { dimension: "Length", description: "Radius of the circular plates", domain: POSITIVE, example: 0.05 },
-    radialDistance: { dimension: "Length", description: "Distance from the axis (0 allowed)", domain: NON_NEGATIVE, example: 0.025 },
-  },
+  inputs: [
+    { name: "current", dimension: "Current", description: "Charging current in the leads (signed)", example: 1 },
+    { name: "plateRadius", dimension: "Length", description: "Radius of the circular plates", domain: POSITIVE, example: 0.05 },
+    { name: "radialDistance", dimension: "Length", description: "Distance from the axis (0 allowed)", domain: NON_NEGATIVE, example: 0.025 },
+  ],
   output: { dimension: "FluxDensity", description: "Azimuthal flux density" },
   source: { ...GRIFFITHS, locator: "Problem 7.34 (number from memory)" },
   // Inside: (r/R)/R keeps the ratio near 1 before dividing once more; outside: one quotient.
@@ -264,10 +264,10 @@ export const parasiticCouplingCurrent = /* @__PURE__ */ defineFormula({
   category: "displacement",
   description: "Current pushed through a stray capacitance by a voltage edge (switching node to heatsink or chassis).",
   equation: "I = C dV/dt",
-  inputs: {
-    capacitance: { dimension: "Capacitance", description: "Stray capacitance", domain: POSITIVE, example: 1e-10 },
-    voltageSlewRate: { dimension: "VoltageRate", description: "Slew rate of the voltage across it (signed)", example: 1e10 },
-  },
+  inputs: [
+    { name: "capacitance", dimension: "Capacitance", description: "Stray capacitance", domain: POSITIVE, example: 1e-10 },
+    { name: "voltageSlewRate", dimension: "VoltageRate", description: "Slew rate of the voltage across it (signed)", example: 1e10 },
+  ],
   output: { dimension: "Current", description: "Peak current during the edge" },
   cautions: [{ code: "leakage_and_emc", message: LEAKAGE_MESSAGE }],
   source: [

@@ -28,10 +28,10 @@ export const wireField = /* @__PURE__ */ defineFormula({
   category: "magnetic field",
   description: "Flux density around a long straight current-carrying wire (Biot-Savart law, infinite wire).",
   equation: "B = mu0 * I / (2 pi d)",
-  inputs: {
-    current: CURRENT,
-    distance: { dimension: "Length", description: "Distance from the wire's axis", domain: POSITIVE, example: 0.1 },
-  },
+  inputs: [
+    { name: "current", ...CURRENT },
+    { name: "distance", dimension: "Length", description: "Distance from the wire's axis", domain: POSITIVE, example: 0.1 },
+  ],
   output: { dimension: "FluxDensity", description: "Flux density (circling the wire; sign follows the current)" },
   cautions: [IMPLANT_CAUTION],
   source: { ...GRIFFITHS, locator: "Example 5.5, B = mu0 I / (2 pi s) (from memory)" },
@@ -55,11 +55,11 @@ export const loopAxialField = /* @__PURE__ */ defineFormula({
   category: "magnetic field",
   description: "Axial flux density of a single circular current loop at a point on its axis.",
   equation: "B = mu0 * I * R^2 / (2 (R^2 + z^2)^(3/2))",
-  inputs: {
-    current: CURRENT,
-    radius: { dimension: "Length", description: "Loop radius", domain: POSITIVE, example: 0.1 },
-    axialDistance: { dimension: "Length", description: "Distance along the axis from the loop's centre", default: 0, example: 0.05 },
-  },
+  inputs: [
+    { name: "current", ...CURRENT },
+    { name: "radius", dimension: "Length", description: "Loop radius", domain: POSITIVE, example: 0.1 },
+    { name: "axialDistance", dimension: "Length", description: "Distance along the axis from the loop's centre", default: 0, example: 0.05 },
+  ],
   output: { dimension: "FluxDensity", description: "Axial flux density" },
   cautions: [IMPLANT_CAUTION],
   source: { ...GRIFFITHS, locator: "Example 5.6 (from memory)" },
@@ -99,12 +99,12 @@ export const loopField = /* @__PURE__ */ defineFormula({
   category: "magnetic field",
   description: "Radial and axial flux density of a circular current filament at any point, exact with elliptic integrals.",
   equation: "B_z = mu0 I a (a E - 2 rho f) / (pi alpha^2 beta); B_rho = 2 mu0 I a z f / (pi alpha^2 beta); f = E/2 - (1 - m)(K - E)/m",
-  inputs: {
-    current: CURRENT,
-    radius: { dimension: "Length", description: "Loop radius", domain: POSITIVE, example: 0.1 },
-    radialDistance: { dimension: "Length", description: "Distance of the point from the loop's axis", domain: NON_NEGATIVE, example: 0.05 },
-    axialDistance: { dimension: "Length", description: "Distance of the point along the axis from the loop's plane", example: 0.05 },
-  },
+  inputs: [
+    { name: "current", ...CURRENT },
+    { name: "radius", dimension: "Length", description: "Loop radius", domain: POSITIVE, example: 0.1 },
+    { name: "radialDistance", dimension: "Length", description: "Distance of the point from the loop's axis", domain: NON_NEGATIVE, example: 0.05 },
+    { name: "axialDistance", dimension: "Length", description: "Distance of the point along the axis from the loop's plane", example: 0.05 },
+  ],
   output: { dimension: "FluxDensity", description: "Flux density components", components: ["radial", "axial"] },
   relations: [
     {
@@ -165,13 +165,13 @@ export const solenoidAxialField = /* @__PURE__ */ defineFormula({
   category: "magnetic field",
   description: "Axial flux density of a single-layer solenoid treated as a uniform current sheet, at any point of its axis.",
   equation: "B = mu0 N I / (2 l) * [cos(theta1) - cos(theta2)]",
-  inputs: {
-    current: { ...CURRENT, example: 1 },
-    turns: { ...TURNS, example: 1000 },
-    radius: { dimension: "Length", description: "Winding radius", domain: POSITIVE, example: 0.01 },
-    length: { dimension: "Length", description: "Winding length", domain: POSITIVE, example: 0.1 },
-    axialPosition: { dimension: "Length", description: "Position on the axis measured from the solenoid's centre", default: 0, example: 0.02 },
-  },
+  inputs: [
+    { name: "current", ...CURRENT, example: 1 },
+    { name: "turns", ...TURNS, example: 1000 },
+    { name: "radius", dimension: "Length", description: "Winding radius", domain: POSITIVE, example: 0.01 },
+    { name: "length", dimension: "Length", description: "Winding length", domain: POSITIVE, example: 0.1 },
+    { name: "axialPosition", dimension: "Length", description: "Position on the axis measured from the solenoid's centre", default: 0, example: 0.02 },
+  ],
   output: { dimension: "FluxDensity", description: "Axial flux density" },
   validity: [
     {
@@ -219,11 +219,11 @@ export const helmholtzCenterField = /* @__PURE__ */ defineFormula({
   category: "magnetic field",
   description: "Flux density midway between two coaxial coils spaced by their radius (Helmholtz coil).",
   equation: "B = (4/5)^(3/2) * mu0 * N * I / R",
-  inputs: {
-    current: { ...CURRENT, example: 1 },
-    turns: { ...TURNS, description: "Turns of each of the two coils", example: 100 },
-    radius: { dimension: "Length", description: "Coil radius (also the spacing)", domain: POSITIVE, example: 0.1 },
-  },
+  inputs: [
+    { name: "current", ...CURRENT, example: 1 },
+    { name: "turns", ...TURNS, description: "Turns of each of the two coils", example: 100 },
+    { name: "radius", dimension: "Length", description: "Coil radius (also the spacing)", domain: POSITIVE, example: 0.1 },
+  ],
   output: { dimension: "FluxDensity", description: "Flux density at the centre, along the axis" },
   cautions: [IMPLANT_CAUTION],
   source: { ...GRIFFITHS, locator: "Problem 5.46 (from memory)" },
@@ -249,11 +249,11 @@ export const toroidField = /* @__PURE__ */ defineFormula({
   category: "magnetic field",
   description: "Flux density inside an evenly wound toroid at a given distance from its axis (Ampere's law).",
   equation: "B = mu0 * N * I / (2 pi r)",
-  inputs: {
-    current: { ...CURRENT, example: 1 },
-    turns: { ...TURNS, example: 100 },
-    radius: { dimension: "Length", description: "Distance from the toroid's axis, inside the winding", domain: POSITIVE, example: 0.05 },
-  },
+  inputs: [
+    { name: "current", ...CURRENT, example: 1 },
+    { name: "turns", ...TURNS, example: 100 },
+    { name: "radius", dimension: "Length", description: "Distance from the toroid's axis, inside the winding", domain: POSITIVE, example: 0.05 },
+  ],
   output: { dimension: "FluxDensity", description: "Flux density inside the winding (circumferential)" },
   source: { ...GRIFFITHS, locator: "Example 5.10 (from memory)" },
   compute: (x) => (MU0 * x.turns * x.current) / (2 * Math.PI * x.radius),

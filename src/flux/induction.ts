@@ -36,11 +36,11 @@ export const magneticFlux = /* @__PURE__ */ defineFormula({
   category: "flux",
   description: "Flux of a uniform flux density through a flat surface tilted by an angle from the field.",
   equation: "Phi = B * A * cos(theta)",
-  inputs: {
-    fluxDensity: { dimension: "FluxDensity", description: "Magnitude of the (uniform) flux density", example: 0.2 },
-    area: { dimension: "Area", description: "Area of the flat surface", domain: NON_NEGATIVE, example: 1e-4 },
-    angle: { dimension: "Angle", description: "Angle between the field and the surface normal", default: 0, example: 0.5 },
-  },
+  inputs: [
+    { name: "fluxDensity", dimension: "FluxDensity", description: "Magnitude of the (uniform) flux density", example: 0.2 },
+    { name: "area", dimension: "Area", description: "Area of the flat surface", domain: NON_NEGATIVE, example: 1e-4 },
+    { name: "angle", dimension: "Angle", description: "Angle between the field and the surface normal", default: 0, example: 0.5 },
+  ],
   output: { dimension: "MagneticFlux", description: "Magnetic flux through the surface" },
   source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "sec. 7.1.3 (flux through a loop; section from memory)" },
   // A plain product; cos of an angle is exact enough (cos(pi/2) ~ 6e-17 is a representation limit of pi/2).
@@ -67,12 +67,12 @@ export const transformerEmf = /* @__PURE__ */ defineFormula({
   category: "flux",
   description: "RMS voltage induced in N turns by a sinusoidal flux of given peak density in a core of given area.",
   equation: "E_rms = sqrt(2) * pi * f * N * A * B_peak  (= 4.44 f N A B)",
-  inputs: {
-    frequency: { dimension: "Frequency", description: "Frequency of the sinusoidal flux", domain: POSITIVE, example: 50 },
-    turns: { ...TURNS, example: 100 },
-    area: { dimension: "Area", description: "Effective cross-section of the core", domain: POSITIVE, example: 1e-3 },
-    peakFluxDensity: { dimension: "FluxDensity", description: "Peak flux density in the core", domain: NON_NEGATIVE, example: 1.2 },
-  },
+  inputs: [
+    { name: "frequency", dimension: "Frequency", description: "Frequency of the sinusoidal flux", domain: POSITIVE, example: 50 },
+    { name: "turns", ...TURNS, example: 100 },
+    { name: "area", dimension: "Area", description: "Effective cross-section of the core", domain: POSITIVE, example: 1e-3 },
+    { name: "peakFluxDensity", dimension: "FluxDensity", description: "Peak flux density in the core", domain: NON_NEGATIVE, example: 1.2 },
+  ],
   output: { dimension: "Voltage", description: "RMS induced voltage" },
   validity: [
     {
@@ -107,19 +107,20 @@ export const transformerPeakFluxDensity = /* @__PURE__ */ defineFormula({
   category: "flux",
   description: "Peak flux density in a core whose winding carries a sinusoidal rms voltage (transformer equation solved for B).",
   equation: "B_peak = E_rms / (sqrt(2) * pi * f * N * A)",
-  inputs: {
-    voltage: { dimension: "Voltage", description: "RMS voltage across the winding", domain: NON_NEGATIVE, example: 230 },
-    frequency: { dimension: "Frequency", description: "Frequency of the voltage", domain: POSITIVE, example: 50 },
-    turns: { ...TURNS, example: 800 },
-    area: { dimension: "Area", description: "Effective cross-section of the core", domain: POSITIVE, example: 1e-3 },
-    saturationFluxDensity: {
+  inputs: [
+    { name: "voltage", dimension: "Voltage", description: "RMS voltage across the winding", domain: NON_NEGATIVE, example: 230 },
+    { name: "frequency", dimension: "Frequency", description: "Frequency of the voltage", domain: POSITIVE, example: 50 },
+    { name: "turns", ...TURNS, example: 800 },
+    { name: "area", dimension: "Area", description: "Effective cross-section of the core", domain: POSITIVE, example: 1e-3 },
+    {
+      name: "saturationFluxDensity",
       dimension: "FluxDensity",
       description: "Saturation flux density of the core material; 0 means not given (no check)",
       default: 0,
       domain: NON_NEGATIVE,
       example: 1.6,
     },
-  },
+  ],
   output: { dimension: "FluxDensity", description: "Peak flux density in the core" },
   validity: [
     {
@@ -156,11 +157,11 @@ export const motionalEmf = /* @__PURE__ */ defineFormula({
   category: "flux",
   description: "Voltage across a straight conductor moving at right angles through a uniform flux density.",
   equation: "E = B * l * v",
-  inputs: {
-    fluxDensity: { dimension: "FluxDensity", description: "Flux density (perpendicular to conductor and motion)", example: 0.5 },
-    length: { dimension: "Length", description: "Length of the conductor in the field", domain: POSITIVE, example: 0.2 },
-    speed: { dimension: "Velocity", description: "Speed of the conductor across the field", example: 10 },
-  },
+  inputs: [
+    { name: "fluxDensity", dimension: "FluxDensity", description: "Flux density (perpendicular to conductor and motion)", example: 0.5 },
+    { name: "length", dimension: "Length", description: "Length of the conductor in the field", domain: POSITIVE, example: 0.2 },
+    { name: "speed", dimension: "Velocity", description: "Speed of the conductor across the field", example: 10 },
+  ],
   output: { dimension: "Voltage", description: "Induced voltage" },
   cautions: [{ ...ELV_CAUTION, message: (_x, v) => `induced voltage ${Math.abs(v as number).toPrecision(3)} V exceeds the 50 V extra-low-voltage band (IEC 61140 / IEC 60449): a shock hazard. Local codes and licensed practice govern.` }],
   source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "sec. 7.1.3, motional emf (section from memory)" },

@@ -27,11 +27,11 @@ export const skinDepth = /* @__PURE__ */ defineFormula({
   category: "magnetic field",
   description: "Depth at which an AC field or current density in a good conductor falls to 1/e of its surface value.",
   equation: "delta = 1 / sqrt(pi * f * mu0 * mur * sigma)",
-  inputs: {
-    conductivity: { dimension: "Conductivity", description: "Electrical conductivity of the conductor (copper, IEC 60028: 58.0 MS/m)", domain: POSITIVE, example: 58e6 },
-    frequency: { dimension: "Frequency", description: "Frequency of the current or field", domain: POSITIVE, example: 100e3 },
-    relativePermeability: { ...RELATIVE_PERMEABILITY, description: "Relative permeability of the conductor (1 for copper, aluminium)", example: 1 },
-  },
+  inputs: [
+    { name: "conductivity", dimension: "Conductivity", description: "Electrical conductivity of the conductor (copper, IEC 60028: 58.0 MS/m)", domain: POSITIVE, example: 58e6 },
+    { name: "frequency", dimension: "Frequency", description: "Frequency of the current or field", domain: POSITIVE, example: 100e3 },
+    { name: "relativePermeability", ...RELATIVE_PERMEABILITY, description: "Relative permeability of the conductor (1 for copper, aluminium)", example: 1 },
+  ],
   output: { dimension: "Length", description: "Skin depth" },
   validity: [
     {
@@ -73,14 +73,14 @@ export const coreLoss = /* @__PURE__ */ defineFormula({
   category: "flux",
   description: "Power lost in a magnetic core under sinusoidal excitation, from the material's Steinmetz coefficients.",
   equation: "P = k * f^alpha * B^beta * V  (k in W/m^3 with f in Hz, B in T)",
-  inputs: {
-    coefficient: { dimension: "Dimensionless", description: "Steinmetz coefficient k, in W/m^3 for f in Hz and B in T", domain: POSITIVE, example: 1.5 },
-    frequencyExponent: { dimension: "Dimensionless", description: "Frequency exponent alpha (typically 1 to 2)", domain: POSITIVE, example: 1.4 },
-    fluxExponent: { dimension: "Dimensionless", description: "Flux-density exponent beta (typically 2 to 3)", domain: POSITIVE, example: 2.5 },
-    frequency: { dimension: "Frequency", description: "Excitation frequency", domain: POSITIVE, example: 100e3 },
-    peakFluxDensity: { dimension: "FluxDensity", description: "Peak flux density (half the peak-to-peak swing)", domain: NON_NEGATIVE, example: 0.1 },
-    volume: { dimension: "Volume", description: "Effective core volume V_e", domain: POSITIVE, example: 5e-6 },
-  },
+  inputs: [
+    { name: "coefficient", dimension: "Dimensionless", description: "Steinmetz coefficient k, in W/m^3 for f in Hz and B in T", domain: POSITIVE, example: 1.5 },
+    { name: "frequencyExponent", dimension: "Dimensionless", description: "Frequency exponent alpha (typically 1 to 2)", domain: POSITIVE, example: 1.4 },
+    { name: "fluxExponent", dimension: "Dimensionless", description: "Flux-density exponent beta (typically 2 to 3)", domain: POSITIVE, example: 2.5 },
+    { name: "frequency", dimension: "Frequency", description: "Excitation frequency", domain: POSITIVE, example: 100e3 },
+    { name: "peakFluxDensity", dimension: "FluxDensity", description: "Peak flux density (half the peak-to-peak swing)", domain: NON_NEGATIVE, example: 0.1 },
+    { name: "volume", dimension: "Volume", description: "Effective core volume V_e", domain: POSITIVE, example: 5e-6 },
+  ],
   output: { dimension: "Power", description: "Core loss" },
   validity: [
     {

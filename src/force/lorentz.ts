@@ -29,12 +29,12 @@ export const lorentzForce = /* @__PURE__ */ defineFormula({
   category: "force",
   description: "Force on a point charge moving with velocity v through an electric field E and a magnetic flux density B.",
   equation: "F = q (E + v x B)",
-  inputs: {
-    charge: CHARGE,
-    electricField: { dimension: "ElectricField", description: "Electric field at the charge", vector: true, example: [1e3, 0, 0] },
-    velocity: { dimension: "Velocity", description: "Velocity of the charge (speed below c)", vector: true, example: [0, 1e5, 0] },
-    fluxDensity: { dimension: "FluxDensity", description: "Magnetic flux density at the charge", vector: true, example: [0, 0, 0.01] },
-  },
+  inputs: [
+    { name: "charge", ...CHARGE },
+    { name: "electricField", dimension: "ElectricField", description: "Electric field at the charge", vector: true, example: [1e3, 0, 0] },
+    { name: "velocity", dimension: "Velocity", description: "Velocity of the charge (speed below c)", vector: true, example: [0, 1e5, 0] },
+    { name: "fluxDensity", dimension: "FluxDensity", description: "Magnetic flux density at the charge", vector: true, example: [0, 0, 0.01] },
+  ],
   output: { dimension: "Force", description: "Force on the charge", components: ["x", "y", "z"] },
   relations: [{ rule: "|velocity| < c (speed of light)", holds: (x) => norm(x.velocity) < SPEED_OF_LIGHT }],
   source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "section 5.1.2, Lorentz force law" },
@@ -69,12 +69,12 @@ export const wireForce = /* @__PURE__ */ defineFormula({
   category: "force",
   description: "Force on a straight wire carrying current I across a uniform magnetic flux density B at angle theta to it (F = B l I for a voice coil).",
   equation: "F = I l B sin(theta)",
-  inputs: {
-    current: { dimension: "Current", description: "Current in the wire (signed)", example: 2 },
-    length: { dimension: "Length", description: "Length of wire inside the field", domain: POSITIVE, example: 5 },
-    fluxDensity: { dimension: "FluxDensity", description: "Flux density of the uniform field", domain: { min: 0 }, example: 1 },
-    angle: { dimension: "Angle", description: "Angle between the wire (current direction) and B, 0 to 180 deg", default: Math.PI / 2, example: Math.PI / 2 },
-  },
+  inputs: [
+    { name: "current", dimension: "Current", description: "Current in the wire (signed)", example: 2 },
+    { name: "length", dimension: "Length", description: "Length of wire inside the field", domain: POSITIVE, example: 5 },
+    { name: "fluxDensity", dimension: "FluxDensity", description: "Flux density of the uniform field", domain: { min: 0 }, example: 1 },
+    { name: "angle", dimension: "Angle", description: "Angle between the wire (current direction) and B, 0 to 180 deg", default: Math.PI / 2, example: Math.PI / 2 },
+  ],
   output: { dimension: "Force", description: "Force on the wire, perpendicular to both the wire and B" },
   cautions: [
     { code: "fault_current_force", message: FAULT_FORCE_MESSAGE },
@@ -118,12 +118,12 @@ export const parallelWiresForce = /* @__PURE__ */ defineFormula({
   category: "force",
   description: "Force per given length between two long straight parallel wires; positive is attraction (like-directed currents).",
   equation: "F = mu0 I1 I2 l / (2 pi d)",
-  inputs: {
-    current1: { dimension: "Current", description: "Current in the first wire (signed)", example: 1000 },
-    current2: { dimension: "Current", description: "Current in the second wire (signed; same sign = same direction)", example: -1000 },
-    separation: { dimension: "Length", description: "Centre-to-centre distance between the wires", domain: POSITIVE, example: 0.1 },
-    length: { dimension: "Length", description: "Length of wire on which the force acts", domain: POSITIVE, example: 10 },
-  },
+  inputs: [
+    { name: "current1", dimension: "Current", description: "Current in the first wire (signed)", example: 1000 },
+    { name: "current2", dimension: "Current", description: "Current in the second wire (signed; same sign = same direction)", example: -1000 },
+    { name: "separation", dimension: "Length", description: "Centre-to-centre distance between the wires", domain: POSITIVE, example: 0.1 },
+    { name: "length", dimension: "Length", description: "Length of wire on which the force acts", domain: POSITIVE, example: 10 },
+  ],
   output: { dimension: "Force", description: "Force on the length l of one wire; positive = attractive" },
   validity: [
     {
@@ -171,9 +171,9 @@ export const magneticPressure = /* @__PURE__ */ defineFormula({
   category: "force",
   description: "Pressure B^2/(2 mu0) a magnetic field exerts on a conducting boundary that excludes it; equal to the field's energy density.",
   equation: "p = B^2 / (2 mu0)",
-  inputs: {
-    fluxDensity: { dimension: "FluxDensity", description: "Flux density at the surface (its sign does not matter)", example: 1 },
-  },
+  inputs: [
+    { name: "fluxDensity", dimension: "FluxDensity", description: "Flux density at the surface (its sign does not matter)", example: 1 },
+  ],
   output: { dimension: "Pressure", description: "Magnetic pressure" },
   cautions: [
     {
@@ -225,18 +225,19 @@ export const hallVoltage = /* @__PURE__ */ defineFormula({
   category: "force",
   description: "Transverse voltage across a thin strip carrying current in a perpendicular magnetic field, for one carrier type.",
   equation: "V_H = I B / (n q t)",
-  inputs: {
-    current: { dimension: "Current", description: "Current along the strip (signed)", example: 1e-3 },
-    fluxDensity: { dimension: "FluxDensity", description: "Flux density perpendicular to the strip (signed)", example: 0.1 },
-    carrierDensity: { dimension: "NumberDensity", description: "Density of charge carriers", domain: POSITIVE, example: 1e22 },
-    thickness: { dimension: "Length", description: "Strip thickness along B", domain: POSITIVE, example: 1e-6 },
-    carrierCharge: {
+  inputs: [
+    { name: "current", dimension: "Current", description: "Current along the strip (signed)", example: 1e-3 },
+    { name: "fluxDensity", dimension: "FluxDensity", description: "Flux density perpendicular to the strip (signed)", example: 0.1 },
+    { name: "carrierDensity", dimension: "NumberDensity", description: "Density of charge carriers", domain: POSITIVE, example: 1e22 },
+    { name: "thickness", dimension: "Length", description: "Strip thickness along B", domain: POSITIVE, example: 1e-6 },
+    {
+      name: "carrierCharge",
       dimension: "Charge",
       description: "Signed charge of one carrier: +e for holes (default), -e for electrons",
       default: ELEMENTARY_CHARGE,
       example: -ELEMENTARY_CHARGE,
     },
-  },
+  ],
   output: { dimension: "Voltage", description: "Hall voltage: edge toward I x B minus the opposite edge" },
   relations: [{ rule: "carrierCharge != 0", holds: (x) => x.carrierCharge !== 0 }],
   source: { authors: "N. W. Ashcroft, N. D. Mermin", year: 1976, title: "Solid State Physics", locator: "ch. 1, Hall effect" },

@@ -40,12 +40,12 @@ export const cyclotronFrequency = /* @__PURE__ */ defineFormula({
   category: "particle",
   description: "Gyration frequency of a charged particle in a uniform magnetic field; relativistic when a kinetic energy is given.",
   equation: "f = |q| B / (2 pi gamma m), gamma = 1 + T / (m c^2)",
-  inputs: {
-    charge: CHARGE,
-    mass: PARTICLE_MASS,
-    fluxDensity: { dimension: "FluxDensity", description: "Flux density of the uniform field", domain: NON_NEGATIVE, example: 0.1 },
-    kineticEnergy: { dimension: "Energy", description: "Kinetic energy (0 = non-relativistic limit)", domain: NON_NEGATIVE, default: 0, example: 0 },
-  },
+  inputs: [
+    { name: "charge", ...CHARGE },
+    { name: "mass", ...PARTICLE_MASS },
+    { name: "fluxDensity", dimension: "FluxDensity", description: "Flux density of the uniform field", domain: NON_NEGATIVE, example: 0.1 },
+    { name: "kineticEnergy", dimension: "Energy", description: "Kinetic energy (0 = non-relativistic limit)", domain: NON_NEGATIVE, default: 0, example: 0 },
+  ],
   output: { dimension: "Frequency", description: "Cyclotron frequency (cycles per second)" },
   cautions: [STRONG_FIELD],
   source: { ...JACKSON, locator: "section 12.2, gyration frequency" },
@@ -75,12 +75,12 @@ export const gyroradius = /* @__PURE__ */ defineFormula({
   category: "particle",
   description: "Radius of the circular motion of a charged particle in a uniform magnetic field, for speeds well below c.",
   equation: "r = m v / (|q| B)",
-  inputs: {
-    mass: PARTICLE_MASS,
-    speed: { dimension: "Velocity", description: "Speed perpendicular to B", domain: NON_NEGATIVE, example: 1e6 },
-    charge: CHARGE,
-    fluxDensity: { dimension: "FluxDensity", description: "Flux density of the uniform field", domain: POSITIVE, example: 1e-3 },
-  },
+  inputs: [
+    { name: "mass", ...PARTICLE_MASS },
+    { name: "speed", dimension: "Velocity", description: "Speed perpendicular to B", domain: NON_NEGATIVE, example: 1e6 },
+    { name: "charge", ...CHARGE },
+    { name: "fluxDensity", dimension: "FluxDensity", description: "Flux density of the uniform field", domain: POSITIVE, example: 1e-3 },
+  ],
   output: { dimension: "Length", description: "Gyroradius" },
   relations: [
     { rule: "charge != 0", holds: (x) => x.charge !== 0 },
@@ -128,12 +128,12 @@ export const relativisticGyroradius = /* @__PURE__ */ defineFormula({
   category: "particle",
   description: "Radius of the circular motion of a charged particle in a uniform magnetic field from its kinetic energy, valid at any energy.",
   equation: "r = sqrt(T (T + 2 m c^2)) / (c |q| B)",
-  inputs: {
-    mass: PARTICLE_MASS,
-    kineticEnergy: { dimension: "Energy", description: "Kinetic energy of the motion perpendicular to B", domain: NON_NEGATIVE, example: 1.602176634e-13 },
-    charge: CHARGE,
-    fluxDensity: { dimension: "FluxDensity", description: "Flux density of the uniform field", domain: POSITIVE, example: 0.1 },
-  },
+  inputs: [
+    { name: "mass", ...PARTICLE_MASS },
+    { name: "kineticEnergy", dimension: "Energy", description: "Kinetic energy of the motion perpendicular to B", domain: NON_NEGATIVE, example: 1.602176634e-13 },
+    { name: "charge", ...CHARGE },
+    { name: "fluxDensity", dimension: "FluxDensity", description: "Flux density of the uniform field", domain: POSITIVE, example: 0.1 },
+  ],
   output: { dimension: "Length", description: "Gyroradius" },
   relations: [{ rule: "charge != 0", holds: (x) => x.charge !== 0 }],
   cautions: [{ code: "particle_beam", message: BEAM_MESSAGE }, STRONG_FIELD],
@@ -169,10 +169,10 @@ export const driftVelocity = /* @__PURE__ */ defineFormula({
   category: "particle",
   description: "Guiding-centre drift velocity E x B / B^2 of a charged particle in crossed electric and magnetic fields, independent of charge and mass.",
   equation: "v_d = E x B / B^2",
-  inputs: {
-    electricField: { dimension: "ElectricField", description: "Uniform electric field", vector: true, example: [1e3, 0, 0] },
-    fluxDensity: { dimension: "FluxDensity", description: "Uniform magnetic flux density (not zero)", vector: true, example: [0, 0, 0.01] },
-  },
+  inputs: [
+    { name: "electricField", dimension: "ElectricField", description: "Uniform electric field", vector: true, example: [1e3, 0, 0] },
+    { name: "fluxDensity", dimension: "FluxDensity", description: "Uniform magnetic flux density (not zero)", vector: true, example: [0, 0, 0.01] },
+  ],
   output: { dimension: "Velocity", description: "Drift velocity of the guiding centre", components: ["x", "y", "z"] },
   relations: [{ rule: "|fluxDensity| > 0", holds: (x) => norm(x.fluxDensity) > 0 }],
   validity: [

@@ -35,12 +35,12 @@ const CONNECTION = {
 } as const;
 
 /** The inputs of two coupled inductors, shared by the series and parallel connections. */
-const COUPLED_PAIR = {
-  inductance1: { dimension: "Inductance", description: "Self-inductance of the first inductor", domain: POSITIVE, example: 1e-5 },
-  inductance2: { dimension: "Inductance", description: "Self-inductance of the second inductor", domain: POSITIVE, example: 2e-5 },
-  mutualInductance: { dimension: "Inductance", description: "Mutual inductance (magnitude)", domain: NON_NEGATIVE, default: 0, example: 5e-6 },
-  connection: CONNECTION,
-} as const;
+const COUPLED_PAIR = [
+  { name: "inductance1", dimension: "Inductance", description: "Self-inductance of the first inductor", domain: POSITIVE, example: 1e-5 },
+  { name: "inductance2", dimension: "Inductance", description: "Self-inductance of the second inductor", domain: POSITIVE, example: 2e-5 },
+  { name: "mutualInductance", dimension: "Inductance", description: "Mutual inductance (magnitude)", domain: NON_NEGATIVE, default: 0, example: 5e-6 },
+  { name: "connection", ...CONNECTION },
+] as const;
 
 /**
  * Energy stored in an inductor's magnetic field.
@@ -60,10 +60,10 @@ export const inductorEnergy = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Magnetic energy stored in a linear inductor carrying a current.",
   equation: "W = L I^2 / 2",
-  inputs: {
-    inductance: { dimension: "Inductance", description: "Inductance", domain: POSITIVE, example: 0.01 },
-    current: { dimension: "Current", description: "Current through the inductor", example: 5 },
-  },
+  inputs: [
+    { name: "inductance", dimension: "Inductance", description: "Inductance", domain: POSITIVE, example: 0.01 },
+    { name: "current", dimension: "Current", description: "Current through the inductor", example: 5 },
+  ],
   output: { dimension: "Energy", description: "Stored energy" },
   cautions: STORED_MAGNETIC_ENERGY_CAUTIONS,
   source: { ...CIRCUITS, locator: "sec. 6.4 (energy stored in an inductor)" },

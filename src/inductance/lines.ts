@@ -41,11 +41,11 @@ export const coaxialInductance = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Inductance of a coaxial line from the field between the conductors (high-frequency value; internal inductance of the conductors excluded).",
   equation: "L = mu0 l ln(b/a) / (2 pi)",
-  inputs: {
-    innerRadius: { dimension: "Length", description: "Radius of the inner conductor", domain: POSITIVE, example: 0.0005 },
-    outerRadius: { dimension: "Length", description: "Inner radius of the outer conductor", domain: POSITIVE, example: 0.00175 },
-    length: { dimension: "Length", description: "Length of the line", domain: POSITIVE, example: 1 },
-  },
+  inputs: [
+    { name: "innerRadius", dimension: "Length", description: "Radius of the inner conductor", domain: POSITIVE, example: 0.0005 },
+    { name: "outerRadius", dimension: "Length", description: "Inner radius of the outer conductor", domain: POSITIVE, example: 0.00175 },
+    { name: "length", dimension: "Length", description: "Length of the line", domain: POSITIVE, example: 1 },
+  ],
   output: { dimension: "Inductance", description: "External inductance" },
   relations: [{ rule: "innerRadius < outerRadius", holds: (x) => x.innerRadius < x.outerRadius }],
   source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "sec. 7.2.3 (inductance), coaxial cable" },
@@ -77,11 +77,11 @@ export const twoWireInductance = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Loop inductance of two long parallel round wires carrying opposite currents, from the exact external field of surface currents.",
   equation: "L = (mu0 l / pi) acosh(D / (2a))",
-  inputs: {
-    wireRadius: { dimension: "Length", description: "Radius of each wire", domain: POSITIVE, example: 0.0005 },
-    separation: { dimension: "Length", description: "Centre-to-centre distance of the wires", domain: POSITIVE, example: 0.005 },
-    length: { dimension: "Length", description: "Length of the line", domain: POSITIVE, example: 1 },
-  },
+  inputs: [
+    { name: "wireRadius", dimension: "Length", description: "Radius of each wire", domain: POSITIVE, example: 0.0005 },
+    { name: "separation", dimension: "Length", description: "Centre-to-centre distance of the wires", domain: POSITIVE, example: 0.005 },
+    { name: "length", dimension: "Length", description: "Length of the line", domain: POSITIVE, example: 1 },
+  ],
   output: { dimension: "Inductance", description: "External loop inductance" },
   relations: [{ rule: "separation > 2 wireRadius (the wires must not overlap)", holds: (x) => x.separation > 2 * x.wireRadius }],
   validity: [
@@ -124,10 +124,10 @@ export const straightWireInductance = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Partial self-inductance of a straight round wire at low frequency (uniform current), including the internal inductance.",
   equation: "L = mu0/(2 pi) [ l asinh(l/r) - sqrt(l^2 + r^2) + r + l/4 ]",
-  inputs: {
-    length: { dimension: "Length", description: "Length of the wire", domain: POSITIVE, example: 0.1 },
-    radius: { dimension: "Length", description: "Radius of the wire", domain: POSITIVE, example: 0.0005 },
-  },
+  inputs: [
+    { name: "length", dimension: "Length", description: "Length of the wire", domain: POSITIVE, example: 0.1 },
+    { name: "radius", dimension: "Length", description: "Radius of the wire", domain: POSITIVE, example: 0.0005 },
+  ],
   output: { dimension: "Inductance", description: "Partial self-inductance" },
   validity: [
     {
@@ -163,10 +163,10 @@ export const loopInductance = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Self-inductance of a single circular loop of thin round wire at low frequency.",
   equation: "L = mu0 R (ln(8R/a) - 7/4)",
-  inputs: {
-    loopRadius: { dimension: "Length", description: "Radius of the loop (to the wire centre)", domain: POSITIVE, example: 0.05 },
-    wireRadius: { dimension: "Length", description: "Radius of the wire", domain: POSITIVE, example: 0.0005 },
-  },
+  inputs: [
+    { name: "loopRadius", dimension: "Length", description: "Radius of the loop (to the wire centre)", domain: POSITIVE, example: 0.05 },
+    { name: "wireRadius", dimension: "Length", description: "Radius of the wire", domain: POSITIVE, example: 0.0005 },
+  ],
   output: { dimension: "Inductance", description: "Self-inductance" },
   relations: [{ rule: "wireRadius < loopRadius", holds: (x) => x.wireRadius < x.loopRadius }],
   validity: [

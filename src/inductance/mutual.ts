@@ -34,11 +34,11 @@ export const coaxialLoopsMutualInductance = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Mutual inductance of two coaxial circular filaments (thin loops), exact (Maxwell's formula).",
   equation: "M = mu0 sqrt(ab) [ (2/k - k) K(k) - (2/k) E(k) ], k^2 = 4ab/((a+b)^2 + d^2)",
-  inputs: {
-    radius1: { dimension: "Length", description: "Radius of the first circle", domain: POSITIVE, example: 0.05 },
-    radius2: { dimension: "Length", description: "Radius of the second circle", domain: POSITIVE, example: 0.05 },
-    distance: { dimension: "Length", description: "Axial distance between the planes of the circles", domain: NON_NEGATIVE, example: 0.05 },
-  },
+  inputs: [
+    { name: "radius1", dimension: "Length", description: "Radius of the first circle", domain: POSITIVE, example: 0.05 },
+    { name: "radius2", dimension: "Length", description: "Radius of the second circle", domain: POSITIVE, example: 0.05 },
+    { name: "distance", dimension: "Length", description: "Axial distance between the planes of the circles", domain: NON_NEGATIVE, example: 0.05 },
+  ],
   output: { dimension: "Inductance", description: "Mutual inductance" },
   relations: [
     { rule: "the circles must not coincide (distance > 0 or radius1 != radius2)", holds: (x) => x.distance > 0 || x.radius1 !== x.radius2 },
@@ -131,15 +131,15 @@ export const coaxialCoilsMutualInductance = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Mutual inductance of two coaxial single-layer coils treated as uniform current sheets (Maxwell's formula integrated over both windings).",
   equation: "M = (N1 N2/(l1 l2)) int int M0(a, b, z2 - z1) dz1 dz2",
-  inputs: {
-    turns1: { dimension: "Dimensionless", description: "Turns of the first coil", domain: COUNT, example: 100 },
-    radius1: { dimension: "Length", description: "Radius of the first coil", domain: POSITIVE, example: 0.01 },
-    length1: { dimension: "Length", description: "Winding length of the first coil", domain: POSITIVE, example: 0.02 },
-    turns2: { dimension: "Dimensionless", description: "Turns of the second coil", domain: COUNT, example: 50 },
-    radius2: { dimension: "Length", description: "Radius of the second coil", domain: POSITIVE, example: 0.015 },
-    length2: { dimension: "Length", description: "Winding length of the second coil", domain: POSITIVE, example: 0.01 },
-    distance: { dimension: "Length", description: "Axial distance between the coils' centres", domain: NON_NEGATIVE, example: 0.03 },
-  },
+  inputs: [
+    { name: "turns1", dimension: "Dimensionless", description: "Turns of the first coil", domain: COUNT, example: 100 },
+    { name: "radius1", dimension: "Length", description: "Radius of the first coil", domain: POSITIVE, example: 0.01 },
+    { name: "length1", dimension: "Length", description: "Winding length of the first coil", domain: POSITIVE, example: 0.02 },
+    { name: "turns2", dimension: "Dimensionless", description: "Turns of the second coil", domain: COUNT, example: 50 },
+    { name: "radius2", dimension: "Length", description: "Radius of the second coil", domain: POSITIVE, example: 0.015 },
+    { name: "length2", dimension: "Length", description: "Winding length of the second coil", domain: POSITIVE, example: 0.01 },
+    { name: "distance", dimension: "Length", description: "Axial distance between the coils' centres", domain: NON_NEGATIVE, example: 0.03 },
+  ],
   output: { dimension: "Inductance", description: "Mutual inductance" },
   validity: [
     {
@@ -177,11 +177,11 @@ export const couplingCoefficient = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Magnetic coupling coefficient k = M / sqrt(L1 L2) of two inductors.",
   equation: "k = M / sqrt(L1 L2)",
-  inputs: {
-    mutualInductance: { dimension: "Inductance", description: "Mutual inductance (sign by the dot convention)", example: 5e-6 },
-    inductance1: { dimension: "Inductance", description: "Self-inductance of the first inductor", domain: POSITIVE, example: 1e-5 },
-    inductance2: { dimension: "Inductance", description: "Self-inductance of the second inductor", domain: POSITIVE, example: 1e-5 },
-  },
+  inputs: [
+    { name: "mutualInductance", dimension: "Inductance", description: "Mutual inductance (sign by the dot convention)", example: 5e-6 },
+    { name: "inductance1", dimension: "Inductance", description: "Self-inductance of the first inductor", domain: POSITIVE, example: 1e-5 },
+    { name: "inductance2", dimension: "Inductance", description: "Self-inductance of the second inductor", domain: POSITIVE, example: 1e-5 },
+  ],
   output: { dimension: "Dimensionless", description: "Coupling coefficient" },
   validity: [
     {

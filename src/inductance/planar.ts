@@ -22,11 +22,11 @@ const WHEELER = {
   octagonal: [2.25, 3.55],
 } as const;
 
-const SPIRAL_INPUTS = {
-  turns: { ...TURNS, example: 5 },
-  outerDiameter: { dimension: "Length", description: "Outer diameter of the spiral (across flats for polygons)", domain: POSITIVE, example: 0.0004 },
-  innerDiameter: { dimension: "Length", description: "Inner diameter of the spiral (across flats for polygons)", domain: NON_NEGATIVE, example: 0.0002 },
-} as const;
+const SPIRAL_INPUTS = [
+  { name: "turns", ...TURNS, example: 5 },
+  { name: "outerDiameter", dimension: "Length", description: "Outer diameter of the spiral (across flats for polygons)", domain: POSITIVE, example: 0.0004 },
+  { name: "innerDiameter", dimension: "Length", description: "Inner diameter of the spiral (across flats for polygons)", domain: NON_NEGATIVE, example: 0.0002 },
+] as const;
 
 const SPIRAL_RELATIONS = [
   { rule: "innerDiameter < outerDiameter", holds: (x: { innerDiameter: number; outerDiameter: number }) => x.innerDiameter < x.outerDiameter },
@@ -70,10 +70,10 @@ export const planarSpiralInductance = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Inductance of a square, hexagonal, octagonal or circular planar spiral from the current-sheet expression of Mohan et al. (1999); typical error 2-3 % for spacing up to three trace widths.",
   equation: "L = (mu0 n^2 d_avg c1 / 2) [ ln(c2/rho) + c3 rho + c4 rho^2 ]",
-  inputs: {
+  inputs: [
     ...SPIRAL_INPUTS,
-    shape: { choices: ["square", "hexagonal", "octagonal", "circular"], description: "Layout shape of the spiral", default: "square", example: "square" },
-  },
+    { name: "shape", choices: ["square", "hexagonal", "octagonal", "circular"], description: "Layout shape of the spiral", default: "square", example: "square" },
+  ],
   output: { dimension: "Inductance", description: "Self-inductance" },
   relations: SPIRAL_RELATIONS,
   validity: [SINGLE_TURN],
@@ -112,10 +112,10 @@ export const planarSpiralInductanceWheeler = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Inductance of a square, hexagonal or octagonal planar spiral from the modified Wheeler expression of Mohan et al. (1999); typical error 2-3 % for spacing up to three trace widths.",
   equation: "L = K1 mu0 n^2 d_avg / (1 + K2 rho)",
-  inputs: {
+  inputs: [
     ...SPIRAL_INPUTS,
-    shape: { choices: ["square", "hexagonal", "octagonal"], description: "Layout shape of the spiral", default: "square", example: "square" },
-  },
+    { name: "shape", choices: ["square", "hexagonal", "octagonal"], description: "Layout shape of the spiral", default: "square", example: "square" },
+  ],
   output: { dimension: "Inductance", description: "Self-inductance" },
   relations: SPIRAL_RELATIONS,
   validity: [SINGLE_TURN],

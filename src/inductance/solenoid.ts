@@ -41,10 +41,10 @@ export const nagaokaCoefficient = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Correction factor K (0 < K < 1) for a finite single-layer solenoid (current sheet) relative to the long-solenoid formula.",
   equation: "K = 4/(3 pi k') [ (k'^2/k^2)(K(k) - E(k)) + E(k) - k ], k^2 = 4r^2/(4r^2 + l^2)",
-  inputs: {
-    radius: { dimension: "Length", description: "Coil radius (to the wire centre)", domain: POSITIVE, example: 0.01 },
-    length: { dimension: "Length", description: "Winding length", domain: POSITIVE, example: 0.02 },
-  },
+  inputs: [
+    { name: "radius", dimension: "Length", description: "Coil radius (to the wire centre)", domain: POSITIVE, example: 0.01 },
+    { name: "length", dimension: "Length", description: "Winding length", domain: POSITIVE, example: 0.02 },
+  ],
   output: { dimension: "Dimensionless", description: "Nagaoka coefficient" },
   source: NAGAOKA_SOURCE,
   compute: (x) => nagaoka(x.radius, x.length),
@@ -71,11 +71,11 @@ export const solenoidInductance = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Inductance of a finite single-layer solenoid as a uniform cylindrical current sheet, exact through Nagaoka's coefficient, for any length-to-diameter ratio.",
   equation: "L = mu0 N^2 pi r^2 K(2r/l) / l",
-  inputs: {
-    turns: { ...TURNS, example: 100 },
-    radius: { dimension: "Length", description: "Coil radius (to the wire centre)", domain: POSITIVE, example: 0.01 },
-    length: { dimension: "Length", description: "Winding length", domain: POSITIVE, example: 0.02 },
-  },
+  inputs: [
+    { name: "turns", ...TURNS, example: 100 },
+    { name: "radius", dimension: "Length", description: "Coil radius (to the wire centre)", domain: POSITIVE, example: 0.01 },
+    { name: "length", dimension: "Length", description: "Winding length", domain: POSITIVE, example: 0.02 },
+  ],
   output: { dimension: "Inductance", description: "Self-inductance" },
   validity: [
     {
@@ -109,11 +109,11 @@ export const idealSolenoidInductance = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Inductance of a solenoid from the infinitely long solenoid's uniform field; end effects neglected.",
   equation: "L = mu0 N^2 pi r^2 / l",
-  inputs: {
-    turns: { ...TURNS, example: 1000 },
-    radius: { dimension: "Length", description: "Coil radius", domain: POSITIVE, example: 0.01 },
-    length: { dimension: "Length", description: "Winding length", domain: POSITIVE, example: 1 },
-  },
+  inputs: [
+    { name: "turns", ...TURNS, example: 1000 },
+    { name: "radius", dimension: "Length", description: "Coil radius", domain: POSITIVE, example: 0.01 },
+    { name: "length", dimension: "Length", description: "Winding length", domain: POSITIVE, example: 1 },
+  ],
   output: { dimension: "Inductance", description: "Self-inductance" },
   validity: [
     {
@@ -148,11 +148,11 @@ export const wheelerSolenoidInductance = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Wheeler's simple approximation for a single-layer air-core coil; within 1 % when the length exceeds 0.8 radius.",
   equation: "L = (1e-7 H/0.0254 m) N^2 r^2 / (l + 0.9 r)",
-  inputs: {
-    turns: { ...TURNS, example: 100 },
-    radius: { dimension: "Length", description: "Coil radius (to the wire centre)", domain: POSITIVE, example: 0.01 },
-    length: { dimension: "Length", description: "Winding length", domain: POSITIVE, example: 0.02 },
-  },
+  inputs: [
+    { name: "turns", ...TURNS, example: 100 },
+    { name: "radius", dimension: "Length", description: "Coil radius (to the wire centre)", domain: POSITIVE, example: 0.01 },
+    { name: "length", dimension: "Length", description: "Winding length", domain: POSITIVE, example: 0.02 },
+  ],
   output: { dimension: "Inductance", description: "Self-inductance" },
   validity: [
     {
@@ -188,12 +188,12 @@ export const multilayerCoilInductance = /* @__PURE__ */ defineFormula({
   category: "inductance",
   description: "Wheeler's approximation for a multilayer air-core coil of rectangular winding section; about 1 % when 6a, 9b and 10c are comparable.",
   equation: "L = (0.8e-6 H/0.0254 m) N^2 a^2 / (6a + 9b + 10c)",
-  inputs: {
-    turns: { ...TURNS, example: 200 },
-    meanRadius: { dimension: "Length", description: "Mean radius of the winding", domain: POSITIVE, example: 0.01 },
-    length: { dimension: "Length", description: "Winding length (axial)", domain: POSITIVE, example: 0.01 },
-    depth: { dimension: "Length", description: "Winding depth (radial build)", domain: POSITIVE, example: 0.006 },
-  },
+  inputs: [
+    { name: "turns", ...TURNS, example: 200 },
+    { name: "meanRadius", dimension: "Length", description: "Mean radius of the winding", domain: POSITIVE, example: 0.01 },
+    { name: "length", dimension: "Length", description: "Winding length (axial)", domain: POSITIVE, example: 0.01 },
+    { name: "depth", dimension: "Length", description: "Winding depth (radial build)", domain: POSITIVE, example: 0.006 },
+  ],
   output: { dimension: "Inductance", description: "Self-inductance" },
   relations: [
     { rule: "depth < 2 meanRadius (the winding's inner radius meanRadius - depth/2 must be positive)", holds: (x) => x.depth < 2 * x.meanRadius },

@@ -10,12 +10,12 @@ const ratio = defineFormula({
   category: "test",
   description: "Ratio of two lengths, for core tests.",
   equation: "r = a / b",
-  inputs: {
-    shorter: { dimension: "Length", description: "a", domain: POSITIVE, example: 1 },
-    longer: { dimension: "Length", description: "b", domain: POSITIVE, example: 2 },
-    factor: { dimension: "Dimensionless", description: "k", default: 1, domain: { min: 1, max: 10 }, example: 2 },
-    mode: { choices: ["plain", "doubled"], description: "m", default: "plain", example: "plain" },
-  },
+  inputs: [
+    { name: "shorter", dimension: "Length", description: "a", domain: POSITIVE, example: 1 },
+    { name: "longer", dimension: "Length", description: "b", domain: POSITIVE, example: 2 },
+    { name: "factor", dimension: "Dimensionless", description: "k", default: 1, domain: { min: 1, max: 10 }, example: 2 },
+    { name: "mode", choices: ["plain", "doubled"], description: "m", default: "plain", example: "plain" },
+  ],
   output: { dimension: "Dimensionless", description: "ratio" },
   relations: [{ rule: "shorter < longer", holds: (x) => x.shorter < x.longer }],
   validity: [{ code: "close", when: (x) => x.shorter > 0.9 * x.longer, message: "nearly equal" }],
@@ -45,6 +45,32 @@ describe("a defined formula", () => {
     );
   });
 
+  it("sends legal inputs whose sum overflows down the careful path and still computes them", () => {
+    // The fast path tests finiteness of all inputs at once through their sum.
+    const big = Number.MAX_VALUE;
+    expect(ratio({ shorter: m(big / 2), longer: m(big), factor: 1 })).toBe(0.5);
+    expect(ratio({ shorter: m(big * 0.9), longer: m(big) })).toBeCloseTo(0.9, 15);
+  });
+
+  it("holds its inputs by name in declaration order, and refuses a name declared twice", () => {
+    expect(Object.keys(ratio.definition.inputs)).toEqual(["shorter", "longer", "factor", "mode"]);
+    expect(ratio.definition.inputs.longer.description).toBe("b");
+    // Null prototype: no Object.prototype member can pass for an input.
+    expect("toString" in ratio.definition.inputs).toBe(false);
+    expect(() =>
+      defineFormula({
+        id: "testTwice", title: "t", category: "test", description: "t", equation: "y = a",
+        inputs: [
+          { name: "a", dimension: "Length", description: "a", example: 1 },
+          { name: "a", dimension: "Length", description: "again", example: 1 },
+        ],
+        output: { dimension: "Length", description: "a" },
+        source: { authors: "common practice", title: "test" },
+        compute: (x) => x.a,
+      }),
+    ).toThrow(/input "a" is declared twice/);
+  });
+
   it("reports each kind of bad input with its code and the input's name", () => {
     expect(codeOf(() => ratio({ shorter: m(-1), longer: m(4) }))).toBe("out_of_domain");
     expect(codeOf(() => ratio({ shorter: m(NaN), longer: m(4) }))).toBe("not_finite");
@@ -72,7 +98,7 @@ describe("a defined formula", () => {
     expect(codeOf(() => ratio({ shorter: m(1e300), longer: m(1e301), factor: 10 }))).toBeUndefined();
     const overflow = defineFormula({
       id: "testSquare", title: "t", category: "test", description: "square", equation: "a^2",
-      inputs: { a: { dimension: "Length", description: "a", example: 1 } },
+      inputs: [{ name: "a", dimension: "Length", description: "a", example: 1 }],
       output: { dimension: "Area", description: "a^2" },
       source: { authors: "common practice", title: "test" },
       compute: (x) => x.a * x.a,

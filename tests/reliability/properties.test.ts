@@ -207,10 +207,10 @@ function depth(id: string, compute: (x: { frequency: number; conductivity: numbe
     category: "fixture",
     description: "Test fixture with or without a deliberate unit slip.",
     equation: "-",
-    inputs: {
-      frequency: { dimension: "Frequency", description: "frequency", domain: POSITIVE, example: 1e6 },
-      conductivity: { dimension: "Conductivity", description: "conductivity", domain: POSITIVE, example: 5.8e7 },
-    },
+    inputs: [
+      { name: "frequency", dimension: "Frequency", description: "frequency", domain: POSITIVE, example: 1e6 },
+      { name: "conductivity", dimension: "Conductivity", description: "conductivity", domain: POSITIVE, example: 5.8e7 },
+    ],
     output: { dimension: "Length", description: "depth" },
     source: { authors: "test fixture", title: "not a published formula" },
     compute,

@@ -55,14 +55,14 @@ describe("solve on the parallel-plate capacitor", () => {
 // Tool tests on small formulas defined here: mathematical identities, not physics.
 const parabola = defineFormula({
   id: "testParabola", title: "test", category: "test", description: "test", equation: "y = (x - 3)^2",
-  inputs: { x: { dimension: "Length", description: "x", example: 1 } },
+  inputs: [{ name: "x", dimension: "Length", description: "x", example: 1 }],
   output: { dimension: "Area", description: "y" },
   source: { authors: "test", title: "test" },
   compute: (v) => (v.x - 3) ** 2,
 });
 const quadraticCoil = defineFormula({
   id: "testTurns", title: "test", category: "test", description: "test", equation: "y = 1e-6 N^2",
-  inputs: { turns: { dimension: "Dimensionless", description: "turns", domain: COUNT, example: 10 }, scale: { dimension: "Dimensionless", description: "k", default: 1e-6, domain: POSITIVE } },
+  inputs: [{ name: "turns", dimension: "Dimensionless", description: "turns", domain: COUNT, example: 10 }, { name: "scale", dimension: "Dimensionless", description: "k", default: 1e-6, domain: POSITIVE }],
   output: { dimension: "Inductance", description: "y" },
   cautions: [{ code: "always", message: "a caution that always applies" }],
   source: { authors: "test", title: "test" },
@@ -70,7 +70,7 @@ const quadraticCoil = defineFormula({
 });
 const plateau = defineFormula({
   id: "testPlateau", title: "test", category: "test", description: "test", equation: "y = min(x, 1)",
-  inputs: { x: { dimension: "Dimensionless", description: "x", domain: POSITIVE, example: 0.5 } },
+  inputs: [{ name: "x", dimension: "Dimensionless", description: "x", domain: POSITIVE, example: 0.5 }],
   output: { dimension: "Dimensionless", description: "y" },
   source: { authors: "test", title: "test" },
   compute: (v) => Math.min(v.x, 1),

@@ -5,10 +5,10 @@ import { defineFormula, FormulaError, POSITIVE, sweep } from "../../src/index.js
 // returns Infinity on another, the two ways a point can fail inside compute.
 const picky = defineFormula({
   id: "testPicky", title: "t", category: "test", description: "fails on purpose", equation: "y = a b",
-  inputs: {
-    a: { dimension: "Length", description: "a", domain: POSITIVE, example: 1 },
-    b: { dimension: "Length", description: "b", domain: POSITIVE, example: 1 },
-  },
+  inputs: [
+    { name: "a", dimension: "Length", description: "a", domain: POSITIVE, example: 1 },
+    { name: "b", dimension: "Length", description: "b", domain: POSITIVE, example: 1 },
+  ],
   output: { dimension: "Area", description: "a b" },
   source: { authors: "common practice", title: "test" },
   compute: (x) => {
@@ -56,7 +56,7 @@ describe("a sweep where code generation is forbidden (strict Content-Security-Po
     // Same physics as `picky`, other input names, so no generated loop is cached for it.
     const pickyToo = defineFormula({
       id: "testPickyToo", title: "t", category: "test", description: "fails on purpose", equation: "y = p q",
-      inputs: { p: picky.definition.inputs.a, q: picky.definition.inputs.b },
+      inputs: [{ ...picky.definition.inputs.a, name: "p" }, { ...picky.definition.inputs.b, name: "q" }],
       output: picky.definition.output,
       source: picky.definition.source,
       compute: (x) => picky.definition.compute({ a: x.p, b: x.q }),

@@ -108,7 +108,7 @@ describe("tolerance on the parallel-plate capacitor", () => {
 describe("tolerance's treatment of non-monotonic outputs", () => {
   const bump = defineFormula({
     id: "testBump", title: "test", category: "test", description: "test", equation: "y = 1 - x^2",
-    inputs: { x: { dimension: "Dimensionless", description: "x", example: 0 } },
+    inputs: [{ name: "x", dimension: "Dimensionless", description: "x", example: 0 }],
     output: { dimension: "Dimensionless", description: "y" },
     source: { authors: "test", title: "test" },
     compute: (v) => 1 - v.x * v.x,
@@ -126,7 +126,7 @@ describe("tolerance's treatment of non-monotonic outputs", () => {
 describe("tolerance when slopes at nominal mislead", () => {
   const product = defineFormula({
     id: "testProduct", title: "test", category: "test", description: "test", equation: "y = a b",
-    inputs: { a: { dimension: "Dimensionless", description: "a", example: 1 }, b: { dimension: "Dimensionless", description: "b", example: 1 } },
+    inputs: [{ name: "a", dimension: "Dimensionless", description: "a", example: 1 }, { name: "b", dimension: "Dimensionless", description: "b", example: 1 }],
     output: { dimension: "Dimensionless", description: "y" },
     source: { authors: "test", title: "test" },
     compute: (v) => v.a * v.b,
