@@ -37,7 +37,7 @@ export function buildFastPath(
     if (spec.vector) return undefined;
     if (spec.default !== undefined) lines.push(`if (v${i} === undefined) v${i} = ${numberLiteral(spec.default)};`);
     numbers.push(`v${i}`);
-    domainTests.push(...domainTest(`v${i}`, spec.domain));
+    domainTests.push(...domainBounds(`v${i}`, spec.domain));
   }
   if (numbers.length > 0) {
     lines.push(`if (${numbers.map((v) => `typeof ${v} !== "number"`).join(" || ")}) return slow(x);`);
@@ -69,8 +69,8 @@ function numberLiteral(v: number): string {
   return Object.is(v, -0) ? "-0" : String(v);
 }
 
-// Bounds only: NaN and infinities are caught by the shared finiteness test.
-function domainTest(v: string, d: Domain | undefined): string[] {
+/** Source text of the bound tests of a domain on variable `v` (finiteness is tested apart). */
+export function domainBounds(v: string, d: Domain | undefined): string[] {
   const parts: string[] = [];
   if (d?.min !== undefined) parts.push(`${v} ${d.minExclusive ? ">" : ">="} ${numberLiteral(d.min)}`);
   if (d?.max !== undefined) parts.push(`${v} ${d.maxExclusive ? "<" : "<="} ${numberLiteral(d.max)}`);

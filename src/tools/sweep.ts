@@ -1,7 +1,8 @@
 import { FormulaError } from "../core/errors.js";
 import type { AnyFormula, Formula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
-import type { InputSpecs, OutputSpec, QuantityInput } from "../core/spec.js";
+import { domainBounds } from "../core/fast-path.js";
+import type { Domain, InputSpecs, OutputSpec, QuantityInput } from "../core/spec.js";
 import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
 import type { QuantityValue } from "./tolerance.js";
 
@@ -36,6 +37,9 @@ export interface SweepAxis {
  * NaN appears here and nowhere else in the library: it marks a point that was
  * not computed (an input outside its domain, a relation broken, or a result out
  * of range). `computed[k]` is 1 where a value was computed, 0 where not.
+ *
+ * All the arrays are views into one ArrayBuffer (a sweep allocates once);
+ * `slice()` one to keep or transfer it apart from the others.
  */
 export interface SweepResult {
   readonly formula: string;
@@ -92,18 +96,36 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
     throw new FormulaError("invalid_argument", { formula: id, input: "vary", detail: "vary one or two inputs" });
   }
   const fixedRaw = spec.fixed ?? {};
-  const axes: SweepAxis[] = names.map((name) => {
+  const plans = names.map((name) => {
     const s = Object.hasOwn(specs, name) ? specs[name] : undefined;
     if (s === undefined) throw new FormulaError("unknown_input", { formula: id, input: name });
     if (!isScalarQuantity(s)) throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "only scalar quantity inputs can be swept" });
     if (typeof fixedRaw === "object" && fixedRaw !== null && Object.hasOwn(fixedRaw, name)) {
       throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "an input cannot be both swept and fixed" });
     }
-    return axisValues(id, name, s, (spec.vary as Record<string, SweepAxisSpec>)[name]!);
+    return axisPlan(id, name, s, (spec.vary as Record<string, SweepAxisSpec>)[name]!);
   });
-  const n0 = axes[0]!.values.length;
-  const n1 = axes.length === 2 ? axes[1]!.values.length : 1;
+  const n0 = plans[0]!.points;
+  const n1 = plans.length === 2 ? plans[1]!.points : 1;
   if (n0 * n1 > MAX_POINTS) throw new FormulaError("invalid_argument", { formula: id, input: "points", detail: `at most ${MAX_POINTS} points in all` });
+  const comps = def.output.components as readonly string[] | undefined;
+  const total = n0 * n1;
+  // Every array of the result is a view into one buffer: on small and medium
+  // sweeps each typed-array allocation costs more than computing its points
+  // (bench/sweep.ts), so a sweep allocates once.
+  const nc = comps?.length ?? 0;
+  const doubles = plans.reduce((sum, p) => sum + p.points, 0) + total * (1 + nc);
+  const buffer = new ArrayBuffer(doubles * 8 + total);
+  let offset = 0;
+  const take = (n: number): Float64Array => {
+    const view = new Float64Array(buffer, offset, n);
+    offset += n * 8;
+    return view;
+  };
+  const axes = plans.map((p) => fillAxis(p, take(p.points)));
+  const values = take(total);
+  const componentArrays = comps ? comps.map(() => take(total)) : undefined;
+  const computed = new Uint8Array(buffer, offset, total);
 
   const fixed = convertInputs(formula, fixedRaw, names);
   // Probe the fixed inputs with in-domain values of the swept ones: the first in-domain grid value.
@@ -114,11 +136,6 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
   }
   const b = bind(formula, fixed, probes);
   const x = b.x;
-  const comps = def.output.components as readonly string[] | undefined;
-  const total = n0 * n1;
-  const values = new Float64Array(total);
-  const computed = new Uint8Array(total);
-  const componentArrays = comps ? comps.map(() => new Float64Array(total)) : undefined;
   const relations = def.relations ?? [];
   const compute = def.compute as (x: unknown) => unknown;
   const name0 = axes[0]!.name;
@@ -127,33 +144,18 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
   const dom1 = name1 !== undefined ? (specs[name1] as QuantityInput).domain : undefined;
   const v0 = axes[0]!.values;
   const v1 = name1 !== undefined ? axes[1]!.values : new Float64Array(1);
-  // Domain checks once per axis value, not per point.
-  // Bounds hoisted into locals so the loop is plain comparisons (a call per value
-  // cost about as much as computing the formula). Open ends become +-Infinity,
-  // which every finite value passes; NaN fails every comparison.
-  const okMask = (vs: Float64Array, d: typeof dom0): Uint8Array => {
-    const m = new Uint8Array(vs.length);
-    const lo = d?.min ?? -Infinity;
-    const hi = d?.max ?? Infinity;
-    const loOpen = d?.minExclusive === true;
-    const hiOpen = d?.maxExclusive === true;
-    const whole = d?.integer === true;
-    for (let i = 0; i < vs.length; i++) {
-      const v = vs[i]!;
-      const ok = (loOpen ? v > lo : v >= lo) && (hiOpen ? v < hi : v <= hi) && v - v === 0 && (!whole || Number.isInteger(v));
-      m[i] = ok ? 1 : 0;
-    }
-    return m;
-  };
-  const ok0 = okMask(v0, dom0);
-  const ok1 = name1 !== undefined ? okMask(v1, dom1) : Uint8Array.of(1);
   const holds = relations.map((r) => r.holds) as ((x: unknown) => boolean)[];
-  const specialised = componentArrays === undefined ? specialisedLoop(Object.keys(x), name0, name1) : undefined;
-  const failed = specialised !== undefined
-    ? specialised(x, compute, holds, v0, v1, ok0, ok1, values, computed, FormulaError)
-    : componentArrays === undefined
-    ? scalarLoop(x, compute, holds, name0, name1, v0, v1, ok0, ok1, values, computed)
-    : componentLoop(x, compute, holds, name0, name1, v0, v1, ok0, ok1, values, computed, componentArrays);
+  const specialised = componentArrays === undefined ? specialisedLoop(Object.keys(x), holds.length, [name0, dom0], name1 === undefined ? undefined : [name1, dom1]) : undefined;
+  let failed: number;
+  if (specialised !== undefined) {
+    failed = specialised(x, compute, holds, v0, v1, values, computed, FormulaError);
+  } else {
+    const ok0 = okMask(v0, dom0);
+    const ok1 = name1 !== undefined ? okMask(v1, dom1) : Uint8Array.of(1);
+    failed = componentArrays === undefined
+      ? scalarLoop(x, compute, holds, name0, name1, v0, v1, ok0, ok1, values, computed)
+      : componentLoop(x, compute, holds, name0, name1, v0, v1, ok0, ok1, values, computed, componentArrays);
+  }
   return {
     formula: id,
     axes,
@@ -169,76 +171,121 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
   };
 }
 
+/**
+ * Which values of an axis are inside the input's domain, for the general loops.
+ * Bounds are hoisted into locals so the loop is plain comparisons. NaN fails
+ * every comparison.
+ */
+function okMask(vs: Float64Array, d: Domain | undefined): Uint8Array {
+  const m = new Uint8Array(vs.length);
+  const lo = d?.min ?? -Infinity;
+  const hi = d?.max ?? Infinity;
+  const loOpen = d?.minExclusive === true;
+  const hiOpen = d?.maxExclusive === true;
+  const whole = d?.integer === true;
+  for (let i = 0; i < vs.length; i++) {
+    const v = vs[i]!;
+    const ok = (loOpen ? v > lo : v >= lo) && (hiOpen ? v < hi : v <= hi) && v - v === 0 && (!whole || Number.isInteger(v));
+    m[i] = ok ? 1 : 0;
+  }
+  return m;
+}
+
 type Loop = (
   x: Record<string, unknown>, compute: (x: unknown) => unknown, holds: ((x: unknown) => boolean)[],
-  v0: Float64Array, v1: Float64Array, ok0: Uint8Array, ok1: Uint8Array, values: Float64Array, computed: Uint8Array,
-  errorClass: typeof FormulaError,
+  v0: Float64Array, v1: Float64Array, values: Float64Array, computed: Uint8Array, errorClass: typeof FormulaError,
 ) => number;
 const loops = new Map<string, Loop | null>();
 
 /**
- * The scalar loop generated for one formula's input names, so the inputs object
- * is an object literal of fixed shape and the swept inputs are stored by
- * literal property names, and the point loop itself has no try/catch (a
- * FormulaError thrown by compute leaves the inner loop, is recorded for that
- * point, and the loop resumes after it). Engines optimise that like
- * hand-written code; stores through a variable key (`x[name] = v`) and a
- * try/catch per point cost several times more (bench/sweep.ts). Undefined
- * where `new Function` is not allowed (strict Content-Security-Policy);
- * `scalarLoop` below is the general fallback.
+ * The scalar loop generated for one formula's input names and swept inputs:
+ * the inputs object is a literal of fixed shape, the swept inputs are stored
+ * and domain-checked by literal names and bounds, the relations are called one
+ * by one, a one-axis sweep is a single loop, and the point loop has no
+ * try/catch (a FormulaError thrown by compute leaves the loop, is recorded for
+ * that point, and the loop resumes after it). Engines optimise that like
+ * hand-written code; stores through a variable key (`x[name] = v`), a lookup
+ * per point in a domain mask and a try/catch per point each cost about as much
+ * as the formula (bench/sweep.ts). Undefined where `new Function` is not
+ * allowed (strict Content-Security-Policy); `scalarLoop` below is the general
+ * fallback.
  */
-function specialisedLoop(names: readonly string[], name0: string, name1: string | undefined): Loop | undefined {
-  const key = `${names.join(",")}|${name0}|${name1 ?? ""}`;
+function specialisedLoop(
+  names: readonly string[], nRelations: number,
+  axis0: readonly [string, Domain | undefined], axis1: readonly [string, Domain | undefined] | undefined,
+): Loop | undefined {
+  const key = JSON.stringify([names, nRelations, axis0, axis1 ?? null]);
   const hit = loops.get(key);
   if (hit !== undefined) return hit ?? undefined;
   const ident = /^[A-Za-z_$][A-Za-z0-9_$]*$/;
   let made: Loop | null = null;
   if (names.every((n) => ident.test(n))) {
     const lit = names.map((n) => `${n}: x.${n}`).join(", ");
-    const body = `
-      // The leading key gives this object a hidden class of its own. The formula's
-      // definition has an object literal with exactly the input names (its inputs),
-      // holding objects; a literal with the same keys in the same order shares that
-      // hidden class, whose fields then hold any value, and every number stored
-      // into them is a fresh heap allocation. Measured: 41 -> 18 ns per point.
-      const o = { $sweep: 0, ${lit} };
-      const n0 = v0.length, n1 = ${name1 === undefined ? "1" : "v1.length"}, nRel = holds.length;
-      const pos = new Int32Array(2); // the point being computed, for resuming after a throw
-      let failed = 0;
-      function points(i0, j0) {
-        for (let i = i0; i < n0; i++) {
-          o.${name0} = v0[i];
-          for (let j = i === i0 ? j0 : 0; j < n1; j++) {
-            const k = i * n1 + j;
-            ${name1 === undefined ? "" : `o.${name1} = v1[j];`}
-            let ok = (ok0[i] & ok1[j]) === 1;
-            for (let r = 0; ok && r < nRel; r++) ok = holds[r](o);
-            if (ok) {
-              pos[0] = i; pos[1] = j;
-              const out = compute(o);
-              if (typeof out === "number" && out - out === 0) { values[k] = out; computed[k] = 1; continue; }
-            }
-            values[k] = NaN;
-            failed++;
-          }
+    // Axis values are finite (from, to and the spacing are), so only the bounds are tested.
+    const inDomain = (v: string, d: Domain | undefined): string => ["true", ...domainBounds(v, d)].join(" && ");
+    const relations = Array.from({ length: nRelations }, (_, r) => ` && h${r}(o)`).join("");
+    const point = (k: string) => `
+          const out = compute(o);
+          if (typeof out === "number" && out - out === 0) { values[${k}] = out; computed[${k}] = 1; continue; }`;
+    const [name0, dom0] = axis0;
+    const loop = axis1 === undefined
+      ? `
+      for (let i = start; i < n0; i++) {
+        const a = v0[i];
+        o.${name0} = a;
+        if (${inDomain("a", dom0)}${relations}) {${point("i")}
         }
+        values[i] = NaN;
+        failed++;
+      }`
+      : `
+      for (let i = (start / n1) | 0; i < n0; i++) {
+        const a = v0[i];
+        o.${name0} = a;
+        const ok0 = ${inDomain("a", dom0)};
+        for (let j = i === ((start / n1) | 0) ? start % n1 : 0; j < n1; j++) {
+          const k = i * n1 + j;
+          const b = v1[j];
+          o.${axis1[0]} = b;
+          if (ok0 && ${inDomain("b", axis1[1])}${relations}) {${point("k")}
+          }
+          values[k] = NaN;
+          failed++;
+        }
+      }`;
+    const body = `
+      // The leading key gives this object a hidden class of its own: a caller's
+      // object with exactly the input names (say unit strings for evaluate) would
+      // otherwise share it, and numbers stored into fields that also held strings
+      // are each a fresh heap allocation. Measured: 41 -> 18 ns per point.
+      const o = { $sweep: 0, ${lit} };
+      const n0 = v0.length, n1 = v1.length;
+      ${Array.from({ length: nRelations }, (_, r) => `const h${r} = holds[${r}];`).join(" ")}
+      let failed = 0;
+      function points(start) {${loop}
         return true;
       }
-      let i0 = 0, j0 = 0;
+      let start = 0;
       for (;;) {
         try {
-          if (points(i0, j0)) return failed;
+          if (points(start)) return failed;
         } catch (e) {
           if (!(e instanceof errorClass)) throw e;
-          const i = pos[0], j = pos[1];
-          values[i * n1 + j] = NaN;
+          // Points are written in order and the buffer starts zeroed: every point
+          // before the one that threw holds a value (computed = 1) or NaN, so that
+          // point is the first one after \`start\` still 0 and not computed. Found by
+          // this scan instead of recording each point's index, which cost a
+          // third of the loop's time.
+          let at = start;
+          while (computed[at] === 1 || values[at] !== 0) at++;
+          values[at] = NaN;
           failed++;
-          if (j + 1 < n1) { i0 = i; j0 = j + 1; } else { i0 = i + 1; j0 = 0; }
+          start = at + 1;
         }
       }`;
     try {
       // eslint-disable-next-line @typescript-eslint/no-implied-eval
-      made = new Function("x", "compute", "holds", "v0", "v1", "ok0", "ok1", "values", "computed", "errorClass", body) as Loop;
+      made = new Function("x", "compute", "holds", "v0", "v1", "values", "computed", "errorClass", body) as Loop;
     } catch {
       made = null;
     }
@@ -328,7 +375,16 @@ function componentLoop(
   return failed;
 }
 
-function axisValues(id: string, name: string, spec: QuantityInput, a: SweepAxisSpec): SweepAxis {
+interface AxisPlan {
+  readonly name: string;
+  readonly spec: QuantityInput;
+  readonly from: number;
+  readonly to: number;
+  readonly points: number;
+  readonly scale: "linear" | "log";
+}
+
+function axisPlan(id: string, name: string, spec: QuantityInput, a: SweepAxisSpec): AxisPlan {
   if (typeof a !== "object" || a === null) {
     throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "an axis is { from, to, points, scale }" });
   }
@@ -345,27 +401,29 @@ function axisValues(id: string, name: string, spec: QuantityInput, a: SweepAxisS
   if (scale === "log" && !(from * to > 0)) {
     throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "a log sweep needs from and to of the same sign, not zero" });
   }
-  const values = new Float64Array(points);
-  const last = points - 1;
-  // Branches hoisted out of the loops: this runs once per grid value.
+  return { name, spec, from, to, points, scale };
+}
+
+function fillAxis(p: AxisPlan, values: Float64Array): SweepAxis {
+  const { from, to, scale } = p;
+  const last = p.points - 1;
+  // Branches hoisted out of the loops: this runs once per grid value. A multiply
+  // per value, not a divide: the step's rounding error is far below the spacing,
+  // and both ends are set exactly below.
   if (scale === "log") {
     // Log spacing by exp of interpolated logs (sign carried separately).
     const sign = Math.sign(from);
     const la = Math.log(Math.abs(from));
-    const lb = Math.log(Math.abs(to));
-    for (let i = 1; i < last; i++) {
-      const t = i / last;
-      values[i] = sign * Math.exp(la * (1 - t) + lb * t);
-    }
+    const step = (Math.log(Math.abs(to)) - la) / last;
+    for (let i = 1; i < last; i++) values[i] = sign * Math.exp(la + i * step);
   } else {
-    const span = to - from;
-    for (let i = 1; i < last; i++) values[i] = from + span * (i / last);
+    const step = (to - from) / last;
+    for (let i = 1; i < last; i++) values[i] = from + i * step;
   }
-  // Ends exact.
   values[0] = from;
   if (last > 0) values[last] = to;
-  if (spec.domain?.integer) for (let i = 0; i < points; i++) values[i] = Math.round(values[i]!);
-  return { name, unit: siUnit(spec.dimension), scale, values };
+  if (p.spec.domain?.integer) for (let i = 0; i < p.points; i++) values[i] = Math.round(values[i]!);
+  return { name: p.name, unit: siUnit(p.spec.dimension), scale, values };
 }
 
 // ---- export ----

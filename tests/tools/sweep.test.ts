@@ -127,4 +127,56 @@ describe("sweeps of every registry formula", () => {
     }
     expect(checked).toBeGreaterThan(0);
   });
+
+  it("equal individual evaluations over two-axis grids that cross domain bounds and relations", () => {
+    let checked = 0;
+    let refused = 0;
+    for (const f of listFormulas()) {
+      const specs = f.definition.inputs as Record<string, InputSpec>;
+      const ex: Record<string, unknown> = {};
+      for (const [n, s] of Object.entries(specs)) if (s.example !== undefined) ex[n] = s.example;
+      const swept = Object.entries(specs).filter(([, s]) => !("choices" in s) && !s.vector && typeof s.example === "number").map(([n]) => n);
+      if (swept.length < 2) continue;
+      const [a, b] = swept as [string, string];
+      const { [a]: _a, [b]: _b, ...fixed } = ex;
+      // From below zero to past twice the example: crosses lower bounds, and the
+      // relations between the two inputs somewhere in the grid.
+      const axis = (n: string) => {
+        const e = ex[n] as number;
+        return e === 0 ? { from: -1, to: 1, points: 5 } : { from: -0.5 * e, to: 2.5 * e, points: 7 };
+      };
+      const r = sweep(f as never, { vary: { [a]: axis(a), [b]: axis(b) }, fixed } as never);
+      const n1 = r.axes[1]!.values.length;
+      for (let k = 0; k < r.computed.length; k++) {
+        const va = r.axes[0]!.values[Math.floor(k / n1)]!;
+        const vb = r.axes[1]!.values[k % n1]!;
+        let single: number | readonly number[] | undefined;
+        try {
+          single = evaluate(f.id, { ...fixed, [a]: va, [b]: vb }).value;
+        } catch (err) {
+          expect(err).toBeInstanceOf(FormulaError);
+        }
+        const label = `${f.id} ${a} = ${va}, ${b} = ${vb}`;
+        expect(r.computed[k], label).toBe(single === undefined ? 0 : 1);
+        if (single === undefined) {
+          expect(Number.isNaN(r.output.values[k]), label).toBe(true);
+          refused++;
+        } else {
+          expect(r.output.values[k], label).toBe(typeof single === "number" ? single : single[0]);
+          checked++;
+        }
+      }
+    }
+    expect(checked).toBeGreaterThan(1000);
+    expect(refused).toBeGreaterThan(100);
+  });
+
+  it("returns every array as a view into one buffer", () => {
+    const r = sweep(parallelPlateCapacitance, { vary: { gap: { from: 1e-4, to: 1e-3, points: 3 }, area: { from: 1e-4, to: 1e-3, points: 2 } } });
+    expect(r.computed.buffer).toBe(r.output.values.buffer);
+    expect(r.axes[0]!.values.buffer).toBe(r.output.values.buffer);
+    expect([...r.axes[1]!.values]).toEqual([1e-4, 1e-3]);
+    expect(r.output.values.length).toBe(6);
+    expect(r.computed.length).toBe(6);
+  });
 });
