@@ -16,6 +16,7 @@ export function buildFastPath(
   compute: (x: never) => unknown,
   relations: readonly { holds: (x: never) => boolean }[],
   slow: (x: unknown) => unknown,
+  Inputs: InputsClass,
 ): ((x: unknown) => unknown) | undefined {
   const names = Object.keys(inputs);
   const lines: string[] = ['if (typeof x !== "object" || x === null) return slow(x);'];
@@ -25,7 +26,6 @@ export function buildFastPath(
   for (let i = 0; i < names.length; i++) {
     const name = names[i]!;
     const spec = inputs[name]!;
-    if (!/^[A-Za-z_][A-Za-z0-9_]*$/.test(name)) return undefined;
     const key = JSON.stringify(name);
     lines.push(`let v${i} = x[${key}];`);
     if ("choices" in spec) {
@@ -47,20 +47,47 @@ export function buildFastPath(
     lines.push(`const finite = ${numbers.join(" + ")};`);
     lines.push(`if (finite - finite !== 0${domainTests.map((t) => ` || !(${t})`).join("")}) return slow(x);`);
   }
-  // "$fast" gives `o` a hidden class of its own: the definition's `inputs` literal
-  // has exactly these keys, and sharing its class would box every number stored
-  // here (see src/tools/sweep.ts; measured 8.2 -> 7.5 ns per typed call).
-  lines.push(`const o = { $fast: 0, ${names.map((n, i) => `${JSON.stringify(n)}: v${i}`).join(", ")} };`);
+  lines.push(`const o = new Inputs(${names.map((_, i) => `v${i}`).join(", ")});`);
   relations.forEach((_, i) => lines.push(`if (!relations[${i}].holds(o)) return slow(x);`));
   lines.push("const r = compute(o);");
   lines.push('if (typeof r !== "number" || r - r !== 0) return slow(x);');
   lines.push("return r;");
   try {
     // eslint-disable-next-line @typescript-eslint/no-implied-eval
-    const factory = new Function("compute", "relations", "slow", "choices", `return function fast(x) {\n${lines.join("\n")}\n};`);
-    return factory(compute, relations, slow, choices) as (x: unknown) => unknown;
+    const factory = new Function("compute", "relations", "slow", "choices", "Inputs", `return function fast(x) {\n${lines.join("\n")}\n};`);
+    return factory(compute, relations, slow, choices, Inputs) as (x: unknown) => unknown;
   } catch {
     return undefined;
+  }
+}
+
+/** Constructor of a formula's compute-input objects: the values in declaration order. */
+export type InputsClass = new (...values: unknown[]) => Record<string, unknown>;
+
+/**
+ * The one constructor of a formula's compute-input objects. Every object handed
+ * to compute and to the relations (typed calls, evaluate, solve, tolerance,
+ * sweeps) is made by it, so they all share one hidden class and the engine's
+ * property reads in compute stay monomorphic (with one shape per caller they
+ * went polymorphic and a typed call slowed by a third). A class rather than an
+ * object literal, so that no caller's `{ area, gap, ... }` literal shares its
+ * hidden class (see InputList in spec.ts). Names are plain identifiers
+ * (checked by defineFormula).
+ */
+export function inputsClass(names: readonly string[]): InputsClass {
+  const params = names.map((_, i) => `v${i}`).join(", ");
+  const body = names.map((n, i) => `this.${n} = v${i};`).join(" ");
+  try {
+    // eslint-disable-next-line @typescript-eslint/no-implied-eval
+    return new Function(`return class Inputs { constructor(${params}) { ${body} } };`)() as InputsClass;
+  } catch {
+    // No code generation (strict Content-Security-Policy): the same names stored
+    // in the same order still give every instance one hidden class.
+    return class Inputs {
+      constructor(...values: unknown[]) {
+        for (let i = 0; i < names.length; i++) (this as Record<string, unknown>)[names[i]!] = values[i];
+      }
+    } as unknown as InputsClass;
   }
 }
 

@@ -1,6 +1,6 @@
 import { inDomain } from "./domain.js";
 import { FormulaError } from "./errors.js";
-import { buildFastPath } from "./fast-path.js";
+import { buildFastPath, inputsClass } from "./fast-path.js";
 import type {
   ComputeInputs, ComputeOutput, Detailed, Domain, FormulaDeclaration, FormulaDefinition, FormulaInputs, FormulaOutput,
   InputList, InputsByName, InputSpec, InputSpecs, NamedInput, Note, OutputSpec,
@@ -22,6 +22,12 @@ export interface Formula<I extends InputSpecs = InputSpecs, O extends OutputSpec
    * and returns the object `compute` takes. Shared by evaluate, solve, sweeps.
    */
   prepare(inputs: Readonly<Record<string, unknown>>): ComputeInputs<I>;
+  /**
+   * The object `compute` takes, from SI values by name (defaults filled, nothing
+   * checked). Tools that vary inputs in place start from it; every compute-input
+   * object has the one shape this makes.
+   */
+  inputsObject(values: Readonly<Record<string, unknown>>): ComputeInputs<I>;
   /** Computes from prepared inputs and checks the result is finite. */
   run(x: ComputeInputs<I>): ComputeOutput<O>;
   /** Warnings and cautions for prepared inputs and their result. */
@@ -63,20 +69,21 @@ export function defineFormula<const L extends InputList, const O extends OutputS
   const specs: readonly NamedInput[] = declaration.inputs;
   const names = specs.map((s) => s.name);
   const nComponents = def.output.components?.length ?? 0;
+  const Inputs = inputsClass(names);
 
   function prepare(raw: Readonly<Record<string, unknown>>): ComputeInputs<I> {
     if (typeof raw !== "object" || raw === null || Array.isArray(raw)) {
       throw new FormulaError("wrong_type", { formula: id, input: "inputs", value: raw, expected: "an object of named inputs" });
     }
     // A fresh object holding only the declared inputs, defaults filled.
-    const x: Record<string, unknown> = {};
+    const values: unknown[] = [];
     for (let i = 0; i < names.length; i++) {
       const n = names[i]!;
       const v = Object.hasOwn(raw, n) ? raw[n] : undefined;
-      x[n] = v === undefined ? specs[i]!.default : v;
-      checkInput(n, specs[i]!, x[n]);
+      values.push(v === undefined ? specs[i]!.default : v);
+      checkInput(n, specs[i]!, values[i]);
     }
-    const xs = x as ComputeInputs<I>;
+    const xs = new Inputs(...values) as ComputeInputs<I>;
     if (def.relations) {
       for (const r of def.relations) {
         if (!r.holds(xs)) throw new FormulaError("out_of_domain", { formula: id, rule: r.rule, detail: quoteInputs(xs) });
@@ -114,6 +121,10 @@ export function defineFormula<const L extends InputList, const O extends OutputS
     }
   }
 
+  function inputsObject(raw: Readonly<Record<string, unknown>>): ComputeInputs<I> {
+    return new Inputs(...names.map((n, i) => (Object.hasOwn(raw, n) && raw[n] !== undefined ? raw[n] : specs[i]!.default))) as ComputeInputs<I>;
+  }
+
   function run(x: ComputeInputs<I>): ComputeOutput<O> {
     const value = def.compute(x);
     if (nComponents === 0) {
@@ -143,7 +154,7 @@ export function defineFormula<const L extends InputList, const O extends OutputS
   }
 
   const checked = (inputs: unknown): unknown => run(prepare(inputs as Record<string, unknown>));
-  const fast = nComponents === 0 ? buildFastPath(def.inputs, def.compute, def.relations ?? [], checked) : undefined;
+  const fast = nComponents === 0 ? buildFastPath(def.inputs, def.compute, def.relations ?? [], checked, Inputs) : undefined;
   const formula = (fast ?? checked) as unknown as Formula<I, O>;
   const details = (inputs: FormulaInputs<I>): Detailed<FormulaOutput<O>> => {
     const x = prepare(inputs as Record<string, unknown>);
@@ -151,7 +162,7 @@ export function defineFormula<const L extends InputList, const O extends OutputS
     return { value: value as FormulaOutput<O>, ...notes(x, value) };
   };
   Object.defineProperty(formula, "name", { value: id });
-  Object.assign(formula, { id, definition: def, details, prepare, run, notes, [FORMULA]: true });
+  Object.assign(formula, { id, definition: def, details, prepare, inputsObject, run, notes, [FORMULA]: true });
   return formula;
 }
 
@@ -164,6 +175,8 @@ export function defineFormula<const L extends InputList, const O extends OutputS
 function byName(declaration: { readonly id: string; readonly inputs: InputList }): InputSpecs {
   const out: Record<string, InputSpec> = Object.create(null) as Record<string, InputSpec>;
   for (const spec of declaration.inputs) {
+    // Whole words: they become property names in generated code (see inputsClass).
+    if (!/^[A-Za-z][A-Za-z0-9]*$/.test(spec.name)) throw new Error(`${declaration.id}: input name "${spec.name}" is not a plain word`);
     if (Object.hasOwn(out, spec.name)) throw new Error(`${declaration.id}: input "${spec.name}" is declared twice`);
     out[spec.name] = spec;
   }

@@ -43,7 +43,6 @@ export interface Binding {
  * varied inputs may satisfy it).
  */
 export function bind(formula: AnyFormula, fixedSI: Readonly<Record<string, unknown>>, probes: Readonly<Record<string, number>>): Binding {
-  const specs = specsOf(formula);
   const trial: Record<string, unknown> = { ...fixedSI, ...probes };
   try {
     formula.prepare(trial);
@@ -51,11 +50,7 @@ export function bind(formula: AnyFormula, fixedSI: Readonly<Record<string, unkno
     // Per-input checks run before relations, so a relation failure means every input passed on its own.
     if (!(e instanceof FormulaError && e.code === "out_of_domain" && e.input === undefined)) throw e;
   }
-  const x: Record<string, unknown> = {};
-  for (const [name, spec] of Object.entries(specs)) {
-    const v = Object.hasOwn(trial, name) ? trial[name] : undefined;
-    x[name] = v === undefined ? spec.default : v;
-  }
+  const x = formula.inputsObject(trial) as Record<string, unknown>;
   const relations = formula.definition.relations ?? [];
   const compute = formula.definition.compute as (x: unknown) => unknown;
   const scalar = (): number => {

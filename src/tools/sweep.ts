@@ -145,10 +145,10 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
   const v0 = axes[0]!.values;
   const v1 = name1 !== undefined ? axes[1]!.values : new Float64Array(1);
   const holds = relations.map((r) => r.holds) as ((x: unknown) => boolean)[];
-  const specialised = componentArrays === undefined ? specialisedLoop(Object.keys(x), holds.length, [name0, dom0], name1 === undefined ? undefined : [name1, dom1]) : undefined;
+  const specialised = componentArrays === undefined ? specialisedLoop(formula, holds.length, [name0, dom0], name1 === undefined ? undefined : [name1, dom1]) : undefined;
   let failed: number;
   if (specialised !== undefined) {
-    failed = specialised(x, compute, holds, v0, v1, values, computed, FormulaError);
+    failed = runLoop(specialised, x, compute, holds, v0, v1, values, computed);
   } else {
     const ok0 = okMask(v0, dom0);
     const ok1 = name1 !== undefined ? okMask(v1, dom1) : Uint8Array.of(1);
@@ -192,105 +192,107 @@ function okMask(vs: Float64Array, d: Domain | undefined): Uint8Array {
 }
 
 type Loop = (
-  x: Record<string, unknown>, compute: (x: unknown) => unknown, holds: ((x: unknown) => boolean)[],
-  v0: Float64Array, v1: Float64Array, values: Float64Array, computed: Uint8Array, errorClass: typeof FormulaError,
-) => number;
-const loops = new Map<string, Loop | null>();
+  o: Record<string, unknown>, compute: (x: unknown) => unknown, holds: ((x: unknown) => boolean)[],
+  v0: Float64Array, v1: Float64Array, values: Float64Array, computed: Uint8Array, start: number,
+) => void;
+const loops = new WeakMap<AnyFormula, Map<string, Loop | null>>();
 
 /**
- * The scalar loop generated for one formula's input names and swept inputs:
- * the inputs object is a literal of fixed shape, the swept inputs are stored
- * and domain-checked by literal names and bounds, the relations are called one
- * by one, a one-axis sweep is a single loop, and the point loop has no
- * try/catch (a FormulaError thrown by compute leaves the loop, is recorded for
- * that point, and the loop resumes after it). Engines optimise that like
- * hand-written code; stores through a variable key (`x[name] = v`), a lookup
- * per point in a domain mask and a try/catch per point each cost about as much
- * as the formula (bench/sweep.ts). Undefined where `new Function` is not
- * allowed (strict Content-Security-Policy); `scalarLoop` below is the general
- * fallback.
+ * Runs a generated loop over the grid from its first point; a FormulaError
+ * thrown by compute or a relation marks that point not computed and the loop
+ * resumes after it. Points are written in order and the buffer starts zeroed,
+ * so the point that threw is the first one from `start` still 0 and not
+ * computed: found by this scan instead of recording each point's index in the
+ * loop, which cost a third of its time. Returns the count of points not computed.
  */
-function specialisedLoop(
-  names: readonly string[], nRelations: number,
-  axis0: readonly [string, Domain | undefined], axis1: readonly [string, Domain | undefined] | undefined,
-): Loop | undefined {
-  const key = JSON.stringify([names, nRelations, axis0, axis1 ?? null]);
-  const hit = loops.get(key);
-  if (hit !== undefined) return hit ?? undefined;
-  const ident = /^[A-Za-z_$][A-Za-z0-9_$]*$/;
-  let made: Loop | null = null;
-  if (names.every((n) => ident.test(n))) {
-    const lit = names.map((n) => `${n}: x.${n}`).join(", ");
-    // Axis values are finite (from, to and the spacing are), so only the bounds are tested.
-    const inDomain = (v: string, d: Domain | undefined): string => ["true", ...domainBounds(v, d)].join(" && ");
-    const relations = Array.from({ length: nRelations }, (_, r) => ` && h${r}(o)`).join("");
-    const point = (k: string) => `
-          const out = compute(o);
-          if (typeof out === "number" && out - out === 0) { values[${k}] = out; computed[${k}] = 1; continue; }`;
-    const [name0, dom0] = axis0;
-    const loop = axis1 === undefined
-      ? `
-      for (let i = start; i < n0; i++) {
-        const a = v0[i];
-        o.${name0} = a;
-        if (${inDomain("a", dom0)}${relations}) {${point("i")}
-        }
-        values[i] = NaN;
-        failed++;
-      }`
-      : `
-      for (let i = (start / n1) | 0; i < n0; i++) {
-        const a = v0[i];
-        o.${name0} = a;
-        const ok0 = ${inDomain("a", dom0)};
-        for (let j = i === ((start / n1) | 0) ? start % n1 : 0; j < n1; j++) {
-          const k = i * n1 + j;
-          const b = v1[j];
-          o.${axis1[0]} = b;
-          if (ok0 && ${inDomain("b", axis1[1])}${relations}) {${point("k")}
-          }
-          values[k] = NaN;
-          failed++;
-        }
-      }`;
-    const body = `
-      // The leading key gives this object a hidden class of its own: a caller's
-      // object with exactly the input names (say unit strings for evaluate) would
-      // otherwise share it, and numbers stored into fields that also held strings
-      // are each a fresh heap allocation. Measured: 41 -> 18 ns per point.
-      const o = { $sweep: 0, ${lit} };
-      const n0 = v0.length, n1 = v1.length;
-      ${Array.from({ length: nRelations }, (_, r) => `const h${r} = holds[${r}];`).join(" ")}
-      let failed = 0;
-      function points(start) {${loop}
-        return true;
-      }
-      let start = 0;
-      for (;;) {
-        try {
-          if (points(start)) return failed;
-        } catch (e) {
-          if (!(e instanceof errorClass)) throw e;
-          // Points are written in order and the buffer starts zeroed: every point
-          // before the one that threw holds a value (computed = 1) or NaN, so that
-          // point is the first one after \`start\` still 0 and not computed. Found by
-          // this scan instead of recording each point's index, which cost a
-          // third of the loop's time.
-          let at = start;
-          while (computed[at] === 1 || values[at] !== 0) at++;
-          values[at] = NaN;
-          failed++;
-          start = at + 1;
-        }
-      }`;
+function runLoop(
+  loop: Loop, o: Record<string, unknown>, compute: (x: unknown) => unknown, holds: ((x: unknown) => boolean)[],
+  v0: Float64Array, v1: Float64Array, values: Float64Array, computed: Uint8Array,
+): number {
+  let start = 0;
+  for (;;) {
     try {
-      // eslint-disable-next-line @typescript-eslint/no-implied-eval
-      made = new Function("x", "compute", "holds", "v0", "v1", "values", "computed", "errorClass", body) as Loop;
-    } catch {
-      made = null;
+      loop(o, compute, holds, v0, v1, values, computed, start);
+      break;
+    } catch (e) {
+      if (!(e instanceof FormulaError)) throw e;
+      let at = start;
+      while (computed[at] === 1 || values[at] !== 0) at++;
+      values[at] = NaN;
+      start = at + 1;
     }
   }
-  loops.set(key, made);
+  let done = 0;
+  for (let k = 0; k < computed.length; k++) done += computed[k]!;
+  return computed.length - done;
+}
+
+/**
+ * The scalar loop generated for one formula and its swept inputs: the swept
+ * inputs are stored and domain-checked by literal names and bounds, the
+ * relations are called one by one, a one-axis sweep is a single loop, and the
+ * loop has no try/catch (see runLoop). It is made once per formula and swept
+ * inputs and reused, so the engine optimises it across calls. Engines run that
+ * like hand-written code; stores through a variable key (`x[name] = v`), a
+ * lookup per point in a domain mask and a try/catch per point each cost about
+ * as much as the formula (bench/sweep.ts). Undefined where `new Function` is
+ * not allowed (strict Content-Security-Policy); `scalarLoop` below is the
+ * general fallback.
+ */
+function specialisedLoop(
+  formula: AnyFormula, nRelations: number,
+  axis0: readonly [string, Domain | undefined], axis1: readonly [string, Domain | undefined] | undefined,
+): Loop | undefined {
+  // One loop per formula and swept inputs: a loop shared by several formulas
+  // would see several computes and input shapes, and the engine optimises it less.
+  let byAxes = loops.get(formula);
+  if (byAxes === undefined) loops.set(formula, (byAxes = new Map()));
+  const key = `${axis0[0]}|${axis1?.[0] ?? ""}`;
+  const hit = byAxes.get(key);
+  if (hit !== undefined) return hit ?? undefined;
+  // Axis values are finite (from, to and the spacing are), so only the bounds are tested.
+  const inDomain = (v: string, d: Domain | undefined): string => ["true", ...domainBounds(v, d)].join(" && ");
+  const relations = Array.from({ length: nRelations }, (_, r) => ` && h${r}(o)`).join("");
+  const point = (k: string) => `
+        const out = compute(o);
+        if (typeof out === "number" && out - out === 0) { values[${k}] = out; computed[${k}] = 1; continue; }`;
+  const [name0, dom0] = axis0;
+  const loop = axis1 === undefined
+    ? `
+    for (let i = start; i < n0; i++) {
+      const a = v0[i];
+      o.${name0} = a;
+      if (${inDomain("a", dom0)}${relations}) {${point("i")}
+      }
+      values[i] = NaN;
+    }`
+    : `
+    const i0 = (start / n1) | 0;
+    for (let i = i0; i < n0; i++) {
+      const a = v0[i];
+      o.${name0} = a;
+      const ok0 = ${inDomain("a", dom0)};
+      for (let j = i === i0 ? start % n1 : 0; j < n1; j++) {
+        const k = i * n1 + j;
+        const b = v1[j];
+        o.${axis1[0]} = b;
+        if (ok0 && ${inDomain("b", axis1[1])}${relations}) {${point("k")}
+        }
+        values[k] = NaN;
+      }
+    }`;
+  // o comes from the formula's inputsObject: the one shape compute sees everywhere.
+  const body = `
+    const n0 = v0.length, n1 = v1.length;
+    ${Array.from({ length: nRelations }, (_, r) => `const h${r} = holds[${r}];`).join(" ")}${loop}`;
+  let made: Loop | null;
+  try {
+    // eslint-disable-next-line @typescript-eslint/no-implied-eval
+    made = new Function("o", "compute", "holds", "v0", "v1", "values", "computed", "start", body) as Loop;
+  } catch {
+    made = null;
+  }
+  byAxes.set(key, made);
   return made ?? undefined;
 }
 

@@ -1,6 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { defineFormula, evaluate, FormulaError, POSITIVE, type Length } from "../../src/index.js";
+import { vi } from "vitest";
+import { defineFormula, evaluate, FormulaError, POSITIVE, solve, sweep, tolerance, type Length } from "../../src/index.js";
 import { codeOf } from "../helpers/errors.js";
 
 // A formula defined only for these tests: the core's behaviour, not physics.
@@ -104,6 +105,75 @@ describe("a defined formula", () => {
       compute: (x) => x.a * x.a,
     });
     expect(codeOf(() => overflow({ a: m(1e200) }))).toBe("out_of_range");
+  });
+});
+
+describe("the object a formula's compute receives", () => {
+  // A formula that records what its compute is handed.
+  const seen: object[] = [];
+  const recorder = (id: string) =>
+    defineFormula({
+      id, title: "t", category: "test", description: "records its inputs", equation: "y = a b",
+      inputs: [
+        { name: "alpha", dimension: "Length", description: "a", domain: POSITIVE, example: 1 },
+        { name: "beta", dimension: "Length", description: "b", default: 2, domain: POSITIVE, example: 2 },
+      ],
+      output: { dimension: "Area", description: "a b" },
+      relations: [{ rule: "alpha < 100 beta", holds: (x) => x.alpha < 100 * x.beta }],
+      source: { authors: "common practice", title: "test" },
+      compute: (x) => {
+        seen.push(x);
+        return x.alpha * x.beta;
+      },
+    });
+
+  it("is one kind of object, inputs in declared order, on every path (typed, evaluate, solve, tolerance, sweep)", () => {
+    const f = recorder("testRecorder");
+    seen.length = 0;
+    f({ alpha: 1 as Length });
+    evaluate("parallelPlateCapacitance", { area: 1e-4, gap: 1e-4 }); // another formula: not recorded
+    f.details({ alpha: 1 as Length, beta: 3 as Length });
+    solve(f, "alpha", { beta: 3 as Length, target: 6 as never });
+    tolerance(f, { alpha: { nominal: 1, percent: 10 }, beta: 2 }, { samples: 50 });
+    sweep(f, { vary: { alpha: { from: 1, to: 2, points: 3 } } });
+    expect(seen.length).toBeGreaterThan(6);
+    // One constructor for all: the engine sees one shape and keeps compute's reads monomorphic.
+    const protos = new Set(seen.map((x) => Object.getPrototypeOf(x)));
+    expect(protos.size).toBe(1);
+    expect([...protos][0]).not.toBe(Object.prototype);
+    for (const x of seen) expect(Object.keys(x)).toEqual(["alpha", "beta"]);
+  });
+
+  it("is made the same way, and gives the same answers, where code generation is forbidden", () => {
+    vi.stubGlobal("Function", function forbidden() {
+      throw new EvalError("code generation from strings disallowed");
+    });
+    let f;
+    try {
+      f = recorder("testRecorderNoEval");
+    } finally {
+      vi.unstubAllGlobals();
+    }
+    seen.length = 0;
+    expect(f({ alpha: 2 as Length, beta: 3 as Length })).toBe(6);
+    expect(f({ alpha: 2 as Length })).toBe(4);
+    expect(codeOf(() => f({ alpha: -1 as Length }))).toBe("out_of_domain");
+    expect(codeOf(() => f({ alpha: 1000 as Length, beta: 1 as Length }))).toBe("out_of_domain");
+    expect(Object.keys(seen[0]!)).toEqual(["alpha", "beta"]);
+  });
+
+  it("refuses input names that are not plain words", () => {
+    for (const name of ["two words", "__proto__", "a-b", "1st", ""]) {
+      expect(() =>
+        defineFormula({
+          id: "testBadName", title: "t", category: "test", description: "t", equation: "y = a",
+          inputs: [{ name, dimension: "Length", description: "a", example: 1 }],
+          output: { dimension: "Length", description: "a" },
+          source: { authors: "common practice", title: "test" },
+          compute: () => 1,
+        }),
+      ).toThrow(/is not a plain word/);
+    }
   });
 });
 
