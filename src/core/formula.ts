@@ -167,20 +167,30 @@ export function defineFormula<const L extends InputList, const O extends OutputS
 }
 
 /**
- * The by-name view of the declared inputs, as a null-prototype object: it is
- * built here rather than written as a literal so that it never shares a hidden
- * class with callers' argument objects (see InputList), and an input named like
- * an Object.prototype member cannot be mistaken for one.
+ * The by-name view of the declared inputs. Built as an instance of its own
+ * class, not written as a literal or grown from `{}`, so that it never shares
+ * a hidden class with callers' argument objects (see InputList); its class's
+ * prototype chain ends at null, so an input named like an Object.prototype
+ * member cannot be mistaken for one. Not a null-prototype object: V8 keeps
+ * those as hash tables, and `evaluate` reads this view on every call
+ * (measured 1.3 -> 1.9 us per call).
  */
+class InputsView {
+  constructor(list: InputList) {
+    for (const spec of list) (this as unknown as Record<string, InputSpec>)[spec.name] = spec;
+  }
+}
+Object.setPrototypeOf(InputsView.prototype, null);
+
 function byName(declaration: { readonly id: string; readonly inputs: InputList }): InputSpecs {
-  const out: Record<string, InputSpec> = Object.create(null) as Record<string, InputSpec>;
+  const seen = new Set<string>();
   for (const spec of declaration.inputs) {
     // Whole words: they become property names in generated code (see inputsClass).
     if (!/^[A-Za-z][A-Za-z0-9]*$/.test(spec.name)) throw new Error(`${declaration.id}: input name "${spec.name}" is not a plain word`);
-    if (Object.hasOwn(out, spec.name)) throw new Error(`${declaration.id}: input "${spec.name}" is declared twice`);
-    out[spec.name] = spec;
+    if (seen.has(spec.name)) throw new Error(`${declaration.id}: input "${spec.name}" is declared twice`);
+    seen.add(spec.name);
   }
-  return Object.freeze(out);
+  return Object.freeze(new InputsView(declaration.inputs)) as unknown as InputSpecs;
 }
 
 function quoteInputs(x: Readonly<Record<string, unknown>>): string {
