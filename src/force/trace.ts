@@ -40,6 +40,7 @@ export interface TraceOptions {
 }
 
 /** A traced path: samples at t[i], with positions and velocities interleaved [x0, y0, z0, x1, ...]. */
+/** The arrays are views into one ArrayBuffer; `slice()` one to keep or transfer it apart. */
 export interface ParticleTrace {
   /** Sample times, s. */
   readonly t: Float64Array;
@@ -140,9 +141,12 @@ export function traceParticle(options: TraceOptions): ParticleTrace {
   const eField = fieldOf("electricField", options.electricField);
   const bField = fieldOf("fluxDensity", options.fluxDensity);
 
-  const t = new Float64Array(samples);
-  const pos = new Float64Array(3 * samples);
-  const vel = new Float64Array(3 * samples);
+  // One allocation for the three arrays: fresh typed arrays cost more than the
+  // steps that fill them on short traces (bench/particle.ts).
+  const buffer = new ArrayBuffer(56 * samples);
+  const t = new Float64Array(buffer, 0, samples);
+  const pos = new Float64Array(buffer, 8 * samples, 3 * samples);
+  const vel = new Float64Array(buffer, 32 * samples, 3 * samples);
   t[0] = t0;
   pos[0] = x0; pos[1] = y0; pos[2] = z0;
   vel[0] = v0[0]; vel[1] = v0[1]; vel[2] = v0[2];
