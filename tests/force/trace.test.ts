@@ -42,6 +42,17 @@ describe("traceParticle in a uniform magnetic field", () => {
   const B = 1e-3;
   const omega = 2 * Math.PI * cyclotronFrequency({ charge: electron.charge, mass: electron.mass, fluxDensity: T(B) });
 
+  it("returns times, positions and velocities of the right lengths, as views into one buffer", () => {
+    const tr = traceParticle({ particle: electron, position: len([1, 2, 3]), velocity: vel([1e5, 0, 0]), fluxDensity: fieldB([0, 0, 1e-3]), timeStep: s(1e-12), steps: 10, sampleEvery: 3 });
+    expect(tr.samples).toBe(4);
+    expect([tr.t.length, tr.positions.length, tr.velocities.length]).toEqual([4, 12, 12]);
+    expect(tr.positions.buffer).toBe(tr.t.buffer);
+    expect(tr.velocities.buffer).toBe(tr.t.buffer);
+    expect([...sampleAt(tr.positions, 0)]).toEqual([1, 2, 3]);
+    expect([...sampleAt(tr.velocities, 0)]).toEqual([1e5, 0, 0]);
+    expect(tr.t[3]).toBeCloseTo(9e-12, 25);
+  });
+
   it("conserves the speed to round-off over 1e5 steps (Boris rotation preserves |u|)", () => {
     const v0 = [1e6, 0, 2e5];
     const tr = traceParticle({ particle: electron, position: len([0, 0, 0]), velocity: vel(v0), fluxDensity: fieldB([0, 0, B]), timeStep: s(0.1 / omega), steps: 100_000, sampleEvery: 100 });
