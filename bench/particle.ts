@@ -78,6 +78,6 @@ export async function run(): Promise<BenchRow[]> {
   );
   return [
     { name: "traceParticle steps per second", value: (1e9 / t.ns.library!).toExponential(2), note: `uniform B, every step stored; ${ns(t.ns.library!)} per step` },
-    { name: "traceParticle vs plain Boris loop (time ratio)", value: times(t.ratio.library!), note: `plain relativistic Boris loop ${ns(t.ns.plain!)} per step, same fresh sample arrays (into reused arrays ${ns(t.ns.plainReused!)}: most of the time is the first touch of fresh memory on this machine); the library also applies E kicks and checks for overflow (lower is faster)` },
+    { name: "traceParticle vs plain Boris loop (time ratio)", value: times(t.ratio.library!), note: `plain relativistic Boris loop ${ns(t.ns.plain!)} per step, same fresh sample arrays (into reused arrays ${ns(t.ns.plainReused!)}); the library also applies E kicks and checks for overflow (lower is faster)` },
   ];
 }
