@@ -1,8 +1,8 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { vi } from "vitest";
 import { defineFormula, evaluate, FormulaError, POSITIVE, solve, sweep, tolerance, type Length } from "../../src/index.js";
 import { codeOf } from "../helpers/errors.js";
+import { withoutCodeGeneration } from "../helpers/no-eval.js";
 
 // A formula defined only for these tests: the core's behaviour, not physics.
 const ratio = defineFormula({
@@ -145,15 +145,7 @@ describe("the object a formula's compute receives", () => {
   });
 
   it("is made the same way, and gives the same answers, where code generation is forbidden", () => {
-    vi.stubGlobal("Function", function forbidden() {
-      throw new EvalError("code generation from strings disallowed");
-    });
-    let f;
-    try {
-      f = recorder("testRecorderNoEval");
-    } finally {
-      vi.unstubAllGlobals();
-    }
+    const f = withoutCodeGeneration(() => recorder("testRecorderNoEval"));
     seen.length = 0;
     expect(f({ alpha: 2 as Length, beta: 3 as Length })).toBe(6);
     expect(f({ alpha: 2 as Length })).toBe(4);

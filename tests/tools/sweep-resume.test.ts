@@ -1,5 +1,6 @@
 import { describe, expect, it } from "vitest";
 import { defineFormula, FormulaError, POSITIVE, sweep } from "../../src/index.js";
+import { withoutCodeGeneration } from "../helpers/no-eval.js";
 
 // Test-only formula: compute throws a FormulaError on one band of inputs and
 // returns Infinity on another, the two ways a point can fail inside compute.
@@ -51,8 +52,7 @@ describe("a sweep over points where compute fails", () => {
 });
 
 describe("a sweep where code generation is forbidden (strict Content-Security-Policy)", () => {
-  it("falls back to the general loop and gives the same grid", async () => {
-    const { vi } = await import("vitest");
+  it("falls back to the general loop and gives the same grid", () => {
     // Same physics as `picky`, other input names, so no generated loop is cached for it.
     const pickyToo = defineFormula({
       id: "testPickyToo", title: "t", category: "test", description: "fails on purpose", equation: "y = p q",
@@ -62,18 +62,40 @@ describe("a sweep where code generation is forbidden (strict Content-Security-Po
       compute: (x) => picky.definition.compute({ a: x.p, b: x.q }),
     });
     const spec = { vary: { p: { from: 1, to: 10, points: 10 }, q: { from: 1, to: 10, points: 10 } } };
-    vi.stubGlobal("Function", function forbidden() {
-      throw new EvalError("code generation from strings disallowed");
-    });
-    let fallback;
-    try {
-      fallback = sweep(pickyToo, spec);
-    } finally {
-      vi.unstubAllGlobals();
-    }
+    const fallback = withoutCodeGeneration(() => sweep(pickyToo, spec));
     const generated = sweep(picky, { vary: { a: spec.vary.p, b: spec.vary.q } });
     expect([...fallback.computed]).toEqual([...generated.computed]);
     expect([...fallback.output.values]).toEqual([...generated.output.values]);
     expect(fallback.notComputed).toBe(generated.notComputed);
+  });
+
+  it("falls back to the general loop for component outputs too, and gives the same components", () => {
+    const makePair = (id: string) =>
+      defineFormula({
+        id, title: "t", category: "test", description: "fails on purpose, two components", equation: "(a b, a / b)",
+        inputs: [{ ...picky.definition.inputs.a, name: "a" }, { ...picky.definition.inputs.b, name: "b" }],
+        output: { dimension: "Area", description: "two numbers", components: ["product", "ratio"] },
+        source: picky.definition.source,
+        compute: (x) => [picky.definition.compute({ a: x.a, b: x.b }), x.a / x.b],
+      });
+    // Defined under the ban too, so no generated code exists for it.
+    const pair = withoutCodeGeneration(() => makePair("testPickyPair"));
+    const spec = { vary: { a: { from: -1, to: 10, points: 12 }, b: { from: 1, to: 10, points: 10 } } };
+    const fallback = withoutCodeGeneration(() => sweep(pair, spec));
+    const scalar = sweep(picky, spec);
+    expect([...fallback.computed]).toEqual([...scalar.computed]);
+    // The generated loop resumes after throws the same way. (A fresh formula: the one
+    // above has its failed code generation remembered, as in a real strict-CSP page.)
+    const generated = sweep(makePair("testPickyPairGenerated"), spec);
+    expect(generated.notComputed).toBe(fallback.notComputed);
+    expect([...generated.computed]).toEqual([...fallback.computed]);
+    for (const c of ["product", "ratio"]) expect([...generated.output.components![c]!]).toEqual([...fallback.output.components![c]!]);
+    expect([...fallback.output.components!.product!]).toEqual([...scalar.output.values]);
+    expect(fallback.notComputed).toBe(scalar.notComputed);
+    for (let k = 0; k < 120; k++) {
+      const ratio = fallback.output.components!.ratio![k]!;
+      if (scalar.computed[k] === 1) expect(ratio).toBe(fallback.axes[0]!.values[Math.floor(k / 10)]! / fallback.axes[1]!.values[k % 10]!);
+      else expect(Number.isNaN(ratio)).toBe(true);
+    }
   });
 });

@@ -160,9 +160,14 @@ describe("sweeps of every registry formula", () => {
         expect(r.computed[k], label).toBe(single === undefined ? 0 : 1);
         if (single === undefined) {
           expect(Number.isNaN(r.output.values[k]), label).toBe(true);
+          for (const c of Object.values(r.output.components ?? {})) expect(Number.isNaN(c[k]), label).toBe(true);
           refused++;
         } else {
           expect(r.output.values[k], label).toBe(typeof single === "number" ? single : single[0]);
+          if (typeof single !== "number") {
+            const comps = f.definition.output.components as readonly string[];
+            comps.forEach((c, m) => expect(r.output.components![c]![k], label).toBe((single as readonly number[])[m]));
+          }
           checked++;
         }
       }
