@@ -5,7 +5,7 @@
  */
 import { mulDiv } from "../src/capacitance/shared.js";
 import { EPSILON0, MU0 } from "../src/constants/si.js";
-import { coaxialCapacitance, idealSolenoidInductance, parallelPlateCapacitance } from "../src/index.js";
+import { coaxialCapacitance, idealSolenoidInductance, parallelPlateCapacitance, solenoidInductance } from "../src/index.js";
 import type { Area, Length } from "../src/units/types.js";
 import { type BenchRow, compare, ns, randomArray, times } from "./util.js";
 
@@ -91,6 +91,35 @@ export async function run(): Promise<BenchRow[]> {
       N,
     );
     rows.push({ name: "typed idealSolenoidInductance vs plain arithmetic", value: times(t.ratio.typed!), note: `typed ${ns(t.ns.typed!)}/call, plain ${ns(t.ns.plain!)}; includes the whole-number check on turns` });
+  }
+  {
+    // A formula heavier than a product (Nagaoka's coefficient through elliptic
+    // integrals): its own compute on plain numbers, called with one reused
+    // inputs object, against the typed call with its checks.
+    const turns = randomArray(N, 10, 2000, 10).map(Math.round);
+    const radius = randomArray(N, 1e-3, 1e-1, 11);
+    const len = randomArray(N, 1e-3, 1, 12);
+    const f = solenoidInductance;
+    const x = f.inputsObject({ turns: 1, radius: 1, length: 1 }) as { turns: number; radius: number; length: number };
+    const t = compare(
+      {
+        compute: () => {
+          let s = 0;
+          for (let i = 0; i < N; i++) {
+            x.turns = turns[i]!; x.radius = radius[i]!; x.length = len[i]!;
+            s += f.definition.compute(x);
+          }
+          return s;
+        },
+        typed: () => {
+          let s = 0;
+          for (let i = 0; i < N; i++) s += f({ turns: turns[i]!, radius: radius[i]! as Length, length: len[i]! as Length });
+          return s;
+        },
+      },
+      N,
+    );
+    rows.push({ name: "typed solenoidInductance vs its compute on plain numbers", value: times(t.ratio.typed!), note: `typed ${ns(t.ns.typed!)}/call, compute ${ns(t.ns.compute!)}; Nagaoka's coefficient through elliptic integrals, where the checks are a small part` });
   }
   return rows;
 }
