@@ -154,6 +154,25 @@ describe("the object a formula's compute receives", () => {
     expect(Object.keys(seen[0]!)).toEqual(["alpha", "beta"]);
   });
 
+  it("works with inputs named like Object.prototype members, on the fast and the careful path", () => {
+    const odd = defineFormula({
+      id: "testOddNames", title: "t", category: "test", description: "t", equation: "y = constructor + valueOf",
+      inputs: [
+        { name: "constructor", dimension: "Length", description: "a", domain: POSITIVE, example: 1 },
+        { name: "valueOf", dimension: "Length", description: "b", default: 2, example: 2 },
+      ],
+      output: { dimension: "Length", description: "sum" },
+      source: { authors: "common practice", title: "test" },
+      compute: (x) => x.constructor + x.valueOf,
+    });
+    expect(odd({ constructor: 1 as Length, valueOf: 3 as Length } as never)).toBe(4);
+    expect(odd({ constructor: 1 as Length } as never)).toBe(3);
+    // A plain object inherits a "constructor" function: that is not an input value.
+    expect(codeOf(() => odd({} as never))).toBe("missing_input");
+    expect(odd.details({ constructor: 1 as Length } as never).value).toBe(3);
+    expect(sweep(odd, { vary: { valueOf: { from: 1, to: 2, points: 2 } }, fixed: { constructor: 1 } } as never).output.values).toEqual(new Float64Array([2, 3]));
+  });
+
   it("refuses input names that are not plain words", () => {
     for (const name of ["two words", "__proto__", "a-b", "1st", ""]) {
       expect(() =>
