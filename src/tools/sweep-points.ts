@@ -1,0 +1,214 @@
+import { FormulaError } from "../core/errors.js";
+import { domainBounds } from "../core/fast-path.js";
+import type { AnyFormula } from "../core/formula.js";
+import type { Domain } from "../core/spec.js";
+
+/*
+ * The point loops of a sweep: every grid point's inputs set in place, domain
+ * and relations checked, compute run, the result stored. sweep.ts reads the
+ * request and lays out the result arrays.
+ */
+
+/** A swept input's name and domain. */
+export type SweptInput = readonly [name: string, domain: Domain | undefined];
+
+/** A sweep's state as the point loops see it. `o` is the formula's compute-input object, varied in place. */
+export interface Grid {
+  readonly o: Record<string, unknown>;
+  readonly compute: (x: unknown) => unknown;
+  readonly holds: readonly ((x: unknown) => boolean)[];
+  readonly v0: Float64Array;
+  readonly v1: Float64Array;
+  readonly values: Float64Array;
+  /** One array per output component; empty for scalar outputs. */
+  readonly components: readonly Float64Array[];
+  readonly computed: Uint8Array;
+}
+
+/**
+ * Computes every point of the grid into `values` (and `components`), marking
+ * `computed`; returns the count of points not computed. `g.values`,
+ * `g.components` and `g.computed` must start zeroed (fresh arrays).
+ */
+export function computePoints(formula: AnyFormula, g: Grid, axis0: SweptInput, axis1: SweptInput | undefined): number {
+  const generated = generatedLoop(formula, g.holds.length, g.components.length, axis0, axis1);
+  if (generated !== undefined) return runLoop(generated, g);
+  return generalLoop(g, axis0[0], axis1?.[0], okMask(g.v0, axis0[1]), axis1 !== undefined ? okMask(g.v1, axis1[1]) : Uint8Array.of(1));
+}
+
+/**
+ * Which values of an axis are inside the input's domain, for the general loops.
+ * Bounds are hoisted into locals so the loop is plain comparisons. NaN fails
+ * every comparison.
+ */
+function okMask(vs: Float64Array, d: Domain | undefined): Uint8Array {
+  const m = new Uint8Array(vs.length);
+  const lo = d?.min ?? -Infinity;
+  const hi = d?.max ?? Infinity;
+  const loOpen = d?.minExclusive === true;
+  const hiOpen = d?.maxExclusive === true;
+  const whole = d?.integer === true;
+  for (let i = 0; i < vs.length; i++) {
+    const v = vs[i]!;
+    const ok = (loOpen ? v > lo : v >= lo) && (hiOpen ? v < hi : v <= hi) && v - v === 0 && (!whole || Number.isInteger(v));
+    m[i] = ok ? 1 : 0;
+  }
+  return m;
+}
+
+/** Computes the grid's points in order from index `start`; a FormulaError propagates. */
+type Loop = (g: Grid, start: number) => void;
+const loops = new WeakMap<AnyFormula, Map<string, Loop | null>>();
+
+/**
+ * Runs a generated loop over the grid from its first point; a FormulaError
+ * thrown by compute or a relation marks that point not computed and the loop
+ * resumes after it. Points are written in order and the buffer starts zeroed,
+ * so the point that threw is the first one from `start` still 0 and not
+ * computed: found by this scan instead of recording each point's index in the
+ * loop, which cost a third of its time. Returns the count of points not computed.
+ */
+function runLoop(loop: Loop, g: Grid): number {
+  const { values, computed, components } = g;
+  let start = 0;
+  for (;;) {
+    try {
+      loop(g, start);
+      break;
+    } catch (e) {
+      if (!(e instanceof FormulaError)) throw e;
+      let at = start;
+      while (computed[at] === 1 || values[at] !== 0) at++;
+      values[at] = NaN;
+      for (const c of components) c[at] = NaN;
+      start = at + 1;
+    }
+  }
+  let done = 0;
+  for (let k = 0; k < computed.length; k++) done += computed[k]!;
+  return computed.length - done;
+}
+
+/**
+ * The point loop generated for one formula and its swept inputs: the swept
+ * inputs are stored and domain-checked by literal names and bounds, the
+ * relations are called one by one, output components are checked and stored
+ * one by one, a one-axis sweep is a single loop, and the loop has no
+ * try/catch (see runLoop). It is made once per formula and swept inputs and
+ * reused, so the engine optimises it across calls. Engines run that like
+ * hand-written code; stores through a variable key (`x[name] = v`), a lookup
+ * per point in a domain mask and a try/catch per point each cost about as
+ * much as the formula (bench/sweep.ts). Undefined where `new Function` is not
+ * allowed (strict Content-Security-Policy); `generalLoop` is the fallback.
+ */
+function generatedLoop(formula: AnyFormula, nRelations: number, nComponents: number, axis0: SweptInput, axis1: SweptInput | undefined): Loop | undefined {
+  // One loop per formula and swept inputs: a loop shared by several formulas
+  // would see several computes and input shapes, and the engine optimises it less.
+  let byAxes = loops.get(formula);
+  if (byAxes === undefined) loops.set(formula, (byAxes = new Map()));
+  const key = `${axis0[0]}|${axis1?.[0] ?? ""}`;
+  const hit = byAxes.get(key);
+  if (hit !== undefined) return hit ?? undefined;
+  const count = (n: number, f: (i: number) => string, sep = " "): string => Array.from({ length: n }, (_, i) => f(i)).join(sep);
+  // Axis values are finite (from, to and the spacing are), so only the bounds are tested.
+  const inDomain = (v: string, d: Domain | undefined): string => ["true", ...domainBounds(v, d)].join(" && ");
+  const relations = count(nRelations, (r) => ` && h${r}(o)`, "");
+  // Same acceptance as Formula.run: a finite number, or an array of finite components.
+  const point = (k: string): string => nComponents === 0
+    ? `
+        const out = compute(o);
+        if (typeof out === "number" && out - out === 0) { values[${k}] = out; computed[${k}] = 1; continue; }`
+    : `
+        const out = compute(o);
+        if (Array.isArray(out) && out.length >= ${nComponents}) {
+          ${count(nComponents, (c) => `const r${c} = out[${c}];`)}
+          if (${count(nComponents, (c) => `r${c} - r${c} === 0`, " && ")}) {
+            ${count(nComponents, (c) => `c${c}[${k}] = r${c};`)} values[${k}] = r0; computed[${k}] = 1; continue;
+          }
+        }`;
+  const miss = (k: string): string => `values[${k}] = NaN; ${count(nComponents, (c) => `c${c}[${k}] = NaN;`)}`;
+  const [name0, dom0] = axis0;
+  const loop = axis1 === undefined
+    ? `
+    for (let i = start; i < n0; i++) {
+      const a = v0[i];
+      o.${name0} = a;
+      if (${inDomain("a", dom0)}${relations}) {${point("i")}
+      }
+      ${miss("i")}
+    }`
+    : `
+    const i0 = (start / n1) | 0;
+    for (let i = i0; i < n0; i++) {
+      const a = v0[i];
+      o.${name0} = a;
+      const ok0 = ${inDomain("a", dom0)};
+      for (let j = i === i0 ? start % n1 : 0; j < n1; j++) {
+        const k = i * n1 + j;
+        const b = v1[j];
+        o.${axis1[0]} = b;
+        if (ok0 && ${inDomain("b", axis1[1])}${relations}) {${point("k")}
+        }
+        ${miss("k")}
+      }
+    }`;
+  const body = `
+    const o = g.o, compute = g.compute, v0 = g.v0, v1 = g.v1, values = g.values, computed = g.computed;
+    const n0 = v0.length, n1 = v1.length;
+    ${count(nRelations, (r) => `const h${r} = g.holds[${r}];`)}
+    ${count(nComponents, (c) => `const c${c} = g.components[${c}];`)}${loop}`;
+  let made: Loop | null;
+  try {
+    // eslint-disable-next-line @typescript-eslint/no-implied-eval
+    made = new Function("g", "start", body) as Loop;
+  } catch {
+    made = null;
+  }
+  byAxes.set(key, made);
+  return made ?? undefined;
+}
+
+/**
+ * The point loop where code cannot be generated: the same results, with a
+ * store through a variable key, a domain mask lookup and a try/catch per point.
+ */
+function generalLoop(g: Grid, name0: string, name1: string | undefined, ok0: Uint8Array, ok1: Uint8Array): number {
+  const { o, compute, holds, v0, v1, values, components, computed } = g;
+  const n0 = v0.length;
+  const n1 = name1 === undefined ? 1 : v1.length;
+  const nc = components.length;
+  let failed = 0;
+  for (let i = 0; i < n0; i++) {
+    o[name0] = v0[i]!;
+    for (let j = 0; j < n1; j++) {
+      const k = i * n1 + j;
+      if (name1 !== undefined) o[name1] = v1[j]!;
+      let ok = (ok0[i]! & ok1[j]!) === 1;
+      for (let r = 0; ok && r < holds.length; r++) ok = holds[r]!(o);
+      let out: unknown;
+      if (ok) {
+        try {
+          out = compute(o);
+        } catch (e) {
+          if (!(e instanceof FormulaError)) throw e;
+        }
+      }
+      if (nc === 0 && typeof out === "number" && out - out === 0) {
+        values[k] = out;
+        computed[k] = 1;
+        continue;
+      }
+      if (nc > 0 && Array.isArray(out) && out.length >= nc && out.slice(0, nc).every((c: number) => c - c === 0)) {
+        for (let c = 0; c < nc; c++) components[c]![k] = out[c];
+        values[k] = out[0];
+        computed[k] = 1;
+        continue;
+      }
+      values[k] = NaN;
+      for (let c = 0; c < nc; c++) components[c]![k] = NaN;
+      failed++;
+    }
+  }
+  return failed;
+}
+
