@@ -1,3 +1,4 @@
+import { inDomain } from "../core/domain.js";
 import { FormulaError } from "../core/errors.js";
 import { domainBounds } from "../core/fast-path.js";
 import type { AnyFormula } from "../core/formula.js";
@@ -33,27 +34,7 @@ export interface Grid {
 export function computePoints(formula: AnyFormula, g: Grid, axis0: SweptInput, axis1: SweptInput | undefined): number {
   const generated = generatedLoop(formula, g.holds.length, g.components.length, axis0, axis1);
   if (generated !== undefined) return runLoop(generated, g);
-  return generalLoop(g, axis0[0], axis1?.[0], okMask(g.v0, axis0[1]), axis1 !== undefined ? okMask(g.v1, axis1[1]) : Uint8Array.of(1));
-}
-
-/**
- * Which values of an axis are inside the input's domain, for the general loops.
- * Bounds are hoisted into locals so the loop is plain comparisons. NaN fails
- * every comparison.
- */
-function okMask(vs: Float64Array, d: Domain | undefined): Uint8Array {
-  const m = new Uint8Array(vs.length);
-  const lo = d?.min ?? -Infinity;
-  const hi = d?.max ?? Infinity;
-  const loOpen = d?.minExclusive === true;
-  const hiOpen = d?.maxExclusive === true;
-  const whole = d?.integer === true;
-  for (let i = 0; i < vs.length; i++) {
-    const v = vs[i]!;
-    const ok = (loOpen ? v > lo : v >= lo) && (hiOpen ? v < hi : v <= hi) && v - v === 0 && (!whole || Number.isInteger(v));
-    m[i] = ok ? 1 : 0;
-  }
-  return m;
+  return generalLoop(g, axis0, axis1);
 }
 
 /** Computes the grid's points in order from index `start`; a FormulaError propagates. */
@@ -170,20 +151,23 @@ function generatedLoop(formula: AnyFormula, nRelations: number, nComponents: num
 
 /**
  * The point loop where code cannot be generated: the same results, with a
- * store through a variable key, a domain mask lookup and a try/catch per point.
+ * store through a variable key, a domain check through `inDomain` and a
+ * try/catch per point.
  */
-function generalLoop(g: Grid, name0: string, name1: string | undefined, ok0: Uint8Array, ok1: Uint8Array): number {
+function generalLoop(g: Grid, axis0: SweptInput, axis1: SweptInput | undefined): number {
   const { o, compute, holds, v0, v1, values, components, computed } = g;
+  const [name0, dom0] = axis0;
   const n0 = v0.length;
-  const n1 = name1 === undefined ? 1 : v1.length;
+  const n1 = axis1 === undefined ? 1 : v1.length;
   const nc = components.length;
   let failed = 0;
   for (let i = 0; i < n0; i++) {
     o[name0] = v0[i]!;
+    const ok0 = inDomain(v0[i]!, dom0);
     for (let j = 0; j < n1; j++) {
       const k = i * n1 + j;
-      if (name1 !== undefined) o[name1] = v1[j]!;
-      let ok = (ok0[i]! & ok1[j]!) === 1;
+      if (axis1 !== undefined) o[axis1[0]] = v1[j]!;
+      let ok = ok0 && (axis1 === undefined || inDomain(v1[j]!, axis1[1]));
       for (let r = 0; ok && r < holds.length; r++) ok = holds[r]!(o);
       let out: unknown;
       if (ok) {
