@@ -75,14 +75,8 @@ export function defineFormula<const L extends InputList, const O extends OutputS
     if (typeof raw !== "object" || raw === null || Array.isArray(raw)) {
       throw new FormulaError("wrong_type", { formula: id, input: "inputs", value: raw, expected: "an object of named inputs" });
     }
-    // A fresh object holding only the declared inputs, defaults filled.
-    const values: unknown[] = [];
-    for (let i = 0; i < names.length; i++) {
-      const n = names[i]!;
-      const v = Object.hasOwn(raw, n) ? raw[n] : undefined;
-      values.push(v === undefined ? specs[i]!.default : v);
-      checkInput(n, specs[i]!, values[i]);
-    }
+    const values = declaredValues(raw);
+    for (let i = 0; i < names.length; i++) checkInput(names[i]!, specs[i]!, values[i]);
     const xs = new Inputs(...values) as ComputeInputs<I>;
     if (def.relations) {
       for (const r of def.relations) {
@@ -121,8 +115,16 @@ export function defineFormula<const L extends InputList, const O extends OutputS
     }
   }
 
+  // The declared inputs' values in order, own properties only, defaults filled.
+  function declaredValues(raw: Readonly<Record<string, unknown>>): unknown[] {
+    return names.map((n, i) => {
+      const v = Object.hasOwn(raw, n) ? raw[n] : undefined;
+      return v === undefined ? specs[i]!.default : v;
+    });
+  }
+
   function inputsObject(raw: Readonly<Record<string, unknown>>): ComputeInputs<I> {
-    return new Inputs(...names.map((n, i) => (Object.hasOwn(raw, n) && raw[n] !== undefined ? raw[n] : specs[i]!.default))) as ComputeInputs<I>;
+    return new Inputs(...declaredValues(raw)) as ComputeInputs<I>;
   }
 
   function run(x: ComputeInputs<I>): ComputeOutput<O> {

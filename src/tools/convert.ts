@@ -44,13 +44,14 @@ export interface Binding {
  */
 export function bind(formula: AnyFormula, fixedSI: Readonly<Record<string, unknown>>, probes: Readonly<Record<string, number>>): Binding {
   const trial: Record<string, unknown> = { ...fixedSI, ...probes };
+  let x: Record<string, unknown>;
   try {
-    formula.prepare(trial);
+    x = formula.prepare(trial) as Record<string, unknown>;
   } catch (e) {
     // Per-input checks run before relations, so a relation failure means every input passed on its own.
     if (!(e instanceof FormulaError && e.code === "out_of_domain" && e.input === undefined)) throw e;
+    x = formula.inputsObject(trial) as Record<string, unknown>;
   }
-  const x = formula.inputsObject(trial) as Record<string, unknown>;
   const relations = formula.definition.relations ?? [];
   const compute = formula.definition.compute as (x: unknown) => unknown;
   const scalar = (): number => {
