@@ -85,14 +85,19 @@ type Rows = Readonly<Record<CodataKey, Row>>;
 // against the table.
 const EXACT = "0";
 
-// CODATA 2022 (NIST web version 9.0, May 2024).
-const ROWS_2022: Rows = {
+// Exact since the 2019 SI (defining constants, and the electronvolt from e): the same in both editions.
+const DEFINING = {
   speedOfLight: ["299792458", EXACT],
   planckConstant: ["6.62607015e-34", EXACT],
   elementaryCharge: ["1.602176634e-19", EXACT],
   boltzmannConstant: ["1.380649e-23", EXACT],
   avogadroConstant: ["6.02214076e23", EXACT],
   electronVolt: ["1.602176634e-19", EXACT],
+} as const;
+
+// CODATA 2022 (NIST web version 9.0, May 2024).
+const ROWS_2022: Rows = {
+  ...DEFINING,
   vacuumPermeability: ["1.25663706127e-6", "0.00000000020e-6"],
   vacuumPermittivity: ["8.8541878188e-12", "0.0000000014e-12"],
   vacuumImpedance: ["376.730313412", "0.000000059"],
@@ -111,12 +116,7 @@ const ROWS_2022: Rows = {
 
 // CODATA 2018 (NIST web version 8.0, May 2019).
 const ROWS_2018: Rows = {
-  speedOfLight: ["299792458", EXACT],
-  planckConstant: ["6.62607015e-34", EXACT],
-  elementaryCharge: ["1.602176634e-19", EXACT],
-  boltzmannConstant: ["1.380649e-23", EXACT],
-  avogadroConstant: ["6.02214076e23", EXACT],
-  electronVolt: ["1.602176634e-19", EXACT],
+  ...DEFINING,
   vacuumPermeability: ["1.25663706212e-6", "0.00000000019e-6"],
   vacuumPermittivity: ["8.8541878128e-12", "0.0000000013e-12"],
   vacuumImpedance: ["376.730313668", "0.000000057"],
