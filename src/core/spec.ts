@@ -104,6 +104,14 @@ export interface Condition<I extends InputSpecs> {
   readonly message: string | ((x: ComputeInputs<I>, value: number | readonly number[]) => string);
   /** True when the note applies. Cautions without `when` always apply. */
   readonly when?: (x: ComputeInputs<I>, value: number | readonly number[]) => boolean;
+  /**
+   * How far past its threshold a point is: larger is worse (a ratio such as
+   * gap / sqrt(area), or the hazardous quantity itself). Bulk tools (sweeps,
+   * tolerance, columns, designs) report, per note code, the point where it is
+   * largest. Every condition with `when` has one (a registry test checks);
+   * a condition that always applies needs none.
+   */
+  readonly measure?: (x: ComputeInputs<I>, value: number | readonly number[]) => number;
 }
 
 /** A relation between inputs that must hold (inner < outer), with its rule text. */
