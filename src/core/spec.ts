@@ -27,6 +27,20 @@ export const TURNS = {
   example: 20,
 } as const;
 
+/**
+ * Relative permeability: one domain across the library, any value > 0 (copper
+ * is diamagnetic, mu_r = 0.999994). A formula that assumes a magnetic material
+ * warns below its range instead of refusing. Spread it; set the description
+ * and example where the material differs (a core, a conductor).
+ */
+export const RELATIVE_PERMEABILITY = {
+  dimension: "Dimensionless",
+  description: "Relative permeability of the material (1 for air)",
+  default: 1,
+  domain: POSITIVE,
+  example: 2000,
+} as const;
+
 /** An input measured in a dimension (a scalar, or a 3-vector when `vector`). */
 export interface QuantityInput {
   readonly dimension: DimensionName;
