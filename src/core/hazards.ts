@@ -66,7 +66,12 @@ function strongFieldMessage(b: number): string {
   }
   if (b >= PROJECTILE_FIELD) parts.push("loose iron and steel parts can be pulled in (common practice)");
   if (b >= PUBLIC_STATIC_FIELD_LIMIT) parts.push("it exceeds the ICNIRP 2009 static-field limit for the public (400 mT)");
-  return `flux density ${formatNumber(b * 1e3, 3)} mT: ${parts.join("; ")}. Reference levels are screening values, not a safety assessment. ${GOVERN}`;
+  return `flux density ${formatFluxDensity(b)}: ${parts.join("; ")}. Reference levels are screening values, not a safety assessment. ${GOVERN}`;
+}
+
+// In mT where that reads well; in T for huge values, where b * 1e3 could overflow.
+function formatFluxDensity(b: number): string {
+  return b < 1 ? `${formatNumber(b * 1e3, 3)} mT` : `${formatNumber(b, 3)} T`;
 }
 
 // ---- voltages ----
