@@ -47,11 +47,12 @@ export const coaxialCapacitance = /* @__PURE__ */ defineFormula({
       code: "end_effects",
       // Fringing at each open end is of order eps (b - a) per end (common practice).
       when: (x) => x.outerRadius - x.innerRadius > 0.01 * x.length,
+      measure: (x) => (x.outerRadius - x.innerRadius) / x.length,
       message: (x) =>
         `the gap between the conductors is ${formatPercent((x.outerRadius - x.innerRadius) / x.length)} of the length; fringing at the open ends adds capacitance of about that relative size, which this formula neglects (common practice)`,
     },
   ],
-  source: { authors: "D. M. Pozar", year: 2012, title: "Microwave Engineering, 4th ed.", locator: "Table 2.1 (coaxial line)" },
+  source: { authors: "D. M. Pozar", year: 2012, title: "Microwave Engineering, 4th ed.", locator: "Table 2.1 (coaxial line) (from memory)" },
   // logOfRatio keeps digits for b near a; mulDiv keeps extreme lengths from
   // overflowing or underflowing in an intermediate product.
   compute: (x) =>

@@ -1,62 +1,77 @@
-import { FormulaError } from "../core/errors.js";
-import type { Capacitance } from "../units/types.js";
+import { defineFormula } from "../core/formula.js";
+import { POSITIVE } from "../core/spec.js";
 
-// Variable-arity helpers, not registry formulas: a formula has a fixed set of
-// named inputs, these take any number of capacitances.
+const CIRCUITS = { authors: "C. K. Alexander, M. N. O. Sadiku", year: 2013, title: "Fundamentals of Electric Circuits, 5th ed." } as const;
 
-function check(name: string, caps: readonly number[]): void {
-  if (!Array.isArray(caps) || caps.length === 0) {
-    throw new FormulaError("invalid_argument", { formula: name, input: "capacitances", detail: "give at least one capacitance" });
-  }
-  for (let i = 0; i < caps.length; i++) {
-    const c: unknown = caps[i];
-    const input = `capacitances[${i}]`;
-    if (typeof c !== "number") throw new FormulaError("wrong_type", { formula: name, input, value: c, expected: "a capacitance in F" });
-    if (c - c !== 0) throw new FormulaError("not_finite", { formula: name, input, value: c });
-    if (!(c > 0)) throw new FormulaError("out_of_domain", { formula: name, input, value: c, rule: "> 0" });
-  }
-}
+/** The two capacitors, shared by the series and parallel connections. */
+const PAIR = [
+  { name: "capacitance1", dimension: "Capacitance", description: "Capacitance of the first capacitor", domain: POSITIVE, example: 1e-8 },
+  { name: "capacitance2", dimension: "Capacitance", description: "Capacitance of the second capacitor", domain: POSITIVE, example: 2.2e-8 },
+] as const;
 
 /**
- * Capacitance of capacitors in series: 1 / C = sum of 1 / C_i, in F.
+ * Capacitance of two capacitors in series.
  *
- * Method: computed as c_min / sum(c_min / C_i). Every term is at most 1 and the
- * smallest is exactly 1, so nothing overflows or underflows harmfully however
- * far apart the values are (1e-200 F with 1e200 F gives 1e-200 F), and the
- * result never exceeds the smallest capacitance.
+ * C = C1 C2 / (C1 + C2) (1 / C = 1 / C1 + 1 / C2), with C1, C2 and C in F.
+ * For more than two, apply it in turn: series(series(C1, C2), C3).
  *
- * Throws FormulaError for an empty list ("invalid_argument") and for a value that
- * is not a positive finite number ("wrong_type", "not_finite", "out_of_domain").
+ * Method: with a the smaller and b the larger capacitance, C = a / (1 + a / b).
+ * The quotient a / b is at most 1, so nothing overflows (1e308 F with 1e308 F
+ * gives 5e307 F) and the product C1 C2, which could overflow or underflow, is
+ * never formed; when a / b underflows the result is a, as it should be. Three
+ * roundings: within 1.5 ulp of the exact value, and never above the smaller
+ * capacitance.
  *
- * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), Sec. 2.5.4.
+ * Validity: ideal capacitors; the voltage divides in inverse proportion to the
+ * capacitances (leakage and tolerance make real series stacks need balancing
+ * resistors, common practice).
+ *
+ * Reference: C. K. Alexander, M. N. O. Sadiku, Fundamentals of Electric
+ * Circuits, 5th ed. (2013), sec. 6.3 (series and parallel capacitors; section from memory).
  *
  * @example
- * seriesCapacitance(quantity(10, "nF"), quantity(10, "nF")); // ≈ 5e-9 F
+ * seriesCapacitance({ capacitance1: quantity(10, "nF"), capacitance2: quantity(10, "nF") }); // ≈ 5e-9 F
  */
-export function seriesCapacitance(...capacitances: Capacitance[]): Capacitance {
-  check("seriesCapacitance", capacitances);
-  let min = capacitances[0]!;
-  for (const c of capacitances) if (c < min) min = c;
-  let sum = 0;
-  for (const c of capacitances) sum += min / c;
-  return (min / sum) as Capacitance;
-}
+export const seriesCapacitance = /* @__PURE__ */ defineFormula({
+  id: "seriesCapacitance",
+  title: "Series capacitance",
+  category: "capacitance",
+  description: "Capacitance of two capacitors connected in series (reciprocals add).",
+  equation: "C = C1 C2 / (C1 + C2)",
+  inputs: PAIR,
+  output: { dimension: "Capacitance", description: "Total capacitance" },
+  source: { ...CIRCUITS, locator: "sec. 6.3, series and parallel capacitors (section from memory)" },
+  // Smaller over (1 + smaller/larger): the ratio is in (0, 1], so no overflow or
+  // harmful underflow, and no product of the two capacitances.
+  compute: (x) => {
+    const a = Math.min(x.capacitance1, x.capacitance2);
+    const b = Math.max(x.capacitance1, x.capacitance2);
+    return a / (1 + a / b);
+  },
+});
 
 /**
- * Capacitance of capacitors in parallel: C = sum of C_i, in F.
+ * Capacitance of two capacitors in parallel.
  *
- * Throws FormulaError for an empty list ("invalid_argument"), for a value that is
- * not a positive finite number, and "out_of_range" when the sum overflows.
+ * C = C1 + C2, with C1, C2 and C in F. For more than two, apply it in turn.
  *
- * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), Sec. 2.5.4.
+ * Method: one addition, correctly rounded (half an ulp); a sum beyond the
+ * largest double is `out_of_range`.
+ *
+ * Reference: C. K. Alexander, M. N. O. Sadiku, Fundamentals of Electric
+ * Circuits, 5th ed. (2013), sec. 6.3 (section from memory).
  *
  * @example
- * parallelCapacitance(quantity(10, "nF"), quantity(22, "nF")); // ≈ 3.2e-8 F
+ * parallelCapacitance({ capacitance1: quantity(10, "nF"), capacitance2: quantity(22, "nF") }); // ≈ 3.2e-8 F
  */
-export function parallelCapacitance(...capacitances: Capacitance[]): Capacitance {
-  check("parallelCapacitance", capacitances);
-  let sum = 0;
-  for (const c of capacitances) sum += c;
-  if (sum === Infinity) throw new FormulaError("out_of_range", { formula: "parallelCapacitance", detail: "the sum exceeds the largest number" });
-  return sum as Capacitance;
-}
+export const parallelCapacitance = /* @__PURE__ */ defineFormula({
+  id: "parallelCapacitance",
+  title: "Parallel capacitance",
+  category: "capacitance",
+  description: "Capacitance of two capacitors connected in parallel (capacitances add).",
+  equation: "C = C1 + C2",
+  inputs: PAIR,
+  output: { dimension: "Capacitance", description: "Total capacitance" },
+  source: { ...CIRCUITS, locator: "sec. 6.3, series and parallel capacitors (section from memory)" },
+  compute: (x) => x.capacitance1 + x.capacitance2,
+});

@@ -14,7 +14,7 @@ import { mulDiv, RELATIVE_PERMITTIVITY } from "./shared.js";
  * approaches the plate's width (warning when d exceeds 1 % of sqrt(A)).
  *
  * Reference: any electromagnetics text, e.g. D. J. Griffiths, Introduction to
- * Electrodynamics, 4th ed. (2017), Sec. 2.5.4.
+ * Electrodynamics, 4th ed. (2013), Sec. 2.5.4.
  *
  * @example
  * parallelPlateCapacitance({ area: quantity(1, "cm^2"), gap: quantity(0.1, "mm") }); // ≈ 8.854e-12 F
@@ -37,11 +37,12 @@ export const parallelPlateCapacitance = /* @__PURE__ */ defineFormula({
       // Edge fields add roughly (d / w) * ln(w / d) relative capacitance (common practice);
       // past d = 1 % of the plate size that is above a few per cent.
       when: (x) => x.gap > 0.01 * Math.sqrt(x.area),
+      measure: (x) => x.gap / Math.sqrt(x.area),
       message: (x) =>
         `gap is ${formatPercent(x.gap / Math.sqrt(x.area))} of the plate size; fringing adds capacitance this formula neglects (above about 1 % it is no longer small)`,
     },
   ],
-  source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "Sec. 2.5.4, Capacitors" },
+  source: { authors: "D. J. Griffiths", year: 2013, title: "Introduction to Electrodynamics, 4th ed.", locator: "Sec. 2.5.4, Capacitors (from memory)" },
   // mulDiv: a tiny area or huge gap must not underflow in an intermediate product.
   compute: (x) => mulDiv(EPSILON0, x.relativePermittivity, x.area, x.gap),
 });

@@ -82,6 +82,66 @@ function mulDivScaled(a: number, b: number, c: number, d: number): number {
   return m * pow2(e);
 }
 
+/**
+ * The signed product of `factors` divided by the product of `divisors`, for
+ * finite factors and non-zero finite divisors, with no intermediate overflow
+ * or underflow: the general form of `mulDiv`, used by the displacement and
+ * force families (signed inputs, more factors). A zero factor gives 0. A
+ * result beyond the largest double or below the smallest normal one returns
+ * Infinity, which the formula reports as `out_of_range` (subnormal results
+ * are refused rather than returned with lost digits).
+ *
+ * Error: one rounding per factor and divisor (each at most half an ulp), so
+ * for n factors and k divisors the result is within (n + k) / 2 ulp of the
+ * exact value of the double inputs, whichever path runs.
+ *
+ * Loops: one pass over each list (bounded by its length).
+ */
+export function scaledProduct(factors: readonly number[], divisors: readonly number[]): number {
+  let p = 1;
+  let normal = true;
+  for (let i = 0; i < factors.length; i++) {
+    p *= factors[i]!;
+    const m = Math.abs(p);
+    if (!(m >= MIN_NORMAL && m <= Number.MAX_VALUE)) normal = false;
+  }
+  for (let i = 0; i < divisors.length; i++) {
+    p /= divisors[i]!;
+    const m = Math.abs(p);
+    if (!(m >= MIN_NORMAL && m <= Number.MAX_VALUE)) normal = false;
+  }
+  if (normal) return p;
+  return scaledProductSlow(factors, divisors);
+}
+
+function scaledProductSlow(factors: readonly number[], divisors: readonly number[]): number {
+  let sign = 1;
+  let m = 1;
+  let e = 0;
+  // Mantissas in [1, 2): after each step m is renormalised to [1, 2), so no
+  // intermediate can leave the range; only the exponent sum grows.
+  for (let i = 0; i < factors.length; i++) {
+    const f = factors[i]!;
+    if (f === 0) return 0;
+    if (f < 0) sign = -sign;
+    const [mf, ef] = split(Math.abs(f));
+    const [mm, em] = split(m * mf);
+    m = mm;
+    e += ef + em;
+  }
+  for (let i = 0; i < divisors.length; i++) {
+    const d = divisors[i]!;
+    if (d === 0) return Infinity; // callers' domains exclude it; reported as out_of_range, never NaN
+    if (d < 0) sign = -sign;
+    const [md, ed] = split(Math.abs(d));
+    const [mm, em] = split(m / md);
+    m = mm;
+    e += em - ed;
+  }
+  if (e > 1023 || e < -1022) return Infinity;
+  return sign * m * pow2(e);
+}
+
 // v = m * 2^e with m in [1, 2), for positive finite v (subnormals included).
 function split(v: number): [number, number] {
   let offset = 0;

@@ -19,7 +19,7 @@ const FOUR_PI_EPSILON0 = 4 * Math.PI * EPSILON0;
  * difference b - a is exact (Sterbenz lemma), so a thin gap keeps full
  * precision; the product a b, which could overflow, is never formed.
  *
- * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017),
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013),
  * Sec. 2.5.4 (concentric spherical shells).
  *
  * @example
@@ -39,8 +39,8 @@ export const sphericalCapacitance = /* @__PURE__ */ defineFormula({
   output: { dimension: "Capacitance", description: "Capacitance between the sphere and the shell" },
   relations: [{ rule: "innerRadius < outerRadius", holds: (x) => x.innerRadius < x.outerRadius }],
   source: {
-    authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.",
-    locator: "Sec. 2.5.4 (concentric spherical shells)",
+    authors: "D. J. Griffiths", year: 2013, title: "Introduction to Electrodynamics, 4th ed.",
+    locator: "Sec. 2.5.4 (concentric spherical shells) (from memory)",
   },
   // (b - a) / b is in [2^-53, 1): exact difference near contact, no a*b overflow.
   compute: (x) =>
@@ -58,7 +58,7 @@ export const sphericalCapacitance = /* @__PURE__ */ defineFormula({
  * a conductor at distance d raises C by roughly a / d (common practice).
  *
  * Reference: the outer radius -> infinity limit of the concentric spheres in
- * D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), Sec. 2.5.4.
+ * D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013), Sec. 2.5.4.
  *
  * @example
  * isolatedSphereCapacitance({ radius: quantity(10, "cm") }); // ≈ 1.113e-11 F
@@ -75,8 +75,8 @@ export const isolatedSphereCapacitance = /* @__PURE__ */ defineFormula({
   ],
   output: { dimension: "Capacitance", description: "Self-capacitance" },
   source: {
-    authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.",
-    locator: "Sec. 2.5.4 (concentric shells, outer radius to infinity)",
+    authors: "D. J. Griffiths", year: 2013, title: "Introduction to Electrodynamics, 4th ed.",
+    locator: "Sec. 2.5.4 (concentric shells, outer radius to infinity) (from memory)",
   },
   // mulDiv: a radius of 1e-300 m must not underflow in eps0 * a.
   compute: (x) => mulDiv(FOUR_PI_EPSILON0, x.relativePermittivity, x.radius, 1),

@@ -52,12 +52,13 @@ export const twoWireCapacitance = /* @__PURE__ */ defineFormula({
     {
       code: "end_effects",
       when: (x) => x.separation > 0.01 * x.length,
+      measure: (x) => x.separation / x.length,
       message: (x) =>
         `the separation is ${formatPercent(x.separation / x.length)} of the length; fringing at the ends adds capacitance of about that relative size, which this formula neglects (common practice)`,
     },
-    { code: "dielectric", when: (x) => x.relativePermittivity > 1, message: DIELECTRIC_NOTE },
+    { code: "dielectric", when: (x) => x.relativePermittivity > 1, measure: (x) => x.relativePermittivity, message: DIELECTRIC_NOTE },
   ],
-  source: { authors: "D. M. Pozar", year: 2012, title: "Microwave Engineering, 4th ed.", locator: "Table 2.1 (two-wire line)" },
+  source: { authors: "D. M. Pozar", year: 2012, title: "Microwave Engineering, 4th ed.", locator: "Table 2.1 (two-wire line) (from memory)" },
   // acoshOfRatio: digits kept for nearly touching wires; mulDiv: no intermediate overflow.
   compute: (x) =>
     mulDiv(PI_EPSILON0, x.relativePermittivity, x.length, acoshOfRatio(x.separation, 2 * x.wireRadius)),
@@ -106,14 +107,15 @@ export const wireOverPlaneCapacitance = /* @__PURE__ */ defineFormula({
     {
       code: "end_effects",
       when: (x) => x.height > 0.01 * x.length,
+      measure: (x) => x.height / x.length,
       message: (x) =>
         `the height is ${formatPercent(x.height / x.length)} of the length; fringing at the ends adds capacitance of about that relative size, which this formula neglects (common practice)`,
     },
-    { code: "dielectric", when: (x) => x.relativePermittivity > 1, message: DIELECTRIC_NOTE },
+    { code: "dielectric", when: (x) => x.relativePermittivity > 1, measure: (x) => x.relativePermittivity, message: DIELECTRIC_NOTE },
   ],
   source: {
     authors: "D. M. Pozar", year: 2012, title: "Microwave Engineering, 4th ed.",
-    locator: "Table 2.1 (two-wire line), with the method of images",
+    locator: "Table 2.1 (two-wire line), with the method of images (from memory)",
   },
   // acoshOfRatio: digits kept for a wire nearly touching the plane; mulDiv: no intermediate overflow.
   compute: (x) =>

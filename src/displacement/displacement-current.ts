@@ -1,8 +1,18 @@
 import { EPSILON0, MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
+import { formatNumber } from "../core/format.js";
+import { GOVERN } from "../core/hazards.js";
 import { AT_LEAST_ONE, NON_NEGATIVE, POSITIVE } from "../core/spec.js";
+import { scaledProduct } from "../capacitance/shared.js";
 
-const GRIFFITHS = { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed." } as const;
+const TWO_PI = 2 * Math.PI;
+const MU0_OVER_2PI = MU0 / (2 * Math.PI);
+
+/** One locator for the loss ratio sigma/(omega eps) and the relaxation frequency where it is 1. */
+const CHENG = { authors: "D. K. Cheng", year: 1989, title: "Field and Wave Electromagnetics, 2nd ed.", locator: "section 8-3, plane waves in lossy media, loss tangent sigma/(omega eps) (from memory)" } as const;
+const ITU_P527 = { authors: "ITU-R", year: 1992, title: "Recommendation ITU-R P.527, Electrical characteristics of the surface of the Earth" } as const;
+
+const GRIFFITHS = { authors: "D. J. Griffiths", year: 2013, title: "Introduction to Electrodynamics, 4th ed." } as const;
 
 /** Relative permittivity of the medium the field is in (1 for vacuum). */
 const MEDIUM_PERMITTIVITY = {
@@ -26,10 +36,26 @@ const DISPERSION_MESSAGE =
   "use values measured near this frequency (ITU-R P.527 gives curves for ground and water); for water the " +
   "permittivity falls and the losses rise from about 1 GHz up";
 
-const LEAKAGE_MESSAGE =
-  "current through stray capacitance flows through anything touching the circuit: touch and protective-conductor " +
-  "current are measured by IEC 60990 and limited by the product safety standard; it is also common-mode current " +
-  "that radiates and conducts interference (EMC). Local codes and licensed practice govern";
+/**
+ * Touch-current caution from 0.5 mA: the body-current limit of energy source
+ * class ES1 in IEC 62368-1 (0.5 mA r.m.s. for most waveforms; from memory),
+ * measured with the networks of IEC 60990. Below it stray-capacitance current
+ * is an interference (EMC) matter, not a shock hazard.
+ */
+const TOUCH_CURRENT_LIMIT = 0.5e-3;
+
+// In mA where that reads well; in A for large values, where i * 1e3 could overflow.
+const amps = (i: number): string => (i < 1 ? `${formatNumber(i * 1e3, 3)} mA` : `${formatNumber(i, 3)} A`);
+
+const TOUCH_CURRENT = {
+  code: "touch_current",
+  when: (_x: unknown, i: number | readonly number[]) => Math.abs(i as number) >= TOUCH_CURRENT_LIMIT,
+  measure: (_x: unknown, i: number | readonly number[]) => Math.abs(i as number),
+  message: (_x: unknown, i: number | readonly number[]) =>
+    `${amps(Math.abs(i as number))} through the stray capacitance is at or above 0.5 mA, the ES1 touch-current limit of IEC 62368-1 (from memory): ` +
+    "if it flows repeatedly (mains frequency, switching) through anything touching the circuit, measure its r.m.s. touch and protective-conductor " +
+    `current by IEC 60990 and compare with the product safety standard's limit. ${GOVERN}`,
+} as const;
 
 /**
  * Displacement current through a surface from the rate of change of the
@@ -42,7 +68,7 @@ const LEAKAGE_MESSAGE =
  * Validity: a linear, isotropic, non-dispersive medium filling the surface; in
  * a dispersive medium use epsr at the frequency of the change.
  *
- * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2017),
+ * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2013),
  * section 7.3.2 (Ampere's law with Maxwell's correction), and section 7.3.5
  * (in matter, J_d = dD/dt).
  *
@@ -60,8 +86,10 @@ export const displacementCurrent = /* @__PURE__ */ defineFormula({
     { name: "relativePermittivity", ...MEDIUM_PERMITTIVITY },
   ],
   output: { dimension: "Current", description: "Displacement current through the surface" },
-  source: { ...GRIFFITHS, locator: "section 7.3.2, eq. for the displacement current" },
-  compute: (x) => EPSILON0 * x.relativePermittivity * x.electricFluxRate,
+  source: { ...GRIFFITHS, locator: "section 7.3.2, eq. for the displacement current (from memory)" },
+  // scaledProduct: a flux rate near the ends of the double range must not overflow or
+  // underflow in eps0 epsr dPhi/dt before the result does (within 1.5 ulp).
+  compute: (x) => scaledProduct([EPSILON0, x.relativePermittivity, x.electricFluxRate], []),
 });
 
 /**
@@ -73,7 +101,7 @@ export const displacementCurrent = /* @__PURE__ */ defineFormula({
  *
  * Validity: quasi-static (plate size small against the wavelength at the rate of change).
  *
- * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2017), section 7.3.2.
+ * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2013), section 7.3.2.
  *
  * @example
  * capacitorDisplacementCurrent({ capacitance: quantity(1, "uF"), voltageRate: quantity(1, "V/us") }); // ≈ 1 A
@@ -89,8 +117,9 @@ export const capacitorDisplacementCurrent = /* @__PURE__ */ defineFormula({
     { name: "voltageRate", dimension: "VoltageRate", description: "Rate of change of the voltage across it (signed)", example: 1e6 },
   ],
   output: { dimension: "Current", description: "Displacement current (= conduction current in the leads)" },
-  source: { ...GRIFFITHS, locator: "section 7.3.2, charging capacitor" },
-  compute: (x) => x.capacitance * x.voltageRate,
+  source: { ...GRIFFITHS, locator: "section 7.3.2, charging capacitor (from memory)" },
+  // scaledProduct: one correctly rounded product, but an underflowed one is out_of_range, not 0.
+  compute: (x) => scaledProduct([x.capacitance, x.voltageRate], []),
 });
 
 /**
@@ -102,9 +131,8 @@ export const capacitorDisplacementCurrent = /* @__PURE__ */ defineFormula({
  * Validity: linear medium; epsr taken at frequency f (warning above 100 MHz,
  * where many wet materials disperse).
  *
- * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2017), section 7.3.5
- * (J_d = dD/dt); D. K. Cheng, Field and Wave Electromagnetics, 2nd ed. (1989),
- * section 7-2 (ratio to conduction current; locator from memory).
+ * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2013), section 7.3.5
+ * (J_d = dD/dt; section from memory).
  *
  * @example
  * displacementCurrentDensity({ relativePermittivity: 81, frequency: quantity(1, "MHz"),
@@ -122,9 +150,10 @@ export const displacementCurrentDensity = /* @__PURE__ */ defineFormula({
     { name: "fieldAmplitude", dimension: "ElectricField", description: "Peak electric field", domain: NON_NEGATIVE, example: 1 },
   ],
   output: { dimension: "CurrentDensity", description: "Peak displacement current density" },
-  validity: [{ code: "dispersion", when: (x) => x.frequency > 1e8, message: DISPERSION_MESSAGE }],
-  source: { ...GRIFFITHS, locator: "section 7.3.5, J_d = dD/dt" },
-  compute: (x) => 2 * Math.PI * x.frequency * EPSILON0 * x.relativePermittivity * x.fieldAmplitude,
+  validity: [{ code: "dispersion", when: (x) => x.frequency > 1e8, measure: (x) => x.frequency / 1e8, message: DISPERSION_MESSAGE }],
+  source: { ...GRIFFITHS, locator: "section 7.3.5, J_d = dD/dt (from memory)" },
+  // scaledProduct: f epsr E0 may overflow or underflow in an intermediate step although J_d does not.
+  compute: (x) => scaledProduct([TWO_PI, EPSILON0, x.frequency, x.relativePermittivity, x.fieldAmplitude], []),
 });
 
 /**
@@ -138,7 +167,11 @@ export const displacementCurrentDensity = /* @__PURE__ */ defineFormula({
  * Validity: sigma and epsr at frequency f (they disperse; warning above 100 MHz).
  *
  * Reference: D. K. Cheng, Field and Wave Electromagnetics, 2nd ed. (1989), section 8-3
- * (good conductors and good insulators, from memory); ITU-R P.527 for material values.
+ * (loss tangent; section from memory); ITU-R P.527 for material values.
+ *
+ * Method: sigma / (2 pi eps0 f epsr) through scaledProduct, so an extreme
+ * frequency or conductivity cannot overflow or underflow the denominator
+ * first (within 2.5 ulp).
  *
  * @example
  * conductionDisplacementRatio({ conductivity: quantity(4, "S/m"), relativePermittivity: 81,
@@ -156,13 +189,9 @@ export const conductionDisplacementRatio = /* @__PURE__ */ defineFormula({
     { name: "frequency", dimension: "Frequency", description: "Frequency", domain: POSITIVE, example: 1e6 },
   ],
   output: { dimension: "Dimensionless", description: "Conduction current over displacement current" },
-  validity: [{ code: "dispersion", when: (x) => x.frequency > 1e8, message: DISPERSION_MESSAGE }],
-  source: [
-    { authors: "D. K. Cheng", year: 1989, title: "Field and Wave Electromagnetics, 2nd ed.", locator: "section 8-3 (from memory)" },
-    { authors: "ITU-R", year: 1992, title: "Recommendation ITU-R P.527, Electrical characteristics of the surface of the Earth" },
-  ],
-  // sigma / (2 pi f) / (eps0 epsr): two quotients of moderate size, no overflow of the product 2 pi f eps0 epsr.
-  compute: (x) => x.conductivity / (2 * Math.PI * x.frequency) / (EPSILON0 * x.relativePermittivity),
+  validity: [{ code: "dispersion", when: (x) => x.frequency > 1e8, measure: (x) => x.frequency / 1e8, message: DISPERSION_MESSAGE }],
+  source: [CHENG, ITU_P527],
+  compute: (x) => scaledProduct([x.conductivity], [TWO_PI, EPSILON0, x.frequency, x.relativePermittivity]),
 });
 
 /**
@@ -175,14 +204,18 @@ export const conductionDisplacementRatio = /* @__PURE__ */ defineFormula({
  * Validity: sigma and epsr constant up to f_c; real materials disperse, so check
  * the values at f_c (warning when f_c is above 100 MHz).
  *
- * Reference: Cheng, Field and Wave Electromagnetics, 2nd ed. (1989), section 8-3 (from memory).
+ * Method: sigma / (2 pi eps0 epsr) through scaledProduct (within 2 ulp; no
+ * intermediate overflow or underflow).
+ *
+ * Reference: Cheng, Field and Wave Electromagnetics, 2nd ed. (1989), section 8-3
+ * (loss tangent; section from memory).
  *
  * @example
- * crossoverFrequency({ conductivity: quantity(4, "S/m"), relativePermittivity: 81 }); // ≈ 8.88e8 Hz
+ * dielectricRelaxationFrequency({ conductivity: quantity(4, "S/m"), relativePermittivity: 81 }); // ≈ 8.88e8 Hz
  */
-export const crossoverFrequency = /* @__PURE__ */ defineFormula({
-  id: "crossoverFrequency",
-  title: "Conduction-displacement crossover frequency",
+export const dielectricRelaxationFrequency = /* @__PURE__ */ defineFormula({
+  id: "dielectricRelaxationFrequency",
+  title: "Dielectric relaxation frequency",
   category: "displacement",
   description: "Frequency at which conduction and displacement currents are equal in a material (its dielectric relaxation frequency).",
   equation: "f_c = sigma / (2 pi eps0 epsr)",
@@ -190,13 +223,10 @@ export const crossoverFrequency = /* @__PURE__ */ defineFormula({
     { name: "conductivity", dimension: "Conductivity", description: "Conductivity of the material", domain: POSITIVE, example: 4 },
     { name: "relativePermittivity", ...MATERIAL_PERMITTIVITY },
   ],
-  output: { dimension: "Frequency", description: "Crossover frequency" },
-  validity: [{ code: "dispersion", when: (_x, f) => (f as number) > 1e8, message: DISPERSION_MESSAGE }],
-  source: [
-    { authors: "D. K. Cheng", year: 1989, title: "Field and Wave Electromagnetics, 2nd ed.", locator: "section 8-3 (from memory)" },
-    { authors: "ITU-R", year: 1992, title: "Recommendation ITU-R P.527, Electrical characteristics of the surface of the Earth" },
-  ],
-  compute: (x) => x.conductivity / (2 * Math.PI) / (EPSILON0 * x.relativePermittivity),
+  output: { dimension: "Frequency", description: "Frequency at which conduction and displacement currents are equal" },
+  validity: [{ code: "dispersion", when: (_x, f) => (f as number) > 1e8, measure: (_x, f) => (f as number) / 1e8, message: DISPERSION_MESSAGE }],
+  source: [CHENG, ITU_P527],
+  compute: (x) => scaledProduct([x.conductivity], [TWO_PI, EPSILON0, x.relativePermittivity]),
 });
 
 /**
@@ -212,8 +242,15 @@ export const crossoverFrequency = /* @__PURE__ */ defineFormula({
  * neglected), quasi-static (R much smaller than the wavelength at the rate of
  * change), leads along the axis; outside (r > R) the field is taken in the mid-plane.
  *
- * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2017),
- * Problem 7.34 (fat wire with a narrow gap; problem number from memory).
+ * Derivation: the Ampere-Maxwell law on a circle of radius r about the axis,
+ * with the displacement current I spread uniformly over the plate area pi R^2
+ * (so the enclosed part is I r^2 / R^2 inside, all of I outside).
+ *
+ * Method: mu0/(2 pi) I r / R^2 and mu0/(2 pi) I / r through scaledProduct
+ * (R^2 is never formed; within 2.5 ulp, no intermediate overflow or underflow).
+ *
+ * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2013),
+ * section 7.3.2 (Ampere's law with Maxwell's correction; section from memory).
  *
  * @example
  * chargingCapacitorField({ current: quantity(1, "A"), plateRadius: quantity(5, "cm"),
@@ -231,12 +268,11 @@ export const chargingCapacitorField = /* @__PURE__ */ defineFormula({
     { name: "radialDistance", dimension: "Length", description: "Distance from the axis (0 allowed)", domain: NON_NEGATIVE, example: 0.025 },
   ],
   output: { dimension: "FluxDensity", description: "Azimuthal flux density" },
-  source: { ...GRIFFITHS, locator: "Problem 7.34 (number from memory)" },
-  // Inside: (r/R)/R keeps the ratio near 1 before dividing once more; outside: one quotient.
+  source: { ...GRIFFITHS, locator: "section 7.3.2, Ampere's law with Maxwell's correction, on a circle about the axis between the plates (from memory)" },
   compute: (x) =>
     x.radialDistance <= x.plateRadius
-      ? ((MU0 / (2 * Math.PI)) * x.current * (x.radialDistance / x.plateRadius)) / x.plateRadius
-      : ((MU0 / (2 * Math.PI)) * x.current) / x.radialDistance,
+      ? scaledProduct([MU0_OVER_2PI, x.current, x.radialDistance], [x.plateRadius, x.plateRadius])
+      : scaledProduct([MU0_OVER_2PI, x.current], [x.radialDistance]),
 });
 
 /**
@@ -262,17 +298,20 @@ export const parasiticCouplingCurrent = /* @__PURE__ */ defineFormula({
   id: "parasiticCouplingCurrent",
   title: "Parasitic coupling current",
   category: "displacement",
-  description: "Current pushed through a stray capacitance by a voltage edge (switching node to heatsink or chassis).",
+  description:
+    "Current pushed through a stray capacitance by a voltage edge (switching node to heatsink or chassis). It flows through anything touching the circuit and is common-mode current that radiates and conducts interference (EMC).",
   equation: "I = C dV/dt",
   inputs: [
     { name: "capacitance", dimension: "Capacitance", description: "Stray capacitance", domain: POSITIVE, example: 1e-10 },
     { name: "voltageSlewRate", dimension: "VoltageRate", description: "Slew rate of the voltage across it (signed)", example: 1e10 },
   ],
   output: { dimension: "Current", description: "Peak current during the edge" },
-  cautions: [{ code: "leakage_and_emc", message: LEAKAGE_MESSAGE }],
+  cautions: [TOUCH_CURRENT],
   source: [
     { authors: "H. W. Ott", year: 2009, title: "Electromagnetic Compatibility Engineering", locator: "ch. 2, capacitive coupling (chapter from memory)" },
     { authors: "IEC", title: "IEC 60990, Methods of measurement of touch current and protective conductor current" },
+    { authors: "IEC", title: "IEC 62368-1, Audio/video, information and communication technology equipment - Part 1: Safety requirements", locator: "ES1 touch-current limit 0.5 mA (from memory)" },
   ],
-  compute: (x) => x.capacitance * x.voltageSlewRate,
+  // scaledProduct: an underflowed product is out_of_range, not a silent 0.
+  compute: (x) => scaledProduct([x.capacitance, x.voltageSlewRate], []),
 });

@@ -1,4 +1,4 @@
 export {
   displacementCurrent, capacitorDisplacementCurrent, displacementCurrentDensity, conductionDisplacementRatio,
-  crossoverFrequency, chargingCapacitorField, parasiticCouplingCurrent,
+  dielectricRelaxationFrequency, chargingCapacitorField, parasiticCouplingCurrent,
 } from "./displacement-current.js";

@@ -1,8 +1,21 @@
 import { ELEMENTARY_CHARGE, MU0, SPEED_OF_LIGHT } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { POSITIVE } from "../core/spec.js";
-import { cross, norm } from "../math/vec3.js";
-import { CHARGE, FAULT_FORCE_MESSAGE, IMPLANT_FIELD_LIMIT, IMPLANT_FIELD_MESSAGE } from "./shared.js";
+import { norm } from "../math/vec3.js";
+import { crossPlus, scaledVector } from "./cross.js";
+import { strongFieldCaution, GOVERN } from "../core/hazards.js";
+import { formatNumber } from "../core/format.js";
+import { scaledProduct } from "../capacitance/shared.js";
+import { CHARGE, faultCurrentCaution } from "./shared.js";
+
+const MU0_OVER_2PI = MU0 / (2 * Math.PI);
+const TWO_MU0 = 2 * MU0;
+
+/** IEC 60865-1, the standard for the mechanical effects of short-circuit currents. */
+const IEC_60865_1 = {
+  authors: "IEC", year: 2011,
+  title: "IEC 60865-1:2011, Short-circuit currents - Calculation of effects - Part 1: Definitions and calculation methods (3rd ed.; edition from memory)",
+} as const;
 
 /**
  * Lorentz force on a point charge moving through electric and magnetic fields.
@@ -15,7 +28,12 @@ import { CHARGE, FAULT_FORCE_MESSAGE, IMPLANT_FIELD_LIMIT, IMPLANT_FIELD_MESSAGE
  * field excluded); F is the rate of change of the relativistic momentum, so it
  * holds at any speed below c. Use the particle presets for q: `electron.charge`.
  *
- * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017),
+ * Method: each component of E + v x B is summed from exact products (no
+ * overflow, underflow or cancellation loss, even where a velocity filter
+ * nearly balances), then multiplied by q: within 3 ulp per component (a
+ * component below the normal range is returned subnormal or zero).
+ *
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013),
  * section 5.1.2 (Lorentz force law).
  *
  * @example
@@ -37,13 +55,12 @@ export const lorentzForce = /* @__PURE__ */ defineFormula({
   ],
   output: { dimension: "Force", description: "Force on the charge", components: ["x", "y", "z"] },
   relations: [{ rule: "|velocity| < c (speed of light)", holds: (x) => norm(x.velocity) < SPEED_OF_LIGHT }],
-  source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "section 5.1.2, Lorentz force law" },
-  // E + v x B first, then one multiplication by q: no cancellation beyond the sum itself.
-  compute: (x) => {
-    const vb = cross(x.velocity, x.fluxDensity);
-    const q = x.charge;
-    return [q * (x.electricField[0] + vb[0]), q * (x.electricField[1] + vb[1]), q * (x.electricField[2] + vb[2])];
-  },
+  source: { authors: "D. J. Griffiths", year: 2013, title: "Introduction to Electrodynamics, 4th ed.", locator: "section 5.1.2, Lorentz force law (from memory)" },
+  // crossPlus: E + v x B component by component with exact products and an accurate sum, so a
+  // velocity filter's near-balance keeps its digits and no product overflows or underflows;
+  // then one multiplication by q. Each component within 3 ulp unless it cancels below 1e-45
+  // of its largest term (see cross.ts).
+  compute: (x) => scaledVector(x.charge, crossPlus(x.velocity, x.fluxDensity, x.electricField)),
 });
 
 /**
@@ -58,7 +75,13 @@ export const lorentzForce = /* @__PURE__ */ defineFormula({
  * field exerts no net force on it. For a coil of N turns use l = N times the
  * turn length in the gap.
  *
- * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2017), section 5.1.3 (currents).
+ * Cautions: fault-current forces from 1 kA (common practice; IEC 60865-1:2011
+ * for short-circuit forces) and the strong-field rule on B (ICNIRP).
+ *
+ * Method: the product through scaledProduct (no intermediate overflow or
+ * underflow; within 2 ulp of I l B sin(theta) for the double inputs).
+ *
+ * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2013), section 5.1.3 (currents; section from memory).
  *
  * @example
  * wireForce({ current: quantity(2, "A"), length: quantity(5, "m"), fluxDensity: quantity(1, "T") }); // ≈ 10 N
@@ -77,15 +100,13 @@ export const wireForce = /* @__PURE__ */ defineFormula({
   ],
   output: { dimension: "Force", description: "Force on the wire, perpendicular to both the wire and B" },
   cautions: [
-    { code: "fault_current_force", message: FAULT_FORCE_MESSAGE },
-    {
-      code: "strong_field",
-      when: (x) => x.fluxDensity > IMPLANT_FIELD_LIMIT,
-      message: IMPLANT_FIELD_MESSAGE,
-    },
+    faultCurrentCaution((x: { readonly current: number }) => Math.abs(x.current)),
+    strongFieldCaution((x: { readonly fluxDensity: number }) => x.fluxDensity),
   ],
-  source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "section 5.1.3, F = I (l x B)" },
-  compute: (x) => x.current * x.length * x.fluxDensity * Math.sin(x.angle),
+  source: { authors: "D. J. Griffiths", year: 2013, title: "Introduction to Electrodynamics, 4th ed.", locator: "section 5.1.3, F = I (l x B) (from memory)" },
+  // scaledProduct: I l B may overflow or underflow in an intermediate step although F does not;
+  // sin of the double angle is taken as is (sin(pi as a double) is 1.2e-16, not 0).
+  compute: (x) => scaledProduct([x.current, x.length, x.fluxDensity, Math.sin(x.angle)], []),
 });
 
 /**
@@ -102,10 +123,13 @@ export const wireForce = /* @__PURE__ */ defineFormula({
  * equal length l side by side, the exact force is mu0 I1 I2 (sqrt(l^2 + d^2) - d) / (2 pi d),
  * so this formula overstates it by a fraction 1 - (sqrt(1 + r^2) - r) ≈ r for r = d/l;
  * a warning gives that fraction when d > 1 % of l. Conductors whose width is not
- * small against d (flat busbars) need a shape factor (IEC 60865-1).
+ * small against d (flat busbars) need a shape factor (IEC 60865-1:2011).
  *
- * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2017), section 5.2.2
- * (force between parallel wires); IEC 60865-1 for busbars; the same law defined the ampere before 2019 (2e-7 N per metre
+ * Cautions: from 1 kA (geometric mean of the two currents; common practice) the
+ * fault-current caution points to IEC 60865-1:2011 for short-circuit forces.
+ *
+ * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2013), section 5.2.2
+ * (force between parallel wires; section from memory); IEC 60865-1:2011 for busbars; the same law defined the ampere before 2019 (2e-7 N per metre
  * between 1 A wires 1 m apart, 9th CGPM 1948).
  *
  * @example
@@ -129,6 +153,7 @@ export const parallelWiresForce = /* @__PURE__ */ defineFormula({
     {
       code: "finite_length",
       when: (x) => x.separation > 0.01 * x.length,
+      measure: (x) => x.separation / x.length,
       message: (x) => {
         const r = x.separation / x.length;
         // 1 - (sqrt(1 + r^2) - r), with sqrt(1 + r^2) - r = 1 / (sqrt(1 + r^2) + r) (no cancellation)
@@ -138,14 +163,17 @@ export const parallelWiresForce = /* @__PURE__ */ defineFormula({
       },
     },
   ],
-  cautions: [{ code: "fault_current_force", message: FAULT_FORCE_MESSAGE }],
+  // The geometric mean of the two currents (as a product of square roots: no overflow) is the
+  // current of two equal conductors with the same force.
+  cautions: [faultCurrentCaution((x: { readonly current1: number; readonly current2: number }) =>
+    Math.sqrt(Math.abs(x.current1)) * Math.sqrt(Math.abs(x.current2)))],
   source: [
-    { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "section 5.2.2, parallel wires" },
-    { authors: "IEC", year: 2020, title: "IEC 60865-1, Short-circuit currents - Calculation of effects - Part 1: Definitions and calculation methods" },
+    { authors: "D. J. Griffiths", year: 2013, title: "Introduction to Electrodynamics, 4th ed.", locator: "section 5.2.2, parallel wires (from memory)" },
+    IEC_60865_1,
   ],
-  // I1 I2 as one product makes the result exactly symmetric in the currents; it overflows only
-  // beyond 1e154 A^2 (reported as out_of_range).
-  compute: (x) => (((MU0 / (2 * Math.PI)) * (x.current1 * x.current2)) / x.separation) * x.length,
+  // scaledProduct: no intermediate overflow or underflow (1e200 A with 1e-200 A is fine), within
+  // 2.5 ulp; swapping the currents changes at most the last digits, reversing one flips the sign exactly.
+  compute: (x) => scaledProduct([MU0_OVER_2PI, x.current1, x.current2, x.length], [x.separation]),
 });
 
 /**
@@ -158,7 +186,7 @@ export const parallelWiresForce = /* @__PURE__ */ defineFormula({
  * Validity: the field on one side of a surface and (nearly) none on the other;
  * where the field differs on the two sides, p = (B1^2 - B2^2) / (2 mu0).
  *
- * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2017), section 8.1.2
+ * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2013), section 8.1.2
  * (field energy density, magnetic part B^2/(2 mu0)); Jackson, Classical
  * Electrodynamics, 3rd ed. (1999), section 5.16 (energy in the magnetic field).
  *
@@ -178,19 +206,23 @@ export const magneticPressure = /* @__PURE__ */ defineFormula({
   cautions: [
     {
       code: "coil_pressure",
+      // From one atmosphere (0.1 MPa, reached at about 0.5 T) the field pushes on windings as hard as
+      // a pressure vessel's contents: common practice, not a figure from a standard.
       when: (_x, p) => (p as number) >= 1e5,
+      measure: (_x, p) => p as number,
       message: (_x, p) =>
-        `magnetic pressure of ${((p as number) / 1e6).toPrecision(3)} MPa (at least atmospheric pressure) acts on the windings: ` +
-        "coils and their reinforcement must carry it, and pulsed or superconducting magnets can fail violently; local codes and licensed practice govern",
+        `magnetic pressure of ${formatNumber((p as number) / 1e6, 3)} MPa, at least atmospheric pressure (0.1 MPa; common practice), acts on the windings: ` +
+        `coils and their reinforcement must carry it, and pulsed or superconducting magnets can fail violently. ${GOVERN}`,
     },
-    { code: "strong_field", when: (x) => Math.abs(x.fluxDensity) > IMPLANT_FIELD_LIMIT, message: IMPLANT_FIELD_MESSAGE },
+    strongFieldCaution((x: { readonly fluxDensity: number }) => Math.abs(x.fluxDensity)),
   ],
   source: [
-    { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "section 8.1.2, energy density B^2/(2 mu0)" },
-    { authors: "J. D. Jackson", year: 1999, title: "Classical Electrodynamics, 3rd ed.", locator: "section 5.16" },
+    { authors: "D. J. Griffiths", year: 2013, title: "Introduction to Electrodynamics, 4th ed.", locator: "section 8.1.2, energy density B^2/(2 mu0) (from memory)" },
+    { authors: "J. D. Jackson", year: 1999, title: "Classical Electrodynamics, 3rd ed.", locator: "section 5.16 (from memory)" },
   ],
-  // (B / sqrt(2 mu0))^2 would round twice; B * B overflows only beyond 1e154 T, reported as out_of_range.
-  compute: (x) => (x.fluxDensity * x.fluxDensity) / (2 * MU0),
+  // scaledProduct: B B / (2 mu0) with no intermediate overflow or underflow of B^2; within 1.5 ulp
+  // (2 mu0 is an exact doubling).
+  compute: (x) => scaledProduct([x.fluxDensity, x.fluxDensity], [TWO_MU0]),
 });
 
 /**
@@ -240,7 +272,8 @@ export const hallVoltage = /* @__PURE__ */ defineFormula({
   ],
   output: { dimension: "Voltage", description: "Hall voltage: edge toward I x B minus the opposite edge" },
   relations: [{ rule: "carrierCharge != 0", holds: (x) => x.carrierCharge !== 0 }],
-  source: { authors: "N. W. Ashcroft, N. D. Mermin", year: 1976, title: "Solid State Physics", locator: "ch. 1, Hall effect" },
-  // I/(n q t) first (a current per area of the order of a drift speed times charge), then times B.
-  compute: (x) => (x.current / (x.carrierDensity * x.carrierCharge * x.thickness)) * x.fluxDensity,
+  source: { authors: "N. W. Ashcroft, N. D. Mermin", year: 1976, title: "Solid State Physics", locator: "ch. 1, Hall effect (from memory)" },
+  // scaledProduct: n q t and I B may overflow or underflow in an intermediate step although V_H does not;
+  // within 2.5 ulp.
+  compute: (x) => scaledProduct([x.current, x.fluxDensity], [x.carrierDensity, x.carrierCharge, x.thickness]),
 });

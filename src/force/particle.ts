@@ -1,17 +1,40 @@
 import { SPEED_OF_LIGHT } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { NON_NEGATIVE, POSITIVE } from "../core/spec.js";
-import { cross, dot, norm, type V3 } from "../math/vec3.js";
-import { BEAM_MESSAGE, CHARGE, IMPLANT_FIELD_LIMIT, IMPLANT_FIELD_MESSAGE, PARTICLE_MASS, lorentzFactor } from "./shared.js";
+import { dot, norm, type V3 } from "../math/vec3.js";
+import { crossPlus, scaledVector, timesPow2 } from "./cross.js";
+import { strongFieldCaution } from "../core/hazards.js";
+import { scaledProduct } from "../capacitance/shared.js";
+import { beamCaution, CHARGE, PARTICLE_MASS, lorentzFactor } from "./shared.js";
 
 const C = SPEED_OF_LIGHT;
 const C2 = C * C;
 
-const STRONG_FIELD = {
-  code: "strong_field",
-  when: (x: { readonly fluxDensity: number }) => x.fluxDensity > IMPLANT_FIELD_LIMIT,
-  message: IMPLANT_FIELD_MESSAGE,
-} as const;
+const TWO_PI = 2 * Math.PI;
+
+/** The library's one strong-field rule (ICNIRP thresholds), on the flux-density input. */
+const STRONG_FIELD = strongFieldCaution((x: { readonly fluxDensity: number }) => x.fluxDensity);
+
+// 2^600 and 2^-600: exact scalings that bring a sum of two tiny or two huge
+// positive numbers into the normal range without changing its digits.
+const UP = 2 ** 600;
+const DOWN = 2 ** -600;
+
+/**
+ * gamma m = m + T / c2 (c2 = c^2 unless given) for m > 0, T >= 0, returned as [value, factor] with
+ * the true value = value * factor, so the sum keeps its digits where m and T
+ * are so small that T / c^2 would underflow, or so large that the sum would
+ * overflow. A sum of two positive terms: no cancellation (half an ulp each step).
+ */
+function relativisticMass(m: number, t: number, c2: number = C2): [number, number] {
+  if (m >= 1e-280 && m <= 1e300) return [m + t / c2, 1];
+  if (m < 1e-280) {
+    const tm = (t * DOWN) / c2; // t / c2 * 2^-600: finite for every finite t
+    if (tm >= 1e-300) return [m + t / c2, 1]; // T dominates, no underflow in t / c2
+    return [m * UP + (t * UP) / c2, DOWN];
+  }
+  return [m * DOWN + (t * DOWN) / c2, UP];
+}
 
 const JACKSON = { authors: "J. D. Jackson", year: 1999, title: "Classical Electrodynamics, 3rd ed." } as const;
 
@@ -48,9 +71,13 @@ export const cyclotronFrequency = /* @__PURE__ */ defineFormula({
   ],
   output: { dimension: "Frequency", description: "Cyclotron frequency (cycles per second)" },
   cautions: [STRONG_FIELD],
-  source: { ...JACKSON, locator: "section 12.2, gyration frequency" },
-  // gamma m = m + T/c^2: no subtraction, exact at T = 0.
-  compute: (x) => (Math.abs(x.charge) * x.fluxDensity) / (2 * Math.PI * (x.mass + x.kineticEnergy / C2)),
+  source: { ...JACKSON, locator: "section 12.2, gyration frequency (from memory)" },
+  // gamma m = m + T/c^2: no subtraction, exact at T = 0; scaledProduct: no intermediate overflow or
+  // underflow in |q| B / (2 pi gamma m); within 3 ulp.
+  compute: (x) => {
+    const [gm, factor] = relativisticMass(x.mass, x.kineticEnergy);
+    return scaledProduct([Math.abs(x.charge), x.fluxDensity], [TWO_PI, gm, factor]);
+  },
 });
 
 /**
@@ -90,6 +117,7 @@ export const gyroradius = /* @__PURE__ */ defineFormula({
     {
       code: "relativistic_speed",
       when: (x) => x.speed > 0.1 * C,
+      measure: (x) => x.speed / C,
       message: (x) => {
         const g = lorentzFactor(x.speed);
         return `speed is ${(x.speed / C).toPrecision(3)} c: the non-relativistic radius is ${(100 * (1 - 1 / g)).toPrecision(2)} % ` +
@@ -98,9 +126,9 @@ export const gyroradius = /* @__PURE__ */ defineFormula({
     },
   ],
   cautions: [STRONG_FIELD],
-  source: { ...JACKSON, locator: "section 12.2, gyration radius (gamma = 1)" },
-  // (m / |q|) (v / B): each quotient stays in range for physical particles.
-  compute: (x) => (x.mass / Math.abs(x.charge)) * (x.speed / x.fluxDensity),
+  source: { ...JACKSON, locator: "section 12.2, gyration radius (gamma = 1) (from memory)" },
+  // scaledProduct: m v / (|q| B) with no intermediate overflow or underflow, within 2 ulp.
+  compute: (x) => scaledProduct([x.mass, x.speed], [Math.abs(x.charge), x.fluxDensity]),
 });
 
 /**
@@ -136,12 +164,14 @@ export const relativisticGyroradius = /* @__PURE__ */ defineFormula({
   ],
   output: { dimension: "Length", description: "Gyroradius" },
   relations: [{ rule: "charge != 0", holds: (x) => x.charge !== 0 }],
-  cautions: [{ code: "particle_beam", message: BEAM_MESSAGE }, STRONG_FIELD],
-  source: { ...JACKSON, locator: "section 12.2, gyration radius" },
+  cautions: [beamCaution, STRONG_FIELD],
+  source: { ...JACKSON, locator: "section 12.2, gyration radius (from memory)" },
   compute: (x) => {
-    // p c as a product of square roots: no cancellation as T -> 0, no overflow of T^2.
-    const pc = Math.sqrt(x.kineticEnergy) * Math.sqrt(x.kineticEnergy + 2 * x.mass * C2);
-    return pc / C / Math.abs(x.charge) / x.fluxDensity;
+    // p c = sqrt(T) sqrt(T + 2 m c^2), a product of square roots: no cancellation as T -> 0 and no
+    // T^2. T + 2 m c^2 = 2 c^2 (gamma m as in cyclotronFrequency, with T/2): scaled so that it
+    // neither overflows nor underflows; scaledProduct then divides by c |q| B (within 3 ulp).
+    const [half, factor] = relativisticMass(x.mass, x.kineticEnergy, 2 * C2); // (T + 2 m c^2) / (2 c^2) / factor
+    return scaledProduct([Math.sqrt(x.kineticEnergy), Math.sqrt(half), Math.sqrt(2 * factor)], [Math.abs(x.charge), x.fluxDensity]);
   },
 });
 
@@ -179,6 +209,7 @@ export const driftVelocity = /* @__PURE__ */ defineFormula({
     {
       code: "no_drift_frame",
       when: (_x, v) => norm(v as V3) >= C,
+      measure: (_x, v) => norm(v as V3) / C,
       message: (_x, v) =>
         `E_perp / B = ${(norm(v as V3) / C).toPrecision(3)} c is not below c: no frame exists in which E vanishes, ` +
         "so the particle does not drift but is accelerated without bound; this result does not apply",
@@ -186,6 +217,7 @@ export const driftVelocity = /* @__PURE__ */ defineFormula({
     {
       code: "relativistic_drift",
       when: (_x, v) => norm(v as V3) > 0.1 * C && norm(v as V3) < C,
+      measure: (_x, v) => norm(v as V3) / C,
       message: (_x, v) =>
         `drift speed is ${(norm(v as V3) / C).toPrecision(3)} c: E x B / B^2 is still the guiding-centre velocity, ` +
         "but the gyration is relativistic and its lab-frame orbit is distorted; trace the particle to see it",
@@ -193,17 +225,23 @@ export const driftVelocity = /* @__PURE__ */ defineFormula({
     {
       code: "parallel_electric_field",
       when: (x) => Math.abs(dot(x.electricField, unit(x.fluxDensity))) > 1e-6 * norm(x.electricField),
+      // The fraction of E along B (0 for E = 0).
+      measure: (x) => { const e = norm(x.electricField); return e > 0 ? Math.abs(dot(x.electricField, unit(x.fluxDensity))) / e : 0; },
       message: (x) =>
         `E has a component of ${dot(x.electricField, unit(x.fluxDensity)).toPrecision(3)} V/m along B: it accelerates ` +
         "the particle along B; the drift given is that of the perpendicular part only",
     },
   ],
-  source: { ...JACKSON, locator: "section 12.3, crossed E and B fields" },
-  // (E x b) / |B| with b = B/|B|: |B|^2 is never formed, so no overflow or underflow for extreme B.
+  source: { ...JACKSON, locator: "section 12.3, crossed E and B fields (from memory)" },
+  // E x B component by component from exact products (crossPlus), over |B|^2 formed from B
+  // scaled by a power of two (no overflow or underflow); within 4 ulp per component.
   compute: (x) => {
-    const n = norm(x.fluxDensity);
-    const d = cross(x.electricField, unit(x.fluxDensity));
-    return [d[0] / n, d[1] / n, d[2] / n];
+    const B = x.fluxDensity;
+    const eb = Math.floor(Math.log2(Math.max(Math.abs(B[0]), Math.abs(B[1]), Math.abs(B[2]))));
+    const b0 = timesPow2(B[0], -eb), b1 = timesPow2(B[1], -eb), b2 = timesPow2(B[2], -eb);
+    const b2sum = b0 * b0 + b1 * b1 + b2 * b2; // in [0.25, 12): a sum of squares of scaled components
+    const s = crossPlus(x.electricField, B);
+    return scaledVector(1 / b2sum, { mantissa: s.mantissa, exponent: s.exponent - 2 * eb });
   },
 });
 

@@ -1,28 +1,54 @@
-import { SPEED_OF_LIGHT } from "../constants/si.js";
+import { ELEMENTARY_CHARGE, SPEED_OF_LIGHT } from "../constants/si.js";
+import { formatNumber } from "../core/format.js";
+import { GOVERN } from "../core/hazards.js";
 
 // Shared caution texts and input specs of the force and particle formulas.
 
 /**
- * Flux density above which implanted medical devices may be disturbed:
- * 0.5 mT (5 gauss), the line commonly drawn around MRI and magnet rooms
- * (common practice).
+ * Fault-current forces: the caution applies from 1 kA. Busbar systems and the
+ * short-circuit currents whose mechanical effects IEC 60865-1:2011 (3rd ed.;
+ * edition from memory) calculates are in the kA range (tens of kA peak in
+ * low-voltage switchboards); a conductor carrying 1 kA or more is a power
+ * conductor whose supports must be checked for the fault current, while signal
+ * wires, voice coils and small actuators stay far below it. The 1 kA line is
+ * common practice, not a figure from the standard.
  */
-export const IMPLANT_FIELD_LIMIT = 0.5e-3;
+export const FAULT_CURRENT_THRESHOLD = 1e3;
 
-export const IMPLANT_FIELD_MESSAGE =
-  "flux density above 0.5 mT (the 5 gauss line, common practice): keep people with pacemakers, " +
-  "defibrillators or other implanted medical devices out, and keep loose ferromagnetic objects away; " +
-  "local codes and licensed practice govern";
+/**
+ * The fault-current caution for a force computed from a current; `amps` picks
+ * the current (for two conductors, the geometric mean of their magnitudes).
+ */
+export function faultCurrentCaution<X>(amps: (x: X) => number) {
+  return {
+    code: "fault_current_force",
+    when: (x: X): boolean => amps(x) >= FAULT_CURRENT_THRESHOLD,
+    measure: (x: X): number => amps(x),
+    message: (x: X): string =>
+      `${formatNumber(amps(x), 3)} A is in the range of busbar and short-circuit currents (caution from 1 kA, common practice): ` +
+      "the force grows with the square of the current, so a fault of ten times this current gives a hundred times the force, " +
+      "enough to bend busbars, break supports and throw conductors. Size conductors and supports for the peak short-circuit " +
+      `current by IEC 60865-1:2011 (short-circuit currents, calculation of effects), not for the rated current. ${GOVERN}`,
+  } as const;
+}
 
-export const FAULT_FORCE_MESSAGE =
-  "under short-circuit (fault) current the force grows with the square of the peak current and can bend " +
-  "busbars, break supports and throw conductors: size conductors and supports for the peak short-circuit " +
-  "current by IEC 60865-1 (short-circuit currents, calculation of effects), not for the rated current; " +
-  "local codes and licensed practice govern";
+/**
+ * Beam caution from 5 keV kinetic energy: where a beam of that energy or more
+ * stops it makes X-rays that can leave thin walls, and radiation-protection
+ * rules treat apparatus accelerating electrons through more than about 5 kV as
+ * an X-ray source (common practice, from memory).
+ */
+export const BEAM_ENERGY_THRESHOLD = 5e3 * ELEMENTARY_CHARGE;
 
-export const BEAM_MESSAGE =
-  "charged-particle beams are a radiation hazard (directly, and through X-rays made where the beam stops); " +
-  "shielding, interlocks and radiation-protection rules apply; local codes and licensed practice govern";
+export const beamCaution = {
+  code: "particle_beam",
+  when: (x: { readonly kineticEnergy: number }): boolean => x.kineticEnergy >= BEAM_ENERGY_THRESHOLD,
+  measure: (x: { readonly kineticEnergy: number }): number => x.kineticEnergy,
+  message: (x: { readonly kineticEnergy: number }): string =>
+    `a kinetic energy of ${formatNumber(x.kineticEnergy / ELEMENTARY_CHARGE, 3)} eV per particle is at or above 5 keV, where a beam makes X-rays ` +
+    "where it stops (common practice, from memory): charged-particle beams are a radiation hazard directly and through those X-rays; " +
+    `shielding, interlocks and radiation-protection rules apply. ${GOVERN}`,
+} as const;
 
 /** A signed charge in C; negative for the electron. Presets: `electron.charge`, `proton.charge`. */
 export const CHARGE = {
