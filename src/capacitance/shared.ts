@@ -115,6 +115,12 @@ export function scaledProduct(factors: readonly number[], divisors: readonly num
 }
 
 function scaledProductSlow(factors: readonly number[], divisors: readonly number[]): number {
+  if (factors.includes(0)) {
+    // An exact zero, signed as IEEE arithmetic would sign it (-0 for an odd count of negative signs).
+    let negative = false;
+    for (const v of [...factors, ...divisors]) if (v < 0 || Object.is(v, -0)) negative = !negative;
+    return negative ? -0 : 0;
+  }
   let sign = 1;
   let m = 1;
   let e = 0;
@@ -122,7 +128,6 @@ function scaledProductSlow(factors: readonly number[], divisors: readonly number
   // intermediate can leave the range; only the exponent sum grows.
   for (let i = 0; i < factors.length; i++) {
     const f = factors[i]!;
-    if (f === 0) return 0;
     if (f < 0) sign = -sign;
     const [mf, ef] = split(Math.abs(f));
     const [mm, em] = split(m * mf);

@@ -15,6 +15,7 @@ const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 const IDS = [
   "parallelPlateCapacitance", "coaxialCapacitance", "sphericalCapacitance", "isolatedSphereCapacitance",
   "twoWireCapacitance", "wireOverPlaneCapacitance", "capacitorEnergy", "capacitorCharge",
+  "seriesCapacitance", "parallelCapacitance",
 ];
 
 describe("capacitance formulas through evaluate", () => {
@@ -124,32 +125,52 @@ describe("stored-energy cautions", () => {
   it("a small capacitor at extra-low voltage carries no caution", () => {
     expect(energy(1e-9, 12).cautions).toEqual([]);
     expect(charge(10e-6, 24).cautions).toEqual([]);
+    expect(energy(1e-12, 120).cautions).toEqual([]); // 120 V d.c. is still band I (IEC 60449, from memory)
   });
 
-  it("voltages above the 120 V d.c. extra-low-voltage limit (IEC 61140) are cautioned either sign", () => {
-    expect(codes(energy(1e-12, 130).cautions)).toEqual(["hazardous_voltage"]);
-    expect(codes(charge(1e-12, -130).cautions)).toEqual(["hazardous_voltage"]);
-    expect(energy(1e-12, 130).cautions[0]!.message).toMatch(/local codes/i);
+  it("uses the library's d.c. voltage bands: above 120 V and above 1500 V (IEC 61140 / IEC 60449), either sign", () => {
+    expect(codes(energy(1e-12, 130).cautions)).toEqual(["above_extra_low_voltage"]);
+    expect(codes(charge(1e-12, -130).cautions)).toEqual(["above_extra_low_voltage"]);
+    expect(codes(energy(1e-15, 1500).cautions)).toEqual(["above_extra_low_voltage"]);
+    expect(codes(energy(1e-15, -1600).cautions)).toEqual(["high_voltage"]);
+    expect(energy(1e-12, 130).cautions[0]!.message).toMatch(/120 V/);
+    expect(energy(1e-12, 130).cautions[0]!.message).toMatch(/licensed practice govern/);
   });
 
-  it("charge beyond the IEC 60335-1 clause 8.1.4 discharge limits is cautioned with handling advice", () => {
-    // Limits (IEC 60335-1 clause 8.1.4, quoted from a secondary source): above 42.4 V peak,
+  it("charge beyond the IEC 60335-1 clause 8.1.4 discharge limits is cautioned with handling advice and its ratio to the limit", () => {
+    // Limits (IEC 60335-1 clause 8.1.4, quoted from a secondary source, from memory): above 42.4 V peak,
     // 0.1 uF up to 450 V; 45 uC up to 15 kV; 350 mJ above 15 kV.
     expect(codes(charge(0.2e-6, 100).cautions)).toEqual(["stored_charge"]);
+    expect(charge(0.2e-6, 42).cautions).toEqual([]);
     expect(charge(0.05e-6, 100).cautions).toEqual([]);
-    expect(codes(charge(0.05e-6, 1000).cautions)).toEqual(["hazardous_voltage", "stored_charge"]); // 50 uC
-    expect(codes(charge(0.04e-6, 1000).cautions)).toEqual(["hazardous_voltage"]); // 40 uC
-    expect(codes(charge(4e-9, 20e3).cautions)).toEqual(["hazardous_voltage", "stored_charge"]); // 0.8 J
-    expect(codes(charge(1e-9, 20e3).cautions)).toEqual(["hazardous_voltage"]); // 0.2 J
+    expect(codes(charge(0.05e-6, 1000).cautions)).toEqual(["above_extra_low_voltage", "stored_charge"]); // 50 uC
+    expect(codes(charge(0.04e-6, 1000).cautions)).toEqual(["above_extra_low_voltage"]); // 40 uC
+    expect(codes(charge(4e-9, 20e3).cautions)).toEqual(["high_voltage", "stored_charge"]); // 0.8 J
+    expect(codes(charge(1e-9, 20e3).cautions)).toEqual(["high_voltage"]); // 0.2 J
     const msg = charge(0.2e-6, 100).cautions[0]!.message;
+    expect(msg).toMatch(/2 times the limit/);
     expect(msg).toMatch(/bleed resistor/);
     expect(msg).toMatch(/licensed practice govern/);
   });
 
-  it("stored energy of 10 J and more is cautioned as a burn and shock hazard (common practice)", () => {
+  it("stored energy from 20 J (the IEC 60950-1 hazardous energy level) is cautioned, below it not", () => {
     const r = energy(1e-3, 400); // 80 J
-    expect(codes(r.cautions)).toEqual(["hazardous_voltage", "stored_charge", "stored_energy"]);
+    expect(codes(r.cautions)).toEqual(["above_extra_low_voltage", "stored_charge", "stored_energy"]);
     expect(r.cautions[2]!.message).toContain("80 J");
+    expect(r.cautions[2]!.message).toContain("20 J");
+    expect(codes(energy(2.5e-4, 400).cautions)).toContain("stored_energy"); // exactly 20 J
+    expect(codes(energy(2.4e-4, 400).cautions)).not.toContain("stored_energy"); // 19.2 J
     expect(codes(energy(100e-6, 400).cautions)).not.toContain("stored_energy"); // 8 J
+  });
+
+  it("every caution has a measure that grows with the hazard", () => {
+    const def = capacitorEnergy.definition;
+    const at = (c: number, v: number) => Object.fromEntries(
+      def.cautions!.map((k) => [k.code, k.measure!({ capacitance: c, voltage: v }, (c * v * v) / 2)]),
+    );
+    const low = at(1e-3, 400), high = at(1e-3, 800);
+    for (const code of Object.keys(low)) expect(high[code]!, code).toBeGreaterThan(low[code]!);
+    expect(at(1e-3, 400)["stored_energy"]).toBe(80);
+    expect(at(1e-3, 1e200)["stored_charge"]).toBe(Number.MAX_VALUE); // capped, never Infinity
   });
 });

@@ -91,3 +91,15 @@ export function representable(v: Dec): boolean {
   const m = v.abs();
   return m.gte("2.2250738585072014e-308") && m.lte("1.7976931348623157e308");
 }
+
+/** C1 C2 / (C1 + C2): two capacitors in series. */
+export function seriesOracle(x: { capacitance1: number; capacitance2: number }): Dec {
+  const a = exact(x.capacitance1);
+  const b = exact(x.capacitance2);
+  return a.times(b).div(a.plus(b));
+}
+
+/** C1 + C2: two capacitors in parallel. */
+export function parallelOracle(x: { capacitance1: number; capacitance2: number }): Dec {
+  return exact(x.capacitance1).plus(exact(x.capacitance2));
+}

@@ -92,7 +92,9 @@ describe("handbook equations for lines in air", () => {
     // Thin-wire limits: two far-apart cylinders C' = pi eps0 / ln(d / sqrt(a1 a2)), and a wire
     // over a plane by images with d = 2h. At D/a = 1e7 the difference is (a/D)^2 / ln(D/a), below 1e-15.
     const eps0 = constant("vacuumPermittivity").value;
-    const src = "J. D. Jackson, Classical Electrodynamics, 3rd ed. (1999), Problem 1.7 — from memory";
+    // The ln forms are the thin-wire expressions of transmission-line handbooks (common practice);
+    // the expected values are those expressions evaluated in double precision, not printed numbers.
+    const src = "thin-wire limits pi eps0 / ln(D/a) and 2 pi eps0 / ln(2h/a), common practice; eps0 CODATA 2022";
     checkCases(
       [{ name: "two wires D/a = 1e7", input: { a: 1e-4, d: 1e3 }, expected: (Math.PI * eps0) / Math.log(1e7), tolerance: 1e-12, source: src }],
       (x) => twoWireCapacitance({ wireRadius: m(x.a), separation: m(x.d), length: m(1) }),
