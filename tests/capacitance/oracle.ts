@@ -4,6 +4,8 @@
 // expressions as they stand (ln(b/a), acosh(D/2a), ab/(b-a)): at 50 digits the
 // cancellation that hurts doubles costs nothing.
 import Decimal from "decimal.js";
+import { expect } from "vitest";
+import type { FormulaError } from "../../src/core/errors.js";
 import { constant } from "../../src/constants/index.js";
 import { constantDecimal } from "../../src/constants/decimal.js";
 
@@ -102,4 +104,68 @@ export function seriesOracle(x: { capacitance1: number; capacitance2: number }):
 /** C1 + C2: two capacitors in parallel. */
 export function parallelOracle(x: { capacitance1: number; capacitance2: number }): Dec {
   return exact(x.capacitance1).plus(exact(x.capacitance2));
+}
+
+const MIN_NORMAL = "2.2250738585072014e-308";
+const MIN_SUBNORMAL_HALF = "2.4703282292062328e-324"; // half the smallest subnormal: below it a result rounds to 0
+
+/**
+ * The shared extremes check: formula `f` at plain SI inputs `x` against the
+ * oracle value `want`. A normal result must be within `tol` (relative); an
+ * overflowing or below-subnormal one must be out_of_range; a subnormal one may
+ * be out_of_range or a subnormal within one subnormal ulp (2^-1074). Records
+ * the worst relative error per formula id in `worst`.
+ */
+export function agreesWithOracle(f: unknown, x: object, want: Dec, tol: number, worst: Map<string, number>): void {
+  const id = (f as { id: string }).id;
+  const call = () => (f as (x: never) => number)(x as never);
+  const m = want.abs();
+  if (m.isZero()) {
+    expect(call(), `${id} ${JSON.stringify(x)}`).toBe(0);
+  } else if (representable(want)) {
+    const got = call();
+    const err = relErr(got, want);
+    worst.set(id, Math.max(worst.get(id) ?? 0, err));
+    const eps = Number.EPSILON;
+    if (!(err <= tol)) expect.fail(`${id} ${JSON.stringify(x)}: got ${got}, want ${want.toPrecision(20)}, rel.err ${err / eps} eps > ${tol / eps} eps`);
+  } else if (m.lt(MIN_NORMAL) && m.gte(MIN_SUBNORMAL_HALF)) {
+    let got: number;
+    try {
+      got = call();
+    } catch (e) {
+      expect((e as FormulaError).code).toBe("out_of_range");
+      return;
+    }
+    expect(exact(got).minus(want).abs().lte(exact(2 ** -1074)), `${id} ${JSON.stringify(x)}: got ${got}`).toBe(true);
+  } else {
+    expect(call, `${id} ${JSON.stringify(x)}`).toThrow(expect.objectContaining({ code: "out_of_range" }) as unknown as FormulaError);
+  }
+}
+
+/**
+ * The same for a vector result, component by component: a normal component
+ * within `tol`, a zero one exactly 0, a subnormal or smaller one within one
+ * subnormal ulp; out_of_range when a component overflows or when every
+ * non-zero component is below half the smallest subnormal.
+ */
+export function vectorAgreesWithOracle(f: unknown, x: object, want: readonly Dec[], tol: number, worst: Map<string, number>): void {
+  const id = (f as { id: string }).id;
+  const call = () => (f as (x: never) => readonly number[])(x as never);
+  const overflow = want.some((w) => w.abs().gt("1.7976931348623157e308"));
+  const allTiny = want.every((w) => w.abs().lt(MIN_SUBNORMAL_HALF)) && want.some((w) => !w.isZero());
+  if (overflow || allTiny) {
+    expect(call, `${id} ${JSON.stringify(x)}`).toThrow(expect.objectContaining({ code: "out_of_range" }) as unknown as FormulaError);
+    return;
+  }
+  const got = call();
+  for (let i = 0; i < 3; i++) {
+    const w = want[i]!;
+    if (representable(w)) {
+      const err = relErr(got[i]!, w);
+      worst.set(id, Math.max(worst.get(id) ?? 0, err));
+      if (!(err <= tol)) expect.fail(`${id}[${i}] ${JSON.stringify(x)}: got ${got[i]}, want ${w.toPrecision(20)}, rel.err ${err / Number.EPSILON} eps`);
+    } else {
+      expect(exact(got[i]!).minus(w).abs().lte(exact(2 ** -1074)), `${id}[${i}] ${JSON.stringify(x)}: got ${got[i]}, want ${w.toPrecision(5)}`).toBe(true);
+    }
+  }
 }
