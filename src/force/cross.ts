@@ -3,9 +3,9 @@
 // A component of a x b is a difference of two products, a_j b_k - a_k b_j,
 // and adding c_i can cancel further (a velocity filter: E + v x B = 0). Formed
 // plainly, a component that nearly cancels keeps no correct digits, and the
-// products overflow or underflow for extreme magnitudes. Here the vectors are
-// first scaled by powers of two (exact), each product is split exactly into
-// a sum hi + lo (Dekker's product with Veltkamp's split), and the five terms
+// products overflow or underflow for extreme magnitudes. Here each factor is
+// first scaled by its own power of two (exact), each product is split exactly
+// into a sum hi + lo (Dekker's product with Veltkamp's split), and the five terms
 // c_i + hi1 + lo1 - hi2 - lo2 are added by three passes of error-free
 // transformations (Ogita, Rump and Oishi, "Accurate sum and dot product",
 // SIAM J. Sci. Comput. 26 (2005), Algorithm 4.8, SumK with K = 3; from memory).
@@ -13,13 +13,13 @@
 // Error bound (ORO 2005, Prop. 4.10, from memory): |result - exact| <=
 // eps |exact| + 2 (3 eps)^3 sum |terms|, so a component is within about one ulp
 // unless it cancels below 1e-45 of its largest term. Terms far below the
-// largest one (by more than 2^-1000 after scaling) are lost to underflow,
+// largest one of their component (by 2^-1000 and more) are lost to underflow,
 // which stays below that bound relative to the largest term.
 
-/** The value of component i is `mantissa[i] * 2^exponent`; mantissas are at most about 16. */
+/** The value of component i is `mantissa[i] * 2^exponent[i]`; mantissas are at most about 16. */
 export interface Scaled3 {
   readonly mantissa: [number, number, number];
-  readonly exponent: number;
+  readonly exponent: [number, number, number];
 }
 
 const SPLIT = 134217729; // 2^27 + 1
@@ -36,10 +36,6 @@ export function timesPow2(x: number, k: number): number {
   const k2 = Math.trunc((k - k1) / 2);
   const k3 = k - k1 - k2;
   return x * 2 ** k1 * 2 ** k2 * 2 ** k3;
-}
-
-function maxAbs(v: readonly number[]): number {
-  return Math.max(Math.abs(v[0]!), Math.abs(v[1]!), Math.abs(v[2]!));
 }
 
 // Error-free sum: a + b = s + e exactly (Knuth's TwoSum).
@@ -77,40 +73,53 @@ function twoProduct(a: number, b: number, out: number[], i: number): void {
 
 /**
  * c + a x b (c optional: zero), component by component, as scaled mantissas
- * and one exponent. Every input component is finite.
+ * and exponents. Every input component is finite. Each factor is scaled by its
+ * own power of two (exact), so every product a_j b_k is split exactly (its low
+ * part cannot underflow), whatever the magnitudes; the terms of a component
+ * are then brought to the exponent of its largest term.
  */
 export function crossPlus(a: readonly number[], b: readonly number[], c?: readonly number[]): Scaled3 {
-  const ma = maxAbs(a);
-  const mb = maxAbs(b);
-  const mc = c ? maxAbs(c) : 0;
-  if (ma === 0 || mb === 0) {
-    // No cross part: c itself (or zero), scaled to its own exponent.
-    if (mc === 0) return { mantissa: [0, 0, 0], exponent: 0 };
-    const ec = exponentOf(mc);
-    return { mantissa: [timesPow2(c![0]!, -ec), timesPow2(c![1]!, -ec), timesPow2(c![2]!, -ec)], exponent: ec };
-  }
-  const ea = exponentOf(ma);
-  const eb = exponentOf(mb);
-  const as = [timesPow2(a[0]!, -ea), timesPow2(a[1]!, -ea), timesPow2(a[2]!, -ea)];
-  const bs = [timesPow2(b[0]!, -eb), timesPow2(b[1]!, -eb), timesPow2(b[2]!, -eb)];
-  // Common exponent: the larger of the cross part's (ea + eb) and c's.
-  const eab = ea + eb;
-  const ec = mc > 0 ? exponentOf(mc) : eab;
-  const e = Math.max(eab, ec);
-  const shift = eab - e; // <= 0: the cross terms' scale relative to the common one
+  const mantissa: [number, number, number] = [0, 0, 0];
+  const exponent: [number, number, number] = [0, 0, 0];
   const t = [0, 0, 0, 0, 0];
-  const out: [number, number, number] = [0, 0, 0];
+  const e = [0, 0, 0, 0, 0]; // exponent of each term
   for (let i = 0; i < 3; i++) {
     const j = (i + 1) % 3;
     const k = (i + 2) % 3;
-    twoProduct(as[j]!, bs[k]!, t, 0);
-    twoProduct(-as[k]!, bs[j]!, t, 2);
-    // Cross terms scaled to the common exponent (exact unless they fall below 2^-1000 of it).
-    for (let m = 0; m < 4; m++) t[m] = timesPow2(t[m]!, shift);
-    t[4] = c ? timesPow2(c[i]!, -e) : 0;
-    out[i] = accurateSum(t);
+    product(a[j]!, b[k]!, t, e, 0);
+    product(-a[k]!, b[j]!, t, e, 2);
+    const ci = c ? c[i]! : 0;
+    if (ci === 0) {
+      t[4] = 0;
+      e[4] = -Infinity;
+    } else {
+      e[4] = exponentOf(Math.abs(ci));
+      t[4] = timesPow2(ci, -e[4]);
+    }
+    const top = Math.max(e[0]!, e[2]!, e[4]!);
+    if (top === -Infinity) continue; // every term zero
+    // Terms far below the largest (2^-1000 and less) underflow here: below the stated bound.
+    for (let m = 0; m < 5; m++) t[m] = t[m] === 0 ? 0 : timesPow2(t[m]!, e[m]! - top);
+    mantissa[i] = accurateSum(t);
+    exponent[i] = top;
   }
-  return { mantissa: out, exponent: e };
+  return { mantissa, exponent };
+}
+
+/** x y = (t[i] + t[i+1]) 2^e[i] exactly, each factor scaled to [1, 2) first; zero terms get exponent -Infinity. */
+function product(x: number, y: number, t: number[], e: number[], i: number): void {
+  if (x === 0 || y === 0) {
+    t[i] = 0;
+    t[i + 1] = 0;
+    e[i] = -Infinity;
+    e[i + 1] = -Infinity;
+    return;
+  }
+  const ex = exponentOf(Math.abs(x));
+  const ey = exponentOf(Math.abs(y));
+  twoProduct(timesPow2(x, -ex), timesPow2(y, -ey), t, i);
+  e[i] = ex + ey;
+  e[i + 1] = ex + ey;
 }
 
 /**
@@ -133,7 +142,7 @@ export function scaledVector(factor: number, s: Scaled3): [number, number, numbe
     const m = s.mantissa[i]!;
     if (m === 0) continue;
     nonzero = true;
-    const v = timesPow2(f * m, ef + s.exponent);
+    const v = timesPow2(f * m, ef + s.exponent[i]!);
     if (v !== 0) allZero = false;
     out[i] = v;
   }

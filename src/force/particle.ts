@@ -241,7 +241,8 @@ export const driftVelocity = /* @__PURE__ */ defineFormula({
     const b0 = timesPow2(B[0], -eb), b1 = timesPow2(B[1], -eb), b2 = timesPow2(B[2], -eb);
     const b2sum = b0 * b0 + b1 * b1 + b2 * b2; // in [0.25, 12): a sum of squares of scaled components
     const s = crossPlus(x.electricField, B);
-    return scaledVector(1 / b2sum, { mantissa: s.mantissa, exponent: s.exponent - 2 * eb });
+    const shift = -2 * eb;
+    return scaledVector(1 / b2sum, { mantissa: s.mantissa, exponent: [s.exponent[0] + shift, s.exponent[1] + shift, s.exponent[2] + shift] });
   },
 });
 
