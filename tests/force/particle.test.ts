@@ -144,9 +144,21 @@ describe("relativisticGyroradius", () => {
     );
   });
 
-  it("carries the beam caution", () => {
-    const r = evaluate("relativisticGyroradius", { mass: electron.mass, kineticEnergy: "10 MeV", charge: electron.charge, fluxDensity: "0.2 T" });
-    expect(r.cautions.map((x) => x.code)).toContain("particle_beam");
+  it("carries the beam caution from 5 keV (X-rays where the beam stops; common practice, from memory), not below", () => {
+    const at = (t: string) => evaluate("relativisticGyroradius", { mass: electron.mass, kineticEnergy: t, charge: electron.charge, fluxDensity: "0.1 mT" });
+    expect(at("10 MeV").cautions.map((x) => x.code)).toEqual(["particle_beam"]);
+    expect(at("5 keV").cautions.map((x) => x.code)).toEqual(["particle_beam"]);
+    expect(at("4.9 keV").cautions).toEqual([]);
+    expect(at("10 MeV").cautions[0]!.message).toContain("5 keV");
+    expect(at("10 MeV").cautions[0]!.message).toMatch(/licensed practice govern/);
+  });
+
+  it("uses the library's one strong-field rule (ICNIRP thresholds, from 200 uT) on the flux density", () => {
+    const notes = (b: string) => evaluate("cyclotronFrequency", { charge: proton.charge, mass: proton.mass, fluxDensity: b }).cautions;
+    expect(notes("100 uT")).toEqual([]);
+    expect(notes("1 mT").map((x) => x.code)).toEqual(["strong_field"]);
+    expect(notes("1 mT")[0]!.message).toContain("ICNIRP");
+    expect(notes("1 mT")[0]!.message).toContain("0.5 mT");
   });
 });
 
