@@ -16,7 +16,8 @@ export const RELATIVE_PERMITTIVITY = {
 // ratio near one loses digits when the ratio is formed first, and products of
 // extreme magnitudes (1e-200 m, 1e200 m) overflow or underflow in an
 // intermediate step although the result is representable. The helpers below
-// handle both; the decimal.js oracle in tests/capacitance checks them to 1e-12.
+// handle both; tests/capacitance/extremes-accuracy.test.ts checks every formula
+// against a decimal.js oracle to 4 ulp (6 through a logarithm; measured worst 1.6).
 
 const MIN_NORMAL = 2.2250738585072014e-308;
 const TWO_POW_64 = 18446744073709551616;

@@ -79,7 +79,7 @@ export const lorentzForce = /* @__PURE__ */ defineFormula({
  * for short-circuit forces) and the strong-field rule on B (ICNIRP).
  *
  * Method: the product through scaledProduct (no intermediate overflow or
- * underflow; within 2 ulp of I l B sin(theta) for the double inputs).
+ * underflow; within 3 ulp of I l B sin(theta) for the double inputs).
  *
  * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2013), section 5.1.3 (currents; section from memory).
  *
@@ -172,7 +172,7 @@ export const parallelWiresForce = /* @__PURE__ */ defineFormula({
     IEC_60865_1,
   ],
   // scaledProduct: no intermediate overflow or underflow (1e200 A with 1e-200 A is fine), within
-  // 2.5 ulp; swapping the currents changes at most the last digits, reversing one flips the sign exactly.
+  // 4 ulp; swapping the currents changes at most the last digits, reversing one flips the sign exactly.
   compute: (x) => scaledProduct([MU0_OVER_2PI, x.current1, x.current2, x.length], [x.separation]),
 });
 
@@ -220,7 +220,7 @@ export const magneticPressure = /* @__PURE__ */ defineFormula({
     { authors: "D. J. Griffiths", year: 2013, title: "Introduction to Electrodynamics, 4th ed.", locator: "section 8.1.2, energy density B^2/(2 mu0) (from memory)" },
     { authors: "J. D. Jackson", year: 1999, title: "Classical Electrodynamics, 3rd ed.", locator: "section 5.16 (from memory)" },
   ],
-  // scaledProduct: B B / (2 mu0) with no intermediate overflow or underflow of B^2; within 1.5 ulp
+  // scaledProduct: B B / (2 mu0) with no intermediate overflow or underflow of B^2; within 2 ulp
   // (2 mu0 is an exact doubling).
   compute: (x) => scaledProduct([x.fluxDensity, x.fluxDensity], [TWO_MU0]),
 });
@@ -274,6 +274,6 @@ export const hallVoltage = /* @__PURE__ */ defineFormula({
   relations: [{ rule: "carrierCharge != 0", holds: (x) => x.carrierCharge !== 0 }],
   source: { authors: "N. W. Ashcroft, N. D. Mermin", year: 1976, title: "Solid State Physics", locator: "ch. 1, Hall effect (from memory)" },
   // scaledProduct: n q t and I B may overflow or underflow in an intermediate step although V_H does not;
-  // within 2.5 ulp.
+  // within 3 ulp.
   compute: (x) => scaledProduct([x.current, x.fluxDensity], [x.carrierDensity, x.carrierCharge, x.thickness]),
 });

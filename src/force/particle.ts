@@ -73,7 +73,7 @@ export const cyclotronFrequency = /* @__PURE__ */ defineFormula({
   cautions: [STRONG_FIELD],
   source: { ...JACKSON, locator: "section 12.2, gyration frequency (from memory)" },
   // gamma m = m + T/c^2: no subtraction, exact at T = 0; scaledProduct: no intermediate overflow or
-  // underflow in |q| B / (2 pi gamma m); within 3 ulp.
+  // underflow in |q| B / (2 pi gamma m); within 4 ulp.
   compute: (x) => {
     const [gm, factor] = relativisticMass(x.mass, x.kineticEnergy);
     return scaledProduct([Math.abs(x.charge), x.fluxDensity], [TWO_PI, gm, factor]);
@@ -169,7 +169,7 @@ export const relativisticGyroradius = /* @__PURE__ */ defineFormula({
   compute: (x) => {
     // p c = sqrt(T) sqrt(T + 2 m c^2), a product of square roots: no cancellation as T -> 0 and no
     // T^2. T + 2 m c^2 = 2 c^2 (gamma m as in cyclotronFrequency, with T/2): scaled so that it
-    // neither overflows nor underflows; scaledProduct then divides by c |q| B (within 3 ulp).
+    // neither overflows nor underflows; scaledProduct then divides by c |q| B (within 4 ulp).
     const [half, factor] = relativisticMass(x.mass, x.kineticEnergy, 2 * C2); // (T + 2 m c^2) / (2 c^2) / factor
     return scaledProduct([Math.sqrt(x.kineticEnergy), Math.sqrt(half), Math.sqrt(2 * factor)], [Math.abs(x.charge), x.fluxDensity]);
   },
@@ -234,7 +234,7 @@ export const driftVelocity = /* @__PURE__ */ defineFormula({
   ],
   source: { ...JACKSON, locator: "section 12.3, crossed E and B fields (from memory)" },
   // E x B component by component from exact products (crossPlus), over |B|^2 formed from B
-  // scaled by a power of two (no overflow or underflow); within 4 ulp per component.
+  // scaled by a power of two (no overflow or underflow); within 6 ulp per component.
   compute: (x) => {
     const B = x.fluxDensity;
     const eb = Math.floor(Math.log2(Math.max(Math.abs(B[0]), Math.abs(B[1]), Math.abs(B[2]))));
