@@ -21,7 +21,7 @@ const TWO_PI_EPSILON0 = 2 * Math.PI * EPSILON0;
  * Method: ln(b / a) is computed as log1p((b - a) / a) when b <= 2a, with b - a
  * exact, so a thin dielectric (b within 1e-9 of a) keeps full precision.
  *
- * Reference: D. M. Pozar, Microwave Engineering, 4th ed. (2012), Table 2.1.
+ * Reference: D. M. Pozar, Microwave Engineering, 4th ed. (2012), Table 2.1 (table from memory).
  *
  * @example
  * coaxialCapacitance({ innerRadius: quantity(0.45, "mm"), outerRadius: quantity(1.47, "mm"),

@@ -14,7 +14,7 @@ import { mulDiv, RELATIVE_PERMITTIVITY } from "./shared.js";
  * approaches the plate's width (warning when d exceeds 1 % of sqrt(A)).
  *
  * Reference: any electromagnetics text, e.g. D. J. Griffiths, Introduction to
- * Electrodynamics, 4th ed. (2013), Sec. 2.5.4.
+ * Electrodynamics, 4th ed. (2013), Sec. 2.5.4 (section from memory).
  *
  * @example
  * parallelPlateCapacitance({ area: quantity(1, "cm^2"), gap: quantity(0.1, "mm") }); // ≈ 8.854e-12 F

@@ -20,7 +20,7 @@ const FOUR_PI_EPSILON0 = 4 * Math.PI * EPSILON0;
  * precision; the product a b, which could overflow, is never formed.
  *
  * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013),
- * Sec. 2.5.4 (concentric spherical shells).
+ * Sec. 2.5.4 (concentric spherical shells; section from memory).
  *
  * @example
  * sphericalCapacitance({ innerRadius: quantity(10, "cm"), outerRadius: quantity(20, "cm") }); // ≈ 2.225e-11 F
@@ -58,7 +58,7 @@ export const sphericalCapacitance = /* @__PURE__ */ defineFormula({
  * a conductor at distance d raises C by roughly a / d (common practice).
  *
  * Reference: the outer radius -> infinity limit of the concentric spheres in
- * D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013), Sec. 2.5.4.
+ * D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013), Sec. 2.5.4 (section from memory).
  *
  * @example
  * isolatedSphereCapacitance({ radius: quantity(10, "cm") }); // ≈ 1.113e-11 F

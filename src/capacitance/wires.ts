@@ -26,7 +26,7 @@ const DIELECTRIC_NOTE =
  * formed from the exact difference (Sterbenz lemma), so nearly touching wires
  * keep full precision.
  *
- * Reference: D. M. Pozar, Microwave Engineering, 4th ed. (2012), Table 2.1 (two-wire line).
+ * Reference: D. M. Pozar, Microwave Engineering, 4th ed. (2012), Table 2.1 (two-wire line; table from memory).
  *
  * @example
  * twoWireCapacitance({ wireRadius: quantity(0.5, "mm"), separation: quantity(5, "mm"),
@@ -82,7 +82,7 @@ export const twoWireCapacitance = /* @__PURE__ */ defineFormula({
  * so a wire nearly touching the plane keeps full precision.
  *
  * Reference: D. M. Pozar, Microwave Engineering, 4th ed. (2012), Table 2.1
- * (two-wire line), with the wire's image in the plane.
+ * (two-wire line; table from memory), with the wire's image in the plane.
  *
  * @example
  * wireOverPlaneCapacitance({ wireRadius: quantity(0.5, "mm"), height: quantity(10, "mm"),

@@ -69,8 +69,7 @@ const TOUCH_CURRENT = {
  * a dispersive medium use epsr at the frequency of the change.
  *
  * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2013),
- * section 7.3.2 (Ampere's law with Maxwell's correction), and section 7.3.5
- * (in matter, J_d = dD/dt).
+ * section 7.3.2 (Ampere's law with Maxwell's correction; section from memory).
  *
  * @example
  * displacementCurrent({ electricFluxRate: 1e12 as ElectricFluxRate }); // ≈ 8.854 A
@@ -101,7 +100,7 @@ export const displacementCurrent = /* @__PURE__ */ defineFormula({
  *
  * Validity: quasi-static (plate size small against the wavelength at the rate of change).
  *
- * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2013), section 7.3.2.
+ * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2013), section 7.3.2 (section from memory).
  *
  * @example
  * capacitorDisplacementCurrent({ capacitance: quantity(1, "uF"), voltageRate: quantity(1, "V/us") }); // ≈ 1 A

@@ -34,7 +34,7 @@ const IEC_60865_1 = {
  * component below the normal range is returned subnormal or zero).
  *
  * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013),
- * section 5.1.2 (Lorentz force law).
+ * section 5.1.2 (Lorentz force law; section from memory).
  *
  * @example
  * lorentzForce({ charge: proton.charge, electricField: [0, 0, 0] as Vec3<ElectricField>,
@@ -188,7 +188,7 @@ export const parallelWiresForce = /* @__PURE__ */ defineFormula({
  *
  * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2013), section 8.1.2
  * (field energy density, magnetic part B^2/(2 mu0)); Jackson, Classical
- * Electrodynamics, 3rd ed. (1999), section 5.16 (energy in the magnetic field).
+ * Electrodynamics, 3rd ed. (1999), section 5.16 (energy in the magnetic field); sections from memory.
  *
  * @example
  * magneticPressure({ fluxDensity: quantity(1, "T") }); // ≈ 3.979e5 Pa
@@ -245,7 +245,7 @@ export const magneticPressure = /* @__PURE__ */ defineFormula({
  * shorts part of it for short strips.
  *
  * Reference: N. W. Ashcroft, N. D. Mermin, Solid State Physics (1976), ch. 1
- * (Hall effect: Hall coefficient R_H = 1/(n q), -1/(n e) for electrons).
+ * (Hall effect: Hall coefficient R_H = 1/(n q), -1/(n e) for electrons; chapter from memory).
  *
  * @example
  * hallVoltage({ current: quantity(1, "mA"), fluxDensity: quantity(0.1, "T"),

@@ -52,7 +52,7 @@ const JACKSON = { authors: "J. D. Jackson", year: 1999, title: "Classical Electr
  * in a non-uniform field it is the local value.
  *
  * Reference: J. D. Jackson, Classical Electrodynamics, 3rd ed. (1999), section 12.2,
- * omega_B = e B / (gamma m) in SI.
+ * omega_B = e B / (gamma m) in SI (section from memory).
  *
  * @example
  * cyclotronFrequency({ charge: proton.charge, mass: proton.mass, fluxDensity: quantity(1, "T") }); // ≈ 1.5245e7 Hz
@@ -90,7 +90,7 @@ export const cyclotronFrequency = /* @__PURE__ */ defineFormula({
  * one is low by 1 - 1/gamma: 0.5 % at 0.1 c, 13 % at 0.5 c; a warning gives
  * the figure above 0.1 c (use relativisticGyroradius there).
  *
- * Reference: Jackson, Classical Electrodynamics, 3rd ed. (1999), section 12.2.
+ * Reference: Jackson, Classical Electrodynamics, 3rd ed. (1999), section 12.2 (section from memory).
  *
  * @example
  * gyroradius({ mass: electron.mass, speed: quantity(1e6, "m/s"), charge: electron.charge,
@@ -144,7 +144,7 @@ export const gyroradius = /* @__PURE__ */ defineFormula({
  * for large T.
  *
  * Reference: Jackson, Classical Electrodynamics, 3rd ed. (1999), section 12.2
- * (a = c p / (e B) in Gaussian units; r = p/(|q| B) in SI).
+ * (a = c p / (e B) in Gaussian units; r = p/(|q| B) in SI; section from memory).
  *
  * @example
  * relativisticGyroradius({ mass: electron.mass, kineticEnergy: quantity(1, "MeV"),
@@ -187,7 +187,7 @@ export const relativisticGyroradius = /* @__PURE__ */ defineFormula({
  * no such frame exists and the particle is accelerated without bound (warning).
  * A component of E along B accelerates the particle along B (warning).
  *
- * Reference: Jackson, Classical Electrodynamics, 3rd ed. (1999), section 12.3.
+ * Reference: Jackson, Classical Electrodynamics, 3rd ed. (1999), section 12.3 (section from memory).
  *
  * @example
  * driftVelocity({ electricField: [1e3, 0, 0] as Vec3<ElectricField>,
