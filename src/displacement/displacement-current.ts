@@ -45,7 +45,7 @@ const DISPERSION_MESSAGE =
 const TOUCH_CURRENT_LIMIT = 0.5e-3;
 
 // In mA where that reads well; in A for large values, where i * 1e3 could overflow.
-const amps = (i: number): string => (i < 1 ? `${formatNumber(i * 1e3, 3)} mA` : `${formatNumber(i, 3)} A`);
+const amps = (i: number): string => (i < 0.9995 ? `${formatNumber(i * 1e3, 3)} mA` : `${formatNumber(i, 3)} A`);
 
 const TOUCH_CURRENT = {
   code: "touch_current",
