@@ -26,10 +26,10 @@ const TOL_F = Math.pow(3 * Number.EPSILON, -1 / 6);
 const TOL_D = Math.pow(Number.EPSILON / 4, -1 / 6);
 
 /**
- * Most duplication steps either R_F or R_D can take (see `duplicationBound`
+ * Most duplication steps either R_F or R_D can take (proof at `duplicationBound`
  * below); the loops' cap adds a margin of three.
  */
-export const DUPLICATION_BOUND = 13;
+export const DUPLICATION_BOUND = 12;
 const DUPLICATION_CAP = DUPLICATION_BOUND + 3;
 
 /**
@@ -55,30 +55,33 @@ function ldexp(x: number, k: number): number {
   return x * 2 ** a * 2 ** b * 2 ** (k - a - b);
 }
 
-/** An even power 2^(2j) with 2^(2j) x in [1, 4) for finite x > 0, given as j. */
+/** j with 4^-j x near 1 for finite x > 0 (Math.log2 may be off by one next to a power of two: harmless). */
 function halfExponent(x: number): number {
-  // Math.log2 may be off by one next to a power of two; the range [1/2, 8) that
-  // follows is still fine for the duplication (see the bound below).
   return Math.floor(Math.log2(x) / 2);
 }
 
 /*
- * duplicationBound: why neither loop runs more than 13 steps.
- * The arguments are scaled by an even power of two so the largest, M_0, lies in
- * [1/2, 8), and the asymptotic branch has taken every case where the middle one
- * is below 2^-110 M_0. Write m_n <= M_n for the least and greatest of the three
+ * duplicationBound: why neither loop runs more than 12 steps.
+ * The count does not depend on the scale (the stop test compares A_n with the
+ * spread, both scaled alike), so take the largest argument M_0 = 1; the
+ * asymptotic branch has taken every case where the middle one is below 2^-110 M_0.
+ * (Arguments beyond 2^+-500 are scaled by an exact power of 4 first, which keeps
+ * every sum and product of the loop finite and the middle argument normal.) Write m_n <= M_n for the least and greatest of the three
  * after n steps and r_n = m_n / M_n. One step maps each argument to (t + lam)/4
  * with lam = sqrt(xy) + sqrt(xz) + sqrt(yz), so
  *   - differences shrink exactly by 4: x_n - y_n = 4^-n (x_0 - y_0);
  *   - lam >= m + 2 sqrt(m M), lam <= M + 2 sqrt(m M), hence r_{n+1} >= sqrt(r_n),
  *     m_n never decreases and M_n never increases;
- *   - lam_0 >= sqrt(mid_0 M_0) >= 2^-55 M_0, so r_1 >= 2^-59 / 4... and r_7 > 0.5;
- *   - M_{n+1} >= (M_n + 3 m_n)/4, so M_7 >= 4^-7 M_0 (1 + 3 r_5)(1 + 3 r_6)... > 1.4e-4 M_0,
+ *   - lam_0 >= sqrt(mid_0 M_0) >= 2^-55 M_0, so every argument after one step is
+ *     at least 2^-57 M_0 while M_1 <= M_0: r_1 >= 2^-57, r_n >= 2^(-57 / 2^(n-1)), r_7 > 0.5;
+ *   - M_{n+1} >= (M_n + 3 m_n)/4 and M_1 >= M_0 / 4, so
+ *     M_7 >= 4^-7 M_0 (1 + 3 r_3)(1 + 3 r_4)(1 + 3 r_5)(1 + 3 r_6) > 1.4e-4 M_0,
  *     and m_n >= m_7 > 7e-5 M_0 for n >= 7.
  * The loop stops once TOL max|A_0 - x_j| 4^-n < A_n, and A_n >= m_n, while
- * max|A_0 - x_j| <= M_0. So it stops by the first n >= 7 with
- * 4^n > TOL / 7e-5: TOL_F = 338 gives n = 12, TOL_D = 512 gives n = 13.
- * Measured (tests/math/elliptic.test.ts): at most 12 steps over log-spread arguments.
+ * max|A_0 - x_j| <= M_0. So it stops by the first n >= 7 with 4^n > TOL / 7e-5:
+ * TOL_F = 337 needs 4^n > 4.8e6, TOL_D = 512 needs 4^n > 7.3e6; 4^12 = 1.7e7, so n <= 12
+ * for both. The cap (15) only guards against a flaw in this argument.
+ * Measured (tests/math/elliptic.test.ts, tests/reliability/termination.test.ts): at most 10.
  */
 
 /**
@@ -103,11 +106,12 @@ export function carlsonRF(x: number, y: number, z: number): number {
     // (DLMF 19.27.? in Carlson's asymptotic forms; the first term is K ~ ln(4/k') of DLMF 19.12.1).
     return logRatio(hi, lo, mid) / Math.sqrt(hi);
   }
-  const j = halfExponent(hi);
-  const s = ldexp(1, -2 * j); // exact power of 4
-  const x0 = x * s;
-  const y0 = y * s;
-  const z0 = z * s;
+  // Scale by 4^-j (exact) when the largest argument is beyond 2^+-500, where the
+  // products and sums below could overflow or the sum term underflow.
+  const j = hi > 2 ** 500 || hi < 2 ** -500 ? halfExponent(hi) : 0;
+  const x0 = j === 0 ? x : ldexp(x, -2 * j);
+  const y0 = j === 0 ? y : ldexp(y, -2 * j);
+  const z0 = j === 0 ? z : ldexp(z, -2 * j);
   const a0 = (x0 + y0 + z0) / 3;
   const q = TOL_F * Math.max(Math.abs(a0 - x0), Math.abs(a0 - y0), Math.abs(a0 - z0));
   let xt = x0;
@@ -134,7 +138,7 @@ export function carlsonRF(x: number, y: number, z: number): number {
   const e2 = X * Y - Z * Z;
   const e3 = X * Y * Z;
   const r = (1 - e2 / 10 + e3 / 14 + (e2 * e2) / 24 - (3 * e2 * e3) / 44) / Math.sqrt(a);
-  return ldexp(r, -j); // R_F(x) = 2^-j R_F(4^-j x)... with s = 4^-j: R_F(x) = sqrt(s) R_F(s x)
+  return j === 0 ? r : ldexp(r, -j); // R_F(x) = 2^-j R_F(4^-j x) (degree -1/2)
 }
 
 /**
@@ -181,11 +185,10 @@ export function carlsonRD(x: number, y: number, z: number): number {
     // error O(sqrt(z / mid)) < 2^-60. Scaled with the others, z would underflow.
     return 3 / Math.sqrt(hi) / Math.sqrt(mid) / Math.sqrt(z);
   }
-  const j = halfExponent(hi);
-  const s = ldexp(1, -2 * j);
-  const x0 = x * s;
-  const y0 = y * s;
-  const z0 = z * s;
+  const j = hi > 2 ** 500 || hi < 2 ** -500 ? halfExponent(hi) : 0;
+  const x0 = j === 0 ? x : ldexp(x, -2 * j);
+  const y0 = j === 0 ? y : ldexp(y, -2 * j);
+  const z0 = j === 0 ? z : ldexp(z, -2 * j);
   const a0 = (x0 + y0 + 3 * z0) / 5;
   const q = TOL_D * Math.max(Math.abs(a0 - x0), Math.abs(a0 - y0), Math.abs(a0 - z0));
   let xt = x0;
@@ -219,8 +222,9 @@ export function carlsonRD(x: number, y: number, z: number): number {
   const e5 = xy * z2 * Z;
   const series =
     1 - (3 * e2) / 14 + e3 / 6 + (9 * e2 * e2) / 88 - (3 * e4) / 22 - (9 * e2 * e3) / 52 + (3 * e5) / 26;
-  // R_D(x) = s^(3/2) R_D(s x), s^(3/2) = 2^(-3j).
-  return ldexp((f * series) / (a * Math.sqrt(a)) + 3 * sum, -3 * j);
+  // R_D(x) = 2^(-3j) R_D(4^-j x) (degree -3/2).
+  const r = (f * series) / (a * Math.sqrt(a)) + 3 * sum;
+  return j === 0 ? r : ldexp(r, -3 * j);
 }
 
 /**

@@ -27,7 +27,7 @@ import { type Inputs, inDomain, isChoice, specsOf, withExamples } from "./harnes
 
 /**
  * The longest single loop any formula may run. The caps in the library: Carlson's
- * duplication 16 (13 proven, src/math/elliptic.ts), E - 1's series 32, Gauss-Legendre
+ * duplication 15 (12 proven, src/math/elliptic.ts), E - 1's series 32, Gauss-Legendre
  * Newton 10 per node. 32 is therefore the most a loop can report; a loop without a
  * proven bound (a while on a floating-point test) would show here as a larger count.
  */
@@ -36,7 +36,7 @@ const LONGEST_LOOP = 32;
 /**
  * All iterations of one call together. The heaviest formula, coaxialCoilsMutualInductance,
  * sums at most 5 intervals x 60 graded panels x 20 nodes = 6,000 filament terms, each one
- * R_D of at most 13 steps (78,000), plus the first construction of its 20-point rule
+ * R_D of at most 12 steps (72,000), plus the first construction of its 20-point rule
  * (10 nodes x at most 10 Newton steps); every other formula evaluates a handful of
  * elliptic integrals (under 100 iterations). 100,000 holds all of them with margin and
  * is still far below anything that looks like a hang (measured worst: see the last test).
