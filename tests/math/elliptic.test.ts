@@ -259,7 +259,7 @@ describe("complete elliptic integrals", () => {
   });
 
   it("Carlson's R_F and R_D return at once for zero, infinite and extreme arguments", () => {
-    for (const args of [[0, 0, 1], [0, 1, 0], [1, 0, 0]] as const) expect(carlsonRF(...args)).toBe(Infinity);
+    for (const [x, y, z] of [[0, 0, 1], [0, 1, 0], [1, 0, 0]] as const) expect(carlsonRF(x, y, z)).toBe(Infinity);
     expect(carlsonRD(1, 1, 0)).toBe(Infinity);
     expect(carlsonRD(0, 0, 1)).toBe(Infinity);
     expect(carlsonRF(1, 2, Infinity)).toBe(0);

@@ -22,7 +22,7 @@ import { DUPLICATION_BOUND, LOG_FORM_LIMIT } from "../../src/math/elliptic.js";
 import { SERIES_LIMIT } from "../../src/flux/loop-series.js";
 import { loopCount, resetLoopCount } from "../helpers/loop-count.js";
 import { dec, ellipticKE, exact } from "../math/decimal-elliptic.js";
-import { expectClose } from "../helpers/reference.js";
+import { expectClose, relativeError } from "../helpers/reference.js";
 import { type Inputs, inDomain, isChoice, specsOf, withExamples } from "./harness.js";
 
 /**
@@ -228,57 +228,113 @@ describe("loopField and coaxialLoopsMutualInductance at their branch edges", () 
   });
 });
 
+/**
+ * Oracle: Smythe (1968) sec. 7.10 loop field,
+ *   B_rho = mu0 I z / (2 pi rho beta) [-K + (a^2 + rho^2 + z^2) E / alpha^2],
+ *   B_z   = mu0 I / (2 pi beta) [K + (a^2 - rho^2 - z^2) E / alpha^2],
+ * with K, E from the AGM (DLMF 19.8.1, 19.8.6) at 60 digits, m = 4 a rho / beta^2 and
+ * mc = alpha^2 / beta^2 formed exactly in decimal from the doubles given.
+ */
+function smytheField(a: number, rho: number, z: number, I: number): [number, number] {
+  const D = dec(60);
+  const A = exact(a), R = exact(rho), Z = exact(z);
+  const alpha2 = A.minus(R).pow(2).plus(Z.pow(2));
+  const beta2 = A.plus(R).pow(2).plus(Z.pow(2));
+  const { K, E } = ellipticKE(new D(4).times(A).times(R).div(beta2), alpha2.div(beta2), 60);
+  const k = exact(MU0).times(exact(I)).div(new D(2).times(D.acos(-1)).times(beta2.sqrt()));
+  const bRho = k.times(Z).div(R).times(K.neg().plus(A.pow(2).plus(R.pow(2)).plus(Z.pow(2)).times(E).div(alpha2)));
+  const bZ = k.times(K.plus(A.pow(2).minus(R.pow(2)).minus(Z.pow(2)).times(E).div(alpha2)));
+  return [bRho.toNumber(), bZ.toNumber()];
+}
+const SMYTHE = "Smythe (1968) 7.10 loop field with K, E from the DLMF 19.8 AGM at 60 digits";
+
+/**
+ * Oracle: Maxwell (1873) art. 701, M = mu0 sqrt(ab) [(2/k - k) K - (2/k) E], with
+ * k^2 = 4ab / ((a + b)^2 + d^2) and k'^2 = ((a - b)^2 + d^2) / ((a + b)^2 + d^2) exact in
+ * decimal, K, E from the AGM (DLMF 19.8.1, 19.8.6) at 60 digits (the AGM works on k'
+ * itself, so k' ~ 5e-325 needs no more digits).
+ */
+function maxwellOracle(a: number, b: number, d: number): number {
+  const D = dec(60);
+  const A = exact(a), B = exact(b), Dd = exact(d);
+  const den = A.plus(B).pow(2).plus(Dd.pow(2));
+  const m = A.times(B).times(4).div(den);
+  const mc = A.minus(B).pow(2).plus(Dd.pow(2)).div(den);
+  const { K, E } = ellipticKE(m, mc, 60);
+  const k = m.sqrt();
+  return exact(MU0).times(A.times(B).sqrt()).times(new D(2).div(k).minus(k).times(K).minus(new D(2).div(k).times(E))).toNumber();
+}
+const MAXWELL = "Maxwell (1873) art. 701 with K, E from the DLMF 19.8 AGM at 60 digits";
+
 describe("the issue's reproducers", () => {
   const loop = getFormula("loopField");
   const mutual = getFormula("coaxialLoopsMutualInductance");
 
   it("loopField 1e-200 m above a 1 m loop's wire returns the near-wire field (2e193 T radial) to a few ulp", () => {
-    // Oracle: Smythe (1968) sec. 7.10 loop field,
-    //   B_rho = mu0 I z / (2 pi rho beta) [-K + (a^2 + rho^2 + z^2) E / alpha^2],
-    //   B_z   = mu0 I / (2 pi beta) [K + (a^2 - rho^2 - z^2) E / alpha^2],
-    // with K, E from the AGM (DLMF 19.8.1, 19.8.6) at 60 digits, mc = alpha^2 / beta^2 exact in decimal.
-    const a = 1, rho = 1, z = 1e-200, I = 1;
-    const D = dec(60);
-    const A = exact(a), R = exact(rho), Z = exact(z);
-    const alpha2 = A.minus(R).pow(2).plus(Z.pow(2));
-    const beta2 = A.plus(R).pow(2).plus(Z.pow(2));
-    const beta = beta2.sqrt();
-    const { K, E } = ellipticKE(new D(4).times(A).times(R).div(beta2), alpha2.div(beta2), 60);
-    const k = exact(MU0).times(I).div(new D(2).times(D.acos(-1)).times(beta));
-    const bRho = k.times(Z).div(R).times(K.neg().plus(A.pow(2).plus(R.pow(2)).plus(Z.pow(2)).times(E).div(alpha2))).toNumber();
-    const bZ = k.times(K.plus(A.pow(2).minus(R.pow(2)).minus(Z.pow(2)).times(E).div(alpha2))).toNumber();
+    const [bRho, bZ] = smytheField(1, 1, 1e-200, 1);
     resetLoopCount();
-    const typed = loop({ current: I, radius: a, radialDistance: rho, axialDistance: z } as never) as number[];
+    const typed = loop({ current: 1, radius: 1, radialDistance: 1, axialDistance: 1e-200 } as never) as number[];
     expect(loopCount().largest).toBeLessThanOrEqual(DUPLICATION_BOUND);
     const viaEvaluate = evaluate("loopField", { current: 1, radius: 1, radialDistance: 1, axialDistance: 1e-200 }).value as number[];
-    const src = "Smythe (1968) 7.10 loop field with K, E from the DLMF 19.8 AGM at 60 digits";
     for (const got of [typed, viaEvaluate]) {
-      expectClose(got[0]!, { input: { z }, expected: bRho, tolerance: 4 * Number.EPSILON, source: src });
-      expectClose(got[1]!, { input: { z }, expected: bZ, tolerance: 8 * Number.EPSILON, source: src });
+      expectClose(got[0]!, { input: { z: 1e-200 }, expected: bRho, tolerance: 4 * Number.EPSILON, source: SMYTHE });
+      expectClose(got[1]!, { input: { z: 1e-200 }, expected: bZ, tolerance: 8 * Number.EPSILON, source: SMYTHE });
     }
     expect(bRho).toBeGreaterThan(1.9e193); // mu0 I / (2 pi z) = 2e193 T
   });
 
   it("coaxialLoopsMutualInductance of 1 km loops 1e-321 m apart is finite and matches Maxwell's formula to a few ulp", () => {
-    // Oracle: Maxwell (1873) art. 701, M = mu0 sqrt(ab) [(2/k - k) K - (2/k) E], with
-    // k^2 = 4ab / ((a + b)^2 + d^2) and k'^2 = d^2 / ((a + b)^2 + d^2) exact in decimal,
-    // K, E from the AGM (DLMF 19.8.1, 19.8.6) at 60 digits (k' ~ 5e-325 needs no more: the
-    // AGM works on k' itself).
-    const a = 1000, d = 1e-321;
-    const D = dec(60);
-    const A = exact(a), Dd = exact(d);
-    const den = A.plus(A).pow(2).plus(Dd.pow(2));
-    const m = A.times(A).times(4).div(den);
-    const mc = Dd.pow(2).div(den);
-    const { K, E } = ellipticKE(m, mc, 60);
-    const k = m.sqrt();
-    const expected = exact(MU0).times(A).times(new D(2).div(k).minus(k).times(K).minus(new D(2).div(k).times(E))).toNumber();
-    const src = "Maxwell (1873) art. 701 with K, E from the DLMF 19.8 AGM at 60 digits";
-    const typed = mutual({ radius1: a, radius2: a, distance: d } as never) as number;
+    const expected = maxwellOracle(1000, 1000, 1e-321);
+    const typed = mutual({ radius1: 1000, radius2: 1000, distance: 1e-321 } as never) as number;
     const viaEvaluate = evaluate("coaxialLoopsMutualInductance", { radius1: "1 km", radius2: "1 km", distance: "1e-321 m" }).value as number;
-    expectClose(typed, { input: { a, d }, expected, tolerance: 4 * Number.EPSILON, source: src });
-    expectClose(viaEvaluate, { input: { a, d }, expected, tolerance: 4 * Number.EPSILON, source: src });
+    expectClose(typed, { input: { a: 1000, d: 1e-321 }, expected, tolerance: 4 * Number.EPSILON, source: MAXWELL });
+    expectClose(viaEvaluate, { input: { a: 1000, d: 1e-321 }, expected, tolerance: 4 * Number.EPSILON, source: MAXWELL });
     expect(expected).toBeGreaterThan(0.9); // mu0 a (ln(8a/d) - 2) = 0.94 H
+  });
+});
+
+describe("next to the filament, a few ulp against the oracle", () => {
+  const loop = getFormula("loopField");
+  const mutual = getFormula("coaxialLoopsMutualInductance");
+  const worst = { radial: 0, axial: 0, mutual: 0 };
+
+  it("loopField from 1e-300 m to 0.1 m off the wire, above it and beside it, inside and outside", () => {
+    const a = 0.7;
+    for (let e = -300; e <= -1; e += 23) {
+      const d = 3 * 10 ** e;
+      // Above the wire, and beside it (inside and outside), and diagonally off it.
+      for (const [rho, z] of [[a, d], [a - d, 0], [a + d, 0], [a - d, d], [a + d, -d]] as const) {
+        if (rho === a && z === 0) continue; // d below an ulp of a: on the wire (refused, tested in the drive)
+        const [bRho, bZ] = smytheField(a, rho, z, 2);
+        const got = loop({ current: 2, radius: a, radialDistance: rho, axialDistance: z } as never) as number[];
+        const input = { a, rho, z };
+        if (bRho !== 0) {
+          worst.radial = Math.max(worst.radial, relativeError(got[0]!, bRho) / Number.EPSILON);
+          expectClose(got[0]!, { name: "B_rho", input, expected: bRho, tolerance: 8 * Number.EPSILON, source: SMYTHE });
+        } else {
+          expect(got[0]).toBe(0);
+        }
+        worst.axial = Math.max(worst.axial, relativeError(got[1]!, bZ) / Number.EPSILON);
+        expectClose(got[1]!, { name: "B_z", input, expected: bZ, tolerance: 8 * Number.EPSILON, source: SMYTHE });
+      }
+    }
+  });
+
+  it("coaxialLoopsMutualInductance from 1e-321 m to 0.1 m apart, equal and nearly equal radii", () => {
+    for (let e = -321; e <= -1; e += 20) {
+      const d = 10 ** e;
+      for (const [a, b] of [[1, 1], [0.25, 0.25 * (1 + 1e-9)], [1000, 1000 - 1e-6]] as const) {
+        const expected = maxwellOracle(a, b, d);
+        const got = mutual({ radius1: a, radius2: b, distance: d } as never) as number;
+        worst.mutual = Math.max(worst.mutual, relativeError(got, expected) / Number.EPSILON);
+        expectClose(got, { input: { a, b, d }, expected, tolerance: 4 * Number.EPSILON, source: MAXWELL });
+      }
+    }
+  });
+
+  it("reports the worst errors", () => {
+    console.log(`near the filament, worst ulp: ${JSON.stringify(worst)}`);
+    expect(worst.mutual).toBeLessThanOrEqual(4);
   });
 });
 
