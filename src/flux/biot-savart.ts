@@ -57,8 +57,9 @@ function checkCoordinates(name: string, a: unknown, minPoints: number): asserts 
  * Each segment's end is reused as the next start, so one square root per segment and
  * point; no allocation per point.
  *
- * Validity: a thin filament. A point on a segment (or at a vertex) is refused: the field of
- * a filament is unbounded there. With `options.wireRadius`, points closer than that to a
+ * Validity: a thin filament. A point on a segment (or at a vertex), or closer to it than
+ * 2^-44 of its length (the rounding of the coordinates), is refused: the field of a filament
+ * is unbounded there. With `options.wireRadius`, points closer than that to a
  * segment are inside the real conductor and get the warning `inside_conductor` (the
  * result there overstates the field; inside a round wire it falls linearly to zero at the
  * axis). The result carries `warnings` (a property of the returned array; `[]` when none).
@@ -129,15 +130,19 @@ export function biotSavart(
       const ab = ax * qx + ay * qy + az * qz;
       const s = ra + rb;
       // factor = 2 s / (rr (s^2 - L^2)), with s^2 - L^2 = 2 (rr + a.b).
+      // A point within ON_FILAMENT |L| of the segment is on the filament as far as its
+      // coordinates can tell (rounding puts a point "on" a slanted segment about an ulp off it).
+      const l2 = lx * lx + ly * ly + lz * lz;
       let f = 0;
       if (ab < 0) {
-        // a and b point apart: P projects inside the segment. c2 = 0 puts it on the filament.
-        if (c2 > 0) f = (s * (rr - ab)) / (rr * c2); // 2 s (rr - ab) / (rr * 2 c2)
-        else throw onFilament(p, v);
-      } else if (rr > 0) {
-        f = s / (rr * (rr + ab)); // on the line beyond the segment: c = 0, no field
+        // a and b point apart: P projects inside the segment, at distance |c| / |L| from it.
+        if (c2 <= ON_FILAMENT * ON_FILAMENT * l2 * l2) throw onFilament(p, v);
+        f = (s * (rr - ab)) / (rr * c2); // 2 s (rr - ab) / (rr * 2 c2)
       } else {
-        throw onFilament(p, v); // at a vertex
+        // Beyond an end (on the line's extension c = 0: no field), nearest to a vertex.
+        const r = Math.min(ra, rb);
+        if (r * r <= ON_FILAMENT * ON_FILAMENT * l2) throw onFilament(p, v);
+        f = s / (rr * (rr + ab));
       }
       if (wireRadius > 0 && !near) {
         // Distance from P to the segment: |c| / |L| inside it (ab < 0), else the nearer end.
@@ -176,10 +181,17 @@ export function biotSavart(
   return result;
 }
 
+/**
+ * Distance from a segment, as a fraction of its length, below which a field point counts
+ * as on the filament: 2^-44, about 256 ulp. There the field (over 1e6 T for 1 A and a 1 m
+ * segment) is set by the rounding of the coordinates, not by the geometry.
+ */
+const ON_FILAMENT = 2 ** -44;
+
 function onFilament(p: number, v: number): FormulaError {
   return new FormulaError("out_of_range", {
     formula: "biotSavart",
     input: "points",
-    detail: `field point ${p} lies on the current filament (segment ${v - 1}), where the field of a thin filament is unbounded; give the wire radius and keep points outside it`,
+    detail: `field point ${p} lies on the current filament (segment ${v - 1}, to within 2^-44 of its length), where the field of a thin filament is unbounded; keep field points outside the conductor (see the wireRadius option)`,
   });
 }
