@@ -97,7 +97,8 @@ export function solveMagneticCircuit(circuit: MagneticCircuit): MagneticCircuitS
   }
   // Every node must reach node 0 through branches, or its potential is undefined.
   const parent = Array.from({ length: nodes }, (_, i) => i);
-  // Each walk climbs a tree of at most `nodes` members, so it ends within `nodes` steps.
+  // Each walk climbs a tree of at most `nodes` members, so it ends within `nodes` steps;
+  // with path halving all walks together take O((branches + nodes) log nodes) steps.
   let climbs = 0;
   const find = (i: number): number => {
     while (parent[i] !== i) {

@@ -56,6 +56,9 @@ export const MAX_SEGMENT_PAIRS = 1_000_000;
  */
 export const PIECE_BOUND = 1 + 18 * 60;
 
+/** Shortest piece, relative to the size of its coordinates, that is still halved. */
+const RESOLVE = 2 ** -40;
+
 /** Pieces visited by the current pair's refinement (reported to countLoop per pair). */
 let pieces = 0;
 
@@ -222,7 +225,10 @@ function pieceIntegral(
   if (h > 0.1 * d) {
     rule = G8;
     if (h > 0.4 * d) {
-      if (h > d && depth < maxDepth) {
+      // Halve while the piece is longer than what its coordinates resolve (2^-40 of their
+      // size): shorter pieces put Gauss nodes onto the touching vertex itself, where the
+      // closed form divides by a distance that has rounded to 0.
+      if (h > d && depth < maxDepth && h > RESOLVE * (Math.abs(px) + Math.abs(py) + Math.abs(pz) + h)) {
         const half = 0.5 * h;
         return (
           pieceIntegral(px, py, pz, ux, uy, uz, half, B, j, depth + 1, maxDepth) +

@@ -88,7 +88,7 @@ export function brent(
       fa = fb; fb = fc; fc = fa;
     }
     const tol = 2 * relTol * Math.abs(b) + 0.5 * absTol;
-    const m = 0.5 * (c - b);
+    const m = 0.5 * c - 0.5 * b; // halves first: c - b overflows for brackets wider than 1.8e308
     if (Math.abs(m) <= tol || fb === 0) {
       countLoop(iter);
       return { x: b, fx: fb, iterations: iter, converged: true };
