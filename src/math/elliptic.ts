@@ -102,8 +102,10 @@ export function carlsonRF(x: number, y: number, z: number): number {
   if (hi === Infinity) return 0;
   if (mid === 0) return Infinity;
   if (mid / hi < ASYMPTOTIC_RATIO) {
-    // R_F = z^-1/2 [ln(4 sqrt(z) / (sqrt(x) + sqrt(y))) + O((y/z) ln)], x <= y << z
-    // (DLMF 19.27.? in Carlson's asymptotic forms; the first term is K ~ ln(4/k') of DLMF 19.12.1).
+    // R_F = z^-1/2 [ln(4 sqrt(z) / (sqrt(x) + sqrt(y))) + O((y/z) ln)], x <= y << z: Carlson's
+    // logarithmic asymptote (cf. DLMF 19.27(ii), from memory); x = 0 gives K ~ ln(4/k') of
+    // DLMF 19.12.1, x = y gives R_C's acosh. Checked against the duplication theorem at 50
+    // digits in tests/math/elliptic.test.ts.
     return logRatio(hi, lo, mid) / Math.sqrt(hi);
   }
   // Scale by 4^-j (exact) when the largest argument is beyond 2^+-500, where the
