@@ -272,20 +272,24 @@ export function ellipticByComplement(kc: number, out: Float64Array, lnInvKc?: nu
   carlsonForms(mc, out);
 }
 
-/** K, E, D, E - 1 by Carlson for mc >= LOG_FORM_LIMIT; m = 1 - mc is then exact enough. */
-function carlsonForms(mc: number, out: Float64Array): void {
+/**
+ * E by Carlson for mc >= LOG_FORM_LIMIT (m = 1 - mc is then exact enough), given
+ * rf = R_F(0, mc, 1) and, for mc >= 1/2, rd = R_D(0, mc, 1).
+ */
+function carlsonE(mc: number, rf: number, rd: number): number {
   const m = 1 - mc;
+  if (mc >= 0.5) return rf - (m * rd) / 3; // m D <= 0.3 K here: no cancellation
+  // E = mc R_F(0, mc, 1) + (m mc / 3) R_D(0, 1, mc) (DLMF 19.25.1, from
+  // E - k'^2 K = (k^2 k'^2 / 3) R_D(0, 1, k'^2)): both terms positive, while
+  // K - m D subtracts two values of size ln(4/k').
+  return mc * rf + ((m * mc) / 3) * carlsonRD(0, 1, mc);
+}
+
+/** K, E, D, E - 1 by Carlson for mc >= LOG_FORM_LIMIT. */
+function carlsonForms(mc: number, out: Float64Array): void {
   const rf = carlsonRF(0, mc, 1);
   const rd = carlsonRD(0, mc, 1);
-  let e: number;
-  if (mc >= 0.5) {
-    e = rf - (m * rd) / 3; // m D <= 0.3 K here: no cancellation
-  } else {
-    // E = mc R_F(0, mc, 1) + (m mc / 3) R_D(0, 1, mc) (DLMF 19.25.1, from
-    // E - k'^2 K = (k^2 k'^2 / 3) R_D(0, 1, k'^2)): both terms positive, while
-    // K - m D subtracts two values of size ln(4/k').
-    e = mc * rf + ((m * mc) / 3) * carlsonRD(0, 1, mc);
-  }
+  const e = carlsonE(mc, rf, rd);
   out[0] = rf;
   out[1] = e;
   out[2] = rd / 3;
@@ -311,7 +315,9 @@ export function ellipticK(m: number, mc: number = 1 - m): number {
  * DLMF 19.12.2 near m = 1; E(1) = 1.
  */
 export function ellipticE(m: number, mc: number = 1 - m): number {
-  return byParameter(mc)[1]!;
+  if (mc < LOG_FORM_LIMIT) return byParameter(mc)[1]!;
+  // Two Carlson integrals, not three: R_D(0, mc, 1) only where E's form uses it.
+  return carlsonE(mc, carlsonRF(0, mc, 1), mc >= 0.5 ? carlsonRD(0, mc, 1) : 0);
 }
 
 /**
