@@ -1,5 +1,30 @@
 import { MU0 } from "../constants/si.js";
 import { FormulaError } from "../core/errors.js";
+import type { Note } from "../core/spec.js";
+import { countLoop } from "../math/loop-count.js";
+
+/** Most path vertices biotSavart accepts. */
+export const MAX_PATH_VERTICES = 1_000_000;
+/** Most field points biotSavart accepts in one call. */
+export const MAX_FIELD_POINTS = 10_000_000;
+/**
+ * Most segment-point pairs in one call (points times segments): about 5-10 s of
+ * work at a few ns per pair. Split larger jobs into several calls.
+ */
+export const MAX_SEGMENT_POINT_PAIRS = 1e9;
+
+/** The field at the points (x, y, z triples, T), with notes on where the thin-filament model ends. */
+export type BiotSavartField = Float64Array & { readonly warnings: readonly Note[] };
+
+export interface BiotSavartOptions {
+  /**
+   * Radius of the conductor, m. A field point closer than this to a segment lies
+   * inside the wire, where the filament's field (which grows as 1/distance) is
+   * wrong: the real field falls to zero at the wire's axis. Such points are
+   * reported in the `inside_conductor` warning. Default 0 (no check).
+   */
+  readonly wireRadius?: number;
+}
 
 function bad(input: string, detail: string, value?: unknown): FormulaError {
   return new FormulaError("invalid_argument", { formula: "biotSavart", input, value, detail });
@@ -29,25 +54,52 @@ function checkCoordinates(name: string, a: unknown, minPoints: number): asserts 
  * segment s^2 - L^2 = 2 (R_a R_b + a.b) cancels; there it is computed as
  * 2 |c|^2 / (R_a R_b - a.b) (Lagrange's identity), which does not.
  *
- * A point on a segment (or its end) gets no contribution from that segment: the field of
- * a filament is singular there. Each segment's end is reused as the next start, so one
- * square root per segment and point; no allocation per point.
+ * Each segment's end is reused as the next start, so one square root per segment and
+ * point; no allocation per point.
  *
- * Errors: FormulaError "invalid_argument" for arrays of the wrong type or length,
- * non-finite coordinates or a non-finite current.
+ * Validity: a thin filament. A point on a segment (or at a vertex), or closer to it than
+ * 2^-44 of its length (the rounding of the coordinates), is refused: the field of a filament
+ * is unbounded there. With `options.wireRadius`, points closer than that to a
+ * segment are inside the real conductor and get the warning `inside_conductor` (the
+ * result there overstates the field; inside a round wire it falls linearly to zero at the
+ * axis). The result carries `warnings` (a property of the returned array; `[]` when none).
+ *
+ * Limits (each loop is bounded by them): at most MAX_PATH_VERTICES vertices,
+ * MAX_FIELD_POINTS points and MAX_SEGMENT_POINT_PAIRS segment-point pairs per call.
+ *
+ * Errors: FormulaError "invalid_argument" for arrays of the wrong type or length, sizes
+ * above the limits, non-finite coordinates, a non-finite current or a bad wireRadius;
+ * "out_of_range" for a point on the filament or a field that is not representable.
  *
  * @example
  * // square loop of side 2 m, 1 A; field at its centre ≈ 5.66e-7 T along +z
  * biotSavart(new Float64Array([1,1,0, -1,1,0, -1,-1,0, 1,-1,0, 1,1,0]), 1, new Float64Array([0,0,0]));
  */
-export function biotSavart(path: Float64Array, current: number, points: Float64Array, out?: Float64Array): Float64Array {
+export function biotSavart(
+  path: Float64Array,
+  current: number,
+  points: Float64Array,
+  out?: Float64Array,
+  options?: BiotSavartOptions,
+): BiotSavartField {
   checkCoordinates("path", path, 2);
   checkCoordinates("points", points, 0);
   if (typeof current !== "number" || current - current !== 0) throw bad("current", "must be a finite number (A)", current);
   const np = points.length / 3;
-  const result = out ?? new Float64Array(points.length);
-  if (result.length < points.length) throw bad("out", "output array is shorter than points", result.length);
   const nv = path.length / 3;
+  if (nv > MAX_PATH_VERTICES) throw bad("path", `at most ${MAX_PATH_VERTICES} vertices per call`, nv);
+  if (np > MAX_FIELD_POINTS) throw bad("points", `at most ${MAX_FIELD_POINTS} points per call; split the points into several calls`, np);
+  if (np * (nv - 1) > MAX_SEGMENT_POINT_PAIRS) {
+    throw bad("points", `${np} points times ${nv - 1} segments exceeds ${MAX_SEGMENT_POINT_PAIRS} pairs per call; split the points into several calls`, np);
+  }
+  const wireRadius = options?.wireRadius ?? 0;
+  if (typeof wireRadius !== "number" || !(wireRadius >= 0) || wireRadius === Infinity) {
+    throw bad("wireRadius", "must be a finite radius >= 0 (m)", wireRadius);
+  }
+  const result = (out ?? new Float64Array(points.length)) as Float64Array & { warnings: readonly Note[] };
+  if (result.length < points.length) throw bad("out", "output array is shorter than points", result.length);
+  let inside = 0; // points inside the conductor
+  let firstInside = -1;
   const k = (MU0 * current) / (4 * Math.PI);
   for (let p = 0; p < np; p++) {
     const px = points[3 * p]!;
@@ -60,6 +112,7 @@ export function biotSavart(path: Float64Array, current: number, points: Float64A
     let bx = 0;
     let by = 0;
     let bz = 0;
+    let near = false;
     for (let v = 1; v < nv; v++) {
       const qx = px - path[3 * v]!;
       const qy = py - path[3 * v + 1]!;
@@ -77,11 +130,24 @@ export function biotSavart(path: Float64Array, current: number, points: Float64A
       const ab = ax * qx + ay * qy + az * qz;
       const s = ra + rb;
       // factor = 2 s / (rr (s^2 - L^2)), with s^2 - L^2 = 2 (rr + a.b).
+      // A point within ON_FILAMENT |L| of the segment is on the filament as far as its
+      // coordinates can tell (rounding puts a point "on" a slanted segment about an ulp off it).
+      const l2 = lx * lx + ly * ly + lz * lz;
       let f = 0;
       if (ab < 0) {
-        if (c2 > 0) f = (s * (rr - ab)) / (rr * c2); // 2 s (rr - ab) / (rr * 2 c2)
-      } else if (rr > 0) {
+        // a and b point apart: P projects inside the segment, at distance |c| / |L| from it.
+        if (c2 <= ON_FILAMENT * ON_FILAMENT * l2 * l2) throw onFilament(p, v);
+        f = (s * (rr - ab)) / (rr * c2); // 2 s (rr - ab) / (rr * 2 c2)
+      } else {
+        // Beyond an end (on the line's extension c = 0: no field), nearest to a vertex.
+        const r = Math.min(ra, rb);
+        if (r * r <= ON_FILAMENT * ON_FILAMENT * l2) throw onFilament(p, v);
         f = s / (rr * (rr + ab));
+      }
+      if (wireRadius > 0 && !near) {
+        // Distance from P to the segment: |c| / |L| inside it (ab < 0), else the nearer end.
+        const dist = ab < 0 ? Math.sqrt(c2) / Math.sqrt(lx * lx + ly * ly + lz * lz) : Math.min(ra, rb);
+        near = dist < wireRadius;
       }
       bx += f * cx;
       by += f * cy;
@@ -91,6 +157,10 @@ export function biotSavart(path: Float64Array, current: number, points: Float64A
       az = qz;
       ra = rb;
     }
+    if (near) {
+      if (inside === 0) firstInside = p;
+      inside++;
+    }
     if ((bx - bx) + (by - by) + (bz - bz) !== 0) {
       throw new FormulaError("out_of_range", { formula: "biotSavart", detail: `field at point ${p} is not representable` });
     }
@@ -98,5 +168,30 @@ export function biotSavart(path: Float64Array, current: number, points: Float64A
     result[3 * p + 1] = k * by;
     result[3 * p + 2] = k * bz;
   }
+  countLoop(np * (nv - 1));
+  result.warnings =
+    inside === 0
+      ? []
+      : [
+          {
+            code: "inside_conductor",
+            message: `${inside} of ${np} field points (the first is point ${firstInside}) lie closer to a segment than the wire radius ${wireRadius} m: inside the conductor the thin-filament field is wrong (the real field falls linearly to zero at the wire's axis)`,
+          },
+        ];
   return result;
+}
+
+/**
+ * Distance from a segment, as a fraction of its length, below which a field point counts
+ * as on the filament: 2^-44, about 256 ulp. There the field (over 1e6 T for 1 A and a 1 m
+ * segment) is set by the rounding of the coordinates, not by the geometry.
+ */
+const ON_FILAMENT = 2 ** -44;
+
+function onFilament(p: number, v: number): FormulaError {
+  return new FormulaError("out_of_range", {
+    formula: "biotSavart",
+    input: "points",
+    detail: `field point ${p} lies on the current filament (segment ${v - 1}, to within 2^-44 of its length), where the field of a thin filament is unbounded; keep field points outside the conductor (see the wireRadius option)`,
+  });
 }

@@ -1,12 +1,12 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { NON_NEGATIVE, POSITIVE, TURNS } from "../core/spec.js";
-import { loopKernel } from "./loop-series.js";
+import { loopKernel, SERIES_LIMIT } from "./loop-series.js";
 import { IMPLANT_CAUTION} from "./shared.js";
 
 const CURRENT = { dimension: "Current", description: "Current in the conductor", example: 10 } as const;
-/** Scratch for loopKernel's [f, E, mc D]: no allocation per call. */
-const KERNEL = /* @__PURE__ */ new Float64Array(3);
+/** Scratch for loopKernel's [f/m, E, k' D, f]: no allocation per call. */
+const KERNEL = /* @__PURE__ */ new Float64Array(4);
 const GRIFFITHS = { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed." } as const;
 
 /**
@@ -125,22 +125,30 @@ export const loopField = /* @__PURE__ */ defineFormula({
     // hypot keeps alpha and beta finite for any distances.
     const alpha = Math.hypot(a - rho, z);
     const beta = Math.hypot(a + rho, z);
-    const m = 4 * (a / beta) * (rho / beta);
-    const q = alpha / beta;
-    const mc = q * q; // from the geometry: 1 - m would lose digits next to the wire
-    loopKernel(m, mc, KERNEL);
-    const f = KERNEL[0]!;
+    const ua = a / beta; // <= 1
+    const ur = rho / beta; // <= 1
+    const m = 4 * ua * ur;
+    // k' = alpha/beta from the geometry: 1 - m would lose digits next to the wire, and
+    // mc = k'^2 underflows 1e-200 m from a 1 m loop where k' itself does not.
+    const kc = alpha / beta;
+    loopKernel(m, kc, KERNEL);
+    const fm = KERNEL[0]!; // f/m
     const e = KERNEL[1]!;
-    const mcD = KERNEL[2]!;
-    // mu0 I a^2 / (pi alpha^2 beta), factored so nothing overflows or underflows early.
-    const s = a / alpha;
-    const scale = ((MU0 * x.current) / Math.PI) * s * (s / beta);
-    // Axial bracket (a E - 2 rho f) / a. Inside the loop's radius, and next to the wire, use the
-    // equal form 2 mc D + 2 (a - rho) f / a (E - 2 f = 2 mc D): its terms do not cancel there,
+    const kcD = KERNEL[2]!; // k' D
+    const f = KERNEL[3]!;
+    // B = mu0 I a (..) / (pi alpha^2 beta) as a product of ratios each at most about 1,
+    // with one division by alpha early: nothing overflows or underflows before the
+    // result does (a field 1e-200 m from the wire is 2e193 T and is returned).
+    const c = ((MU0 * x.current) / Math.PI) * ua / alpha;
+    // Radial: 2 mu0 I a z f / (pi alpha^2 beta) = 2 c (z/alpha) f, f = m (f/m) = 4 ua ur (f/m).
+    const radial = 2 * c * (z / alpha) * (m < SERIES_LIMIT ? ua * (4 * ur * fm) : f);
+    // Axial bracket (a E - 2 rho f) / alpha. Inside the loop's radius, and next to the wire, use the
+    // equal form 2 a mc D + 2 (a - rho) f (E - 2 f = 2 mc D), divided by alpha as
+    // 2 ua k' D + 2 ((a - rho)/alpha) f: its terms do not cancel there and stay bounded,
     // while a E - 2 rho f loses digits as E and 2 rho f / a both tend to 1. Far outside,
-    // where m is small, the first form is the one without cancellation.
-    const axial = rho <= a || m > 0.5 ? 2 * mcD + 2 * (((a - rho) * f) / a) : e - 2 * ((rho * f) / a);
-    return [scale * 2 * ((z * f) / a), scale * axial];
+    // where m is small, a (E - 2 (rho/a) f) / alpha = (ua/k') (E - 8 (f/m) ur^2) has no cancellation.
+    const axial = rho <= a || m > 0.5 ? 2 * ua * kcD + 2 * ((a - rho) / alpha) * f : (ua / kc) * (e - 8 * fm * ur * ur);
+    return [radial, c * axial];
   },
 });
 

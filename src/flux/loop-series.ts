@@ -1,4 +1,4 @@
-import { carlsonRD, carlsonRF } from "../math/elliptic.js";
+import { ellipticByComplement } from "../math/elliptic.js";
 
 /**
  * The loop-field kernel f(m) = E(m)/2 - (1 - m) D(m), with D = (K - E)/m, and E(m).
@@ -29,26 +29,36 @@ const F_COEFFS: Float64Array = /* @__PURE__ */ (() => {
 })();
 
 /**
- * Writes [f, E, mc D] for parameter m and its complement mc (taken from the geometry)
- * into `out`. E and D share Carlson's R_D(0, mc, 1): E = R_F - m R_D / 3, D = R_D / 3
- * (DLMF 19.25.1), so one R_F and one R_D serve both.
+ * Writes [f/m, E, k' D, f] for parameter m and complementary modulus kc = k'
+ * (taken from the geometry, alpha/beta for a loop) into `out`.
+ * Below SERIES_LIMIT f/m is the Maclaurin series (28 terms, straight-line Horner)
+ * and E comes from Carlson's integrals (mc >= 0.8 there); k' D = (E/2 - f)/k'
+ * (E - 2f = 2 mc D). Above it K, E, D come from ellipticByComplement, which
+ * switches to the logarithmic forms in ln(1/k') as k' -> 0, so nothing
+ * underflows or loops when the point is next to the filament (mc = k'^2 may
+ * be 0 there while k' is not); f = E/2 - k' (k' D) then loses at most a factor
+ * 1/(4m) (a few ulp).
  */
-export function loopKernel(m: number, mc: number, out: Float64Array): void {
-  const rf = carlsonRF(0, mc, 1);
-  const rd = carlsonRD(0, mc, 1);
-  const e = rf - (m * rd) / 3;
+export function loopKernel(m: number, kc: number, out: Float64Array): void {
+  ellipticByComplement(kc, SCRATCH);
+  const e = SCRATCH[1]!;
   if (m < SERIES_LIMIT) {
     // Horner from the top; c_0 = 0 so f = m * (c_1 + m (c_2 + ...)).
     let s = F_COEFFS[TERMS]!;
     for (let n = TERMS - 1; n >= 1; n--) s = s * m + F_COEFFS[n]!;
     const f = s * m;
-    out[0] = f;
+    out[0] = s;
     out[1] = e;
-    out[2] = e / 2 - f; // mc D = E/2 - f: f is small here, so no digits are lost
+    out[2] = (e / 2 - f) / kc; // f is small here, so no digits are lost; kc >= 0.89
+    out[3] = f;
     return;
   }
-  const mcD = (mc * rd) / 3;
-  out[0] = e / 2 - mcD;
+  const kcD = kc * SCRATCH[2]!;
+  const f = e / 2 - kc * kcD;
+  out[0] = f / m;
   out[1] = e;
-  out[2] = mcD;
+  out[2] = kcD;
+  out[3] = f;
 }
+
+const SCRATCH = /* @__PURE__ */ new Float64Array(4);

@@ -1,4 +1,12 @@
 import { FormulaError } from "../core/errors.js";
+import { countLoop } from "../math/loop-count.js";
+
+/**
+ * Most triangles a mesh may have: bounds the checks' and the quadrature's loops
+ * (7 field calls per triangle). boxMesh's largest (1000 divisions) has 12 million,
+ * sphereMesh's (8 subdivisions) 1.3 million.
+ */
+export const MAX_TRIANGLES = 20_000_000;
 
 /** A triangulated surface: vertex coordinates (x, y, z triples, m) and triangles (three vertex indices each). */
 export interface TriangleMesh {
@@ -57,6 +65,9 @@ export function checkClosedSurface(mesh: TriangleMesh, formula = "closedSurfaceF
   }
   if (!(triangles instanceof Uint32Array) || triangles.length % 3 !== 0 || triangles.length < 12) {
     throw bad(formula, "surface.triangles", "expected a Uint32Array of vertex-index triples, at least 4 triangles");
+  }
+  if (triangles.length / 3 > MAX_TRIANGLES) {
+    throw bad(formula, "surface.triangles", `at most ${MAX_TRIANGLES} triangles`, triangles.length / 3);
   }
   const nv = vertices.length / 3;
   for (let i = 0; i < vertices.length; i++) {
@@ -159,6 +170,7 @@ export function closedSurfaceFlux(surface: TriangleMesh, field: VectorField): Su
     flux += triangleFlux;
     absolute += Math.abs(triangleFlux);
   }
+  countLoop(nt); // one pass of 7 points per triangle, nt <= MAX_TRIANGLES
   if (flux - flux !== 0 || absolute - absolute !== 0) {
     throw new FormulaError("out_of_range", { formula: "closedSurfaceFlux", detail: "the field returned non-finite values on the surface" });
   }

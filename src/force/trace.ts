@@ -1,5 +1,7 @@
 import { SPEED_OF_LIGHT } from "../constants/si.js";
 import { FormulaError } from "../core/errors.js";
+import type { Note } from "../core/spec.js";
+import { countLoop } from "../math/loop-count.js";
 import type { Charge, ElectricField, FluxDensity, Length, Mass, Time, Vec3, Velocity } from "../units/types.js";
 
 const C = SPEED_OF_LIGHT;
@@ -7,6 +9,13 @@ const INV_C2 = 1 / (C * C);
 const ID = "traceParticle";
 /** Largest number of stored samples (3 Float64Arrays of 3 values each: about 560 MB). */
 const MAX_SAMPLES = 1e7;
+/**
+ * Most time steps one call runs: the step loop's bound. At 5-20 ns per step with
+ * uniform fields (bench/particle.ts) that is up to about 20 s; field functions cost more.
+ */
+export const MAX_STEPS = 1e9;
+/** omega dt above which the result carries the `coarse_time_step` warning (see traceParticle). */
+export const OMEGA_DT_LIMIT = 0.1;
 
 /**
  * A field given as a function of position (m) and time (s), returning the
@@ -31,7 +40,7 @@ export interface TraceOptions {
   readonly fluxDensity?: FieldSource<FluxDensity>;
   /** Time step, s (positive). Keep omega dt <= 0.1, omega = |q| B / (gamma m); see `traceParticle`. */
   readonly timeStep: Time;
-  /** Number of time steps (a whole number, at least 1). */
+  /** Number of time steps (a whole number from 1 to MAX_STEPS = 1e9). */
   readonly steps: number;
   /** Store every n-th step (default 1: every step). */
   readonly sampleEvery?: number;
@@ -50,6 +59,11 @@ export interface ParticleTrace {
   readonly velocities: Float64Array;
   /** Number of samples: floor(steps / sampleEvery) + 1 (the start included). */
   readonly samples: number;
+  /**
+   * Where the trace's accuracy ends: `coarse_time_step` when the largest omega dt met
+   * (omega = |q| B / (gamma m), B at the particle) exceeds 0.1.
+   */
+  readonly warnings: readonly Note[];
 }
 
 function bad(input: string, value: unknown, detail: string): FormulaError {
@@ -104,8 +118,11 @@ function wholeNumber(input: string, v: unknown, min: number, max: number): numbe
  * sections 4-3 and 4-4 (from memory); H. Qin et al., "Why is Boris algorithm so
  * good?", Phys. Plasmas 20, 084503 (2013).
  *
+ * The result's `warnings` carry `coarse_time_step` when the largest omega dt met along
+ * the path (from the magnetic field actually seen at each step) exceeds 0.1.
+ *
  * Errors: FormulaError "invalid_argument" naming the option (non-finite values,
- * steps not a whole number, speed not below c, a field function returning
+ * steps not a whole number from 1 to MAX_STEPS, speed not below c, a field function returning
  * anything but three finite numbers); "out_of_range" if the motion overflows.
  *
  * @example
@@ -125,7 +142,7 @@ export function traceParticle(options: TraceOptions): ParticleTrace {
   const v0 = vector3("velocity", options.velocity);
   const dt = finiteNumber("timeStep", options.timeStep);
   if (!(dt > 0)) throw bad("timeStep", dt, "must be positive");
-  const steps = wholeNumber("steps", options.steps, 1, Number.MAX_SAFE_INTEGER);
+  const steps = wholeNumber("steps", options.steps, 1, MAX_STEPS);
   const every = options.sampleEvery === undefined ? 1 : wholeNumber("sampleEvery", options.sampleEvery, 1, Number.MAX_SAFE_INTEGER);
   const t0 = options.startTime === undefined ? 0 : finiteNumber("startTime", options.startTime);
   const samples = Math.floor(steps / every) + 1;
@@ -151,18 +168,37 @@ export function traceParticle(options: TraceOptions): ParticleTrace {
   pos[0] = x0; pos[1] = y0; pos[2] = z0;
   vel[0] = v0[0]; vel[1] = v0[1]; vel[2] = v0[2];
 
-  // State carried between chunks: x, y, z, ux, uy, uz (u = gamma v), gamma, next sample index, steps to it.
-  const st = new Float64Array([x0, y0, z0, g0 * v0[0], g0 * v0[1], g0 * v0[2], g0, 1, every]);
+  // State carried between chunks: x, y, z, ux, uy, uz (u = gamma v), gamma, next sample index, steps to it,
+  // and the largest |t|^2 met (t = tan of half the rotation angle, |t| ~ omega dt / 2).
+  const st = new Float64Array([x0, y0, z0, g0 * v0[0], g0 * v0[1], g0 * v0[2], g0, 1, every, 0]);
   const uniform = new Float64Array([...(eField.uniform ?? [0, 0, 0]), ...(bField.uniform ?? [0, 0, 0])]);
   const kick = (q / m) * 0.5 * dt;
   const eFn = eField.fn, bFn = bField.fn;
   // Short chunks: the kernel is then optimized as a whole from full type feedback instead of
   // by on-stack replacement in the middle of one long loop (which deoptimizes at its exit).
   // Plain arguments, no options object: nothing whose shape can invalidate the optimized code.
+  // The loop runs ceil(steps / CHUNK) times, each call exactly its chunk's steps: steps <= MAX_STEPS in all.
   for (let n0 = 0; n0 < steps; n0 += CHUNK) {
     borisSteps(st, uniform, eFn, bFn, t0, dt, kick, every, t, pos, vel, n0, Math.min(steps, n0 + CHUNK));
   }
-  return { t, positions: pos, velocities: vel, samples };
+  countLoop(steps);
+  return { t, positions: pos, velocities: vel, samples, warnings: stepWarnings(st[9]!) };
+}
+
+/**
+ * The Boris rotation turns u by 2 atan(|t|) per step with |t| = omega dt / 2 exactly
+ * (t = (q dt / (2 m gamma)) B), so omega dt = 2 |t|; the lag is 1 - 2 atan(omega dt / 2) / (omega dt).
+ */
+function stepWarnings(t2max: number): Note[] {
+  const omegaDt = 2 * Math.sqrt(t2max);
+  if (!(omegaDt > OMEGA_DT_LIMIT)) return [];
+  const lag = 1 - (2 * Math.atan(omegaDt / 2)) / omegaDt; // about (omega dt)^2 / 12 while small
+  return [
+    {
+      code: "coarse_time_step",
+      message: `omega dt reaches ${omegaDt.toPrecision(3)} (omega = |q| B / (gamma m)), above ${OMEGA_DT_LIMIT}: the Boris rotation per step, 2 atan(omega dt / 2), lags the true gyration omega dt by ${(100 * lag).toPrecision(2)} % (about (omega dt)^2 / 12), so phases and orbits drift; shorten timeStep until omega dt <= ${OMEGA_DT_LIMIT}`,
+    },
+  ];
 }
 
 /** Steps per kernel call. */
@@ -181,6 +217,7 @@ function borisSteps(
   let x = st[0]!, y = st[1]!, z = st[2]!, ux = st[3]!, uy = st[4]!, uz = st[5]!, gamma = st[6]!;
   // Small integers kept as int32 so the sample stores are plain indexed stores.
   let k = st[7]! | 0, untilSample = st[8]! | 0;
+  let t2max = st[9]!;
   // Field components as plain locals: uniform fields never leave registers.
   let ex = uniform[0]!, ey = uniform[1]!, ez = uniform[2]!, bx = uniform[3]!, by = uniform[4]!, bz = uniform[5]!;
   for (let n = n0 + 1; n <= n1; n++) {
@@ -200,7 +237,9 @@ function borisSteps(
     // Magnetic rotation of u- by angle 2 atan(|t|); preserves |u| exactly in exact arithmetic.
     const f = kick / Math.sqrt(1 + (umx * umx + umy * umy + umz * umz) * INV_C2);
     const tx = f * bx, ty = f * by, tz = f * bz;
-    const s = 2 / (1 + tx * tx + ty * ty + tz * tz);
+    const t2 = tx * tx + ty * ty + tz * tz;
+    if (t2 > t2max) t2max = t2;
+    const s = 2 / (1 + t2);
     const upx = umx + (umy * tz - umz * ty);
     const upy = umy + (umz * tx - umx * tz);
     const upz = umz + (umx * ty - umy * tx);
@@ -225,7 +264,7 @@ function borisSteps(
   }
   // Positions overflow only for absurd time spans; non-finite values propagate, so checking once per chunk suffices.
   if (!(x - x === 0 && y - y === 0 && z - z === 0)) throw overflow(n1);
-  st[0] = x; st[1] = y; st[2] = z; st[3] = ux; st[4] = uy; st[5] = uz; st[6] = gamma; st[7] = k; st[8] = untilSample;
+  st[0] = x; st[1] = y; st[2] = z; st[3] = ux; st[4] = uy; st[5] = uz; st[6] = gamma; st[7] = k; st[8] = untilSample; st[9] = t2max;
 }
 
 interface ResolvedField {

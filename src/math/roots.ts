@@ -8,16 +8,28 @@
  * try interpolation, accept it only if it lands well inside the bracket and shrinks
  * the step fast enough, otherwise bisect. Convergence is guaranteed for any
  * continuous function with a sign change, superlinear for smooth ones.
+ * The loop runs at most `maxIterations` times (default 200, at most
+ * MAX_BRENT_ITERATIONS) and reports its count to countLoop.
  */
+import { countLoop } from "./loop-count.js";
 
 export interface BrentOptions {
   /** Absolute tolerance on x (added to the relative one). Default 0. */
   readonly xAbsTol?: number;
   /** Relative tolerance on x. Default 4 * machine epsilon. */
   readonly xRelTol?: number;
-  /** Iteration cap. Default 200. */
+  /** Iteration cap, a whole number 1..MAX_BRENT_ITERATIONS. Default 200. */
   readonly maxIterations?: number;
 }
+
+/**
+ * Largest iteration cap brent accepts. Brent (1973, ch. 4) bounds the steps by
+ * about the square of the bisections needed; bisection by value over the whole
+ * double range to a relative tolerance of 4 eps needs at most about 2,100
+ * halvings, so 10,000 is generous for any bracket a caller can pass, and keeps
+ * a call to a few milliseconds times the cost of f.
+ */
+export const MAX_BRENT_ITERATIONS = 10_000;
 
 export interface BrentResult {
   /** The root estimate. */
@@ -47,6 +59,9 @@ export function brent(
   const absTol = options.xAbsTol ?? 0;
   const relTol = options.xRelTol ?? 4 * Number.EPSILON;
   const maxIter = options.maxIterations ?? 200;
+  if (!Number.isInteger(maxIter) || maxIter < 1 || maxIter > MAX_BRENT_ITERATIONS) {
+    throw new RangeError(`brent: maxIterations must be a whole number 1..${MAX_BRENT_ITERATIONS}, got ${maxIter}`);
+  }
   let fa = fa0 ?? f(a);
   let fb = fb0 ?? f(b);
   if (!Number.isFinite(fa) || !Number.isFinite(fb)) throw new RangeError("brent: f is not finite at the bracket ends");
@@ -73,8 +88,11 @@ export function brent(
       fa = fb; fb = fc; fc = fa;
     }
     const tol = 2 * relTol * Math.abs(b) + 0.5 * absTol;
-    const m = 0.5 * (c - b);
-    if (Math.abs(m) <= tol || fb === 0) return { x: b, fx: fb, iterations: iter, converged: true };
+    const m = 0.5 * c - 0.5 * b; // halves first: c - b overflows for brackets wider than 1.8e308
+    if (Math.abs(m) <= tol || fb === 0) {
+      countLoop(iter);
+      return { x: b, fx: fb, iterations: iter, converged: true };
+    }
 
     if (Math.abs(e) >= tol && Math.abs(fa) > Math.abs(fb)) {
       // Interpolate: secant when a == c, inverse quadratic otherwise.
@@ -108,8 +126,12 @@ export function brent(
     fa = fb;
     b += Math.abs(d) > tol ? d : m > 0 ? tol : -tol;
     fb = f(b);
-    if (!Number.isFinite(fb)) throw new RangeError("brent: f is not finite inside the bracket");
+    if (!Number.isFinite(fb)) {
+      countLoop(iter);
+      throw new RangeError("brent: f is not finite inside the bracket");
+    }
   }
+  countLoop(maxIter);
   return { x: b, fx: fb, iterations: maxIter, converged: false };
 }
 

@@ -1,6 +1,8 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { FormulaError, biotSavart, loopAxialField, loopField, wireField, type Current, type Length } from "../../src/index.js";
+import { MAX_PATH_VERTICES, MAX_SEGMENT_POINT_PAIRS } from "../../src/flux/biot-savart.js";
+import { loopCount, resetLoopCount } from "../helpers/loop-count.js";
 import { expectClose, relativeError } from "../helpers/reference.js";
 import { D, MU0, PI, exact } from "./oracle.js";
 
@@ -19,8 +21,9 @@ function polygon(n: number, R: number): Float64Array {
 
 describe("biotSavart", () => {
   it("gives the exact field at the centre of a regular polygon, (n / pi) tan(pi / n) mu0 I / (2R)", () => {
-    // Griffiths, Introduction to Electrodynamics 4th ed., Problem 5.8 (square and n-gon loops; from memory);
-    // the n-gon value follows from n finite segments; decimal.js oracle.
+    // Oracle: n sides, each a finite straight segment at distance d = R cos(pi/n) from the centre,
+    // seen under half-angle pi/n: B = n mu0 I / (4 pi d) * 2 sin(pi/n) (the Biot-Savart law for a
+    // finite straight segment, B = mu0 I (sin t1 + sin t2) / (4 pi d)), evaluated in decimal.js.
     for (const n of [3, 4, 7, 64]) {
       const expected = new D(n).div(PI).times(D.tan(PI.div(n))).times(MU0).times(2).div(new D(2).times("0.25")).toNumber();
       const b = biotSavart(polygon(n, 0.25), 2, new Float64Array([0, 0, 0]));
@@ -106,9 +109,12 @@ describe("biotSavart", () => {
     );
   });
 
-  it("is linear in current and stays finite on the conductor and at its vertices", () => {
+  it("is linear in current near the conductor and on the extension of a segment", () => {
     const path = polygon(8, 1);
-    const pts = new Float64Array([1, 0, 0, (1 + Math.cos(Math.PI / 4)) / 2, Math.sin(Math.PI / 4) / 2, 0, 0.3, 0.1, 0.2, 5, 5, 5]);
+    // Next to a vertex, next to a side's midpoint, inside, far away, and on the line of the
+    // first side beyond its end (no field from that side there: c = 0).
+    const c = Math.cos(Math.PI / 4), sn = Math.sin(Math.PI / 4);
+    const pts = new Float64Array([1 + 1e-9, 0, 0, (1 + c) / 2, sn / 2, 1e-12, 0.3, 0.1, 0.2, 5, 5, 5, 1 + 0.5 * (1 - c), -0.5 * sn, 0]);
     const b1 = biotSavart(path, 1, pts);
     const b7 = biotSavart(path, -7, pts);
     for (let i = 0; i < b1.length; i++) {
@@ -132,6 +138,60 @@ describe("biotSavart", () => {
     expect(code(() => biotSavart(ok, 1, new Float64Array([0, 0])))).toBe("invalid_argument:points");
     expect(code(() => biotSavart(ok, 1, new Float64Array([0, Number.NaN, 0])))).toBe("invalid_argument:points");
     expect(code(() => biotSavart(ok, Number.POSITIVE_INFINITY, ok))).toBe("invalid_argument:current");
-    expect(() => biotSavart(ok, 1, ok)).not.toThrow(FormulaError);
+    expect(() => biotSavart(ok, 1, new Float64Array([0.5, 1, 0]))).not.toThrow(FormulaError);
+    expect(code(() => biotSavart(ok, 1, new Float64Array([0, 0, 1]), undefined, { wireRadius: -1 }))).toBe("invalid_argument:wireRadius");
+  });
+
+  it("refuses a field point on the filament (at a vertex or inside a segment) as out_of_range, saying why", () => {
+    const path = polygon(8, 1);
+    const c = Math.cos(Math.PI / 4), sn = Math.sin(Math.PI / 4);
+    for (const p of [[1, 0, 0], [c, sn, 0], [(1 + c) / 2, sn / 2, 0]]) {
+      let err: FormulaError | undefined;
+      try {
+        biotSavart(path, 1, new Float64Array([0, 0, 0.5, ...p]));
+      } catch (e) {
+        err = e as FormulaError;
+      }
+      expect(err).toBeInstanceOf(FormulaError);
+      expect(err!.code).toBe("out_of_range");
+      expect(err!.input).toBe("points");
+      expect(err!.message).toContain("point 1 lies on the current filament");
+      expect(err!.message).toContain("unbounded");
+    }
+  });
+
+  it("warns inside_conductor for points closer to a segment than the given wire radius, and not otherwise", () => {
+    // A straight wire along x from -1 to 1 m of radius 1 mm: points at 0.5 mm (inside), 2 mm (outside),
+    // and 0.5 mm beyond its end (inside the wire's end cap region).
+    const wire = new Float64Array([-1, 0, 0, 1, 0, 0]);
+    const pts = new Float64Array([0, 5e-4, 0, 0, 2e-3, 0, 1 + 5e-4, 0, 0]);
+    const b = biotSavart(wire, 10, pts, undefined, { wireRadius: 1e-3 });
+    expect(b.warnings.map((w) => w.code)).toEqual(["inside_conductor"]);
+    expect(b.warnings[0]!.message).toContain("2 of 3 field points");
+    expect(biotSavart(wire, 10, pts).warnings).toEqual([]); // no radius, no check
+    expect(biotSavart(wire, 10, new Float64Array([0, 2e-3, 0]), undefined, { wireRadius: 1e-3 }).warnings).toEqual([]);
+  });
+
+  it("refuses inputs above its stated size limits with invalid_argument naming the input", () => {
+    const code = (f: () => unknown) => {
+      try {
+        f();
+      } catch (e) {
+        return (e as FormulaError).code + ":" + (e as FormulaError).input;
+      }
+      return "no error";
+    };
+    // 10,001 vertices and 100,001 points: 1.0e9 segment-point pairs, just over MAX_SEGMENT_POINT_PAIRS.
+    const path = new Float64Array(3 * 10_001).map((_, i) => (i % 3 === 0 ? i : 0));
+    const pts = new Float64Array(3 * 100_001).fill(0.5);
+    expect(code(() => biotSavart(path, 1, pts))).toBe("invalid_argument:points");
+    expect(code(() => biotSavart(new Float64Array(3 * (MAX_PATH_VERTICES + 1)), 1, new Float64Array(3)))).toBe("invalid_argument:path");
+    expect(MAX_SEGMENT_POINT_PAIRS).toBe(1e9);
+  });
+
+  it("reports its work to the loop counter: points times segments, once per call", () => {
+    resetLoopCount();
+    biotSavart(polygon(8, 1), 1, new Float64Array([0, 0, 0, 0, 0, 1, 0, 0, 2]));
+    expect(loopCount()).toEqual({ total: 24, largest: 24 });
   });
 });

@@ -13,6 +13,9 @@ const m = (v: number) => v as Length;
 const m2 = (v: number) => v as Area;
 const MU0_NUM = MU0.toNumber();
 
+import { loopCount, resetLoopCount } from "../helpers/loop-count.js";
+import { MAX_BRANCHES, MAX_NODES } from "../../src/flux/circuit-solver.js";
+
 describe("reluctance", () => {
   it("of a 1 mm air gap of 1 cm^2 is l / (mu0 A) (decimal.js oracle)", () => {
     checkCases(
@@ -193,5 +196,31 @@ describe("solveMagneticCircuit", () => {
     expect(bad({ branches: [{ from: 0, to: 1.5, reluctance: 1 }] })).toBe("branches[0].to");
     expect(bad({ branches: [{ from: 0, to: 1, reluctance: 1, mmf: Number.NaN }] })).toBe("branches[0].mmf");
     expect(bad({ branches: [{ from: 0, to: 1, reluctance: 1 }, { from: 2, to: 3, reluctance: 1 }] })).toBe("branches");
+  });
+
+  it("refuses circuits above its stated size (node numbers below 1000, at most 100,000 branches)", () => {
+    const code = (c: unknown) => {
+      try {
+        solveMagneticCircuit(c as never);
+      } catch (e) {
+        return `${(e as FormulaError).code}:${(e as FormulaError).input}`;
+      }
+      return "no error";
+    };
+    // A node number of 1e9 once allocated a billion-entry array before failing.
+    expect(code({ branches: [{ from: 0, to: 1e9, reluctance: 1 }] })).toBe("invalid_argument:branches[0].to");
+    expect(code({ branches: [{ from: 0, to: 1000, reluctance: 1 }] })).toBe("invalid_argument:branches[0].to");
+    const many = Array.from({ length: 100_001 }, () => ({ from: 0, to: 1, reluctance: 1 }));
+    expect(code({ branches: many })).toBe("invalid_argument:branches");
+    // The largest allowed: a chain through nodes 0..999 solves, with its loops reported.
+    const chain = Array.from({ length: 999 }, (_, i) => ({ from: i, to: i + 1, reluctance: 1, mmf: i === 0 ? 1 : 0 }));
+    chain.push({ from: 999, to: 0, reluctance: 1, mmf: 0 });
+    resetLoopCount();
+    const sol = solveMagneticCircuit({ branches: chain as never });
+    expect(sol.flux.length).toBe(1000);
+    // Union-find with path halving: each walk at most 1000 steps, all walks together
+    // O((branches + nodes) log nodes); 2 (1000 + 1000) log2(1000) is about 40,000.
+    expect(loopCount().largest).toBeLessThanOrEqual(40_000);
+    expect([MAX_NODES, MAX_BRANCHES]).toEqual([1000, 100_000]);
   });
 });

@@ -8,6 +8,8 @@ import { SPEED_OF_LIGHT } from "../../src/constants/si.js";
 import { expectClose, relativeError } from "../helpers/reference.js";
 import { C, D, E, ME } from "./oracle.js";
 import { errorOf } from "../helpers/errors.js";
+import { loopCount, resetLoopCount } from "../helpers/loop-count.js";
+import { MAX_STEPS, OMEGA_DT_LIMIT } from "../../src/force/trace.js";
 
 const c = SPEED_OF_LIGHT;
 const len = (v: readonly number[]) => v as unknown as Vec3<Length>;
@@ -223,11 +225,51 @@ describe("traceParticle option checks", () => {
     expect(codeOf(() => traceParticle({ ...base, particle: { charge: electron.charge, mass: 0 as never } }))).toEqual(["invalid_argument", "particle.mass"]);
     expect(codeOf(() => traceParticle({ ...base, sampleEvery: 0 }))).toEqual(["invalid_argument", "sampleEvery"]);
     expect(codeOf(() => traceParticle({ ...base, steps: 1e9 }))).toEqual(["invalid_argument", "sampleEvery"]);
+    expect(codeOf(() => traceParticle({ ...base, steps: MAX_STEPS + 1, sampleEvery: 1e6 }))).toEqual(["invalid_argument", "steps"]);
     expect(codeOf(() => traceParticle({ ...base, electricField: () => [0, NaN, 0] }))).toEqual(["invalid_argument", "electricField"]);
     expect(codeOf(() => traceParticle({ ...base, fluxDensity: () => [0, 0] }))).toEqual(["invalid_argument", "fluxDensity"]);
   });
 
   it("reports overflowing motion as out_of_range instead of returning Infinity", () => {
     expect(codeOf(() => traceParticle({ ...base, electricField: fieldE([1e300, 0, 0]), timeStep: s(1e10), steps: 5 }))[0]).toBe("out_of_range");
+  });
+});
+
+describe("traceParticle's validity warning", () => {
+  const base = { particle: electron, position: len([0, 0, 0]), velocity: vel([1e5, 0, 0]), steps: 100 };
+
+  it("warns coarse_time_step for an electron at 0.01 T with a 1 ns step (omega dt = 1.76)", () => {
+    // omega = e B / m_e = 1.759e9 rad/s at 0.01 T (CODATA 2022 e/m_e = 1.75882e11 C/kg), so omega dt = 1.76.
+    const tr = traceParticle({ ...base, fluxDensity: fieldB([0, 0, 0.01]), timeStep: s(1e-9) });
+    expect(tr.warnings.map((w) => w.code)).toEqual(["coarse_time_step"]);
+    expect(tr.warnings[0]!.message).toContain("omega dt reaches 1.76");
+    // The lag 1 - 2 atan(omega dt / 2) / (omega dt) is 18 % there.
+    expect(tr.warnings[0]!.message).toContain("18 %");
+  });
+
+  it("is silent at omega dt = 0.0176 and warns just above the stated 0.1", () => {
+    expect(traceParticle({ ...base, fluxDensity: fieldB([0, 0, 0.01]), timeStep: s(1e-11) }).warnings).toEqual([]);
+    const omega = 1.75882001076e11 * 0.01; // e / m_e (CODATA 2018/2022, from memory) times B
+    expect(traceParticle({ ...base, fluxDensity: fieldB([0, 0, 0.01]), timeStep: s(0.099 / omega) }).warnings).toEqual([]);
+    expect(traceParticle({ ...base, fluxDensity: fieldB([0, 0, 0.01]), timeStep: s(0.101 / omega) }).warnings.length).toBe(1);
+    expect(OMEGA_DT_LIMIT).toBe(0.1);
+  });
+
+  it("sees the field a particle meets along the way, not only at the start", () => {
+    // B is zero at the start and 1 T beyond x = 1 mm: the warning comes from the steps there.
+    const tr = traceParticle({
+      ...base,
+      velocity: vel([1e6, 0, 0]),
+      fluxDensity: (x) => [0, 0, x > 1e-3 ? 1 : 0],
+      timeStep: s(1e-10),
+      steps: 100,
+    });
+    expect(tr.warnings.map((w) => w.code)).toEqual(["coarse_time_step"]);
+  });
+
+  it("reports its steps to the loop counter once", () => {
+    resetLoopCount();
+    traceParticle({ ...base, fluxDensity: fieldB([0, 0, 1e-3]), timeStep: s(1e-12), steps: 1000 });
+    expect(loopCount()).toEqual({ total: 1000, largest: 1000 });
   });
 });

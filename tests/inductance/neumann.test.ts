@@ -6,6 +6,8 @@ import { maxwellMutual } from "../../src/inductance/shared.js";
 import { wirePartialSelf } from "../../src/inductance/lines.js";
 import { loopInductance } from "../../src/index.js";
 import { expectClose, relativeError } from "../helpers/reference.js";
+import { loopCount, resetLoopCount } from "../helpers/loop-count.js";
+import { MAX_SEGMENT_PAIRS, PIECE_BOUND } from "../../src/inductance/neumann.js";
 import { dec, exact } from "../math/decimal-elliptic.js";
 
 /** Regular n-gon inscribed in a circle of radius R at height z, closed (last point = first). */
@@ -150,5 +152,45 @@ describe("polylineSelfInductance", () => {
     const err = (f: () => unknown) => { try { f(); } catch (e) { return e as FormulaError; } throw new Error("no error"); };
     expect(err(() => polylineSelfInductance([0, 0, 0, 1, 0, 0], 0)).input).toBe("wireRadius");
     expect(err(() => polylineSelfInductance([0, 0, 0, 1, 0, 0, 0.5, 0, 0], 1e-3)).code).toBe("out_of_range");
+  });
+});
+
+describe("Neumann's loops are bounded", () => {
+  it("refines one pair of segments in at most 1 + 18 maxDepth pieces, even where they touch", () => {
+    // Adjacent segments sharing a vertex (the log singularity), a segment ending on another's
+    // middle, and two crossing at a small angle within 1e-12 m: the hardest cases for the
+    // refinement. The bound is proven in src/inductance/neumann.ts (PIECE_BOUND).
+    const cases: [number[], number[]][] = [
+      [[0, 0, 0, 1, 0, 0], [1, 0, 0, 1, 1, 0]],
+      [[0, 0, 0, 1, 0, 0], [0.5, 1e-300, 0, 0.5, 1, 0]],
+      [[0, 0, 0, 1, 0, 0], [0.5, -1, 1e-12, 0.5 + 1e-3, 1, 1e-12]],
+      [[0, 0, 0, 1, 0, 0], [1, 0, 0, 2, 1e-3, 0]],
+    ];
+    let most = 0;
+    for (const [a, b] of cases) {
+      for (const maxDepth of [0, 10, 40, 60]) {
+        resetLoopCount();
+        mutualInductance(a, b, { maxDepth });
+        const { largest } = loopCount();
+        expect(largest).toBeLessThanOrEqual(1 + 18 * maxDepth);
+        most = Math.max(most, largest);
+      }
+    }
+    expect(PIECE_BOUND).toBe(1 + 18 * 60);
+    expect(most).toBeGreaterThan(40); // the touching cases do refine deeply
+  });
+
+  it("refuses more segment pairs than its stated limit with invalid_argument", () => {
+    // 1001 segments each: 1,002,001 pairs, just over MAX_SEGMENT_PAIRS (1e6).
+    const line = (y: number) => Array.from({ length: 3 * 1002 }, (_, i) => (i % 3 === 0 ? i / 3 : i % 3 === 1 ? y : 0));
+    let err: FormulaError | undefined;
+    try {
+      mutualInductance(line(0), line(1));
+    } catch (e) {
+      err = e as FormulaError;
+    }
+    expect(err?.code).toBe("invalid_argument");
+    expect(err?.input).toBe("pathB");
+    expect(MAX_SEGMENT_PAIRS).toBe(1e6);
   });
 });

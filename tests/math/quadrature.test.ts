@@ -1,6 +1,6 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { gaussLegendre, integrate } from "../../src/math/quadrature.js";
+import { gaussLegendre, integrate, NEWTON_CAP } from "../../src/math/quadrature.js";
 import { expectClose } from "../helpers/reference.js";
 
 describe("Gauss-Legendre quadrature", () => {
@@ -63,5 +63,15 @@ describe("Gauss-Legendre quadrature", () => {
   it("rejects an unusable order", () => {
     expect(() => gaussLegendre(0)).toThrow(RangeError);
     expect(() => gaussLegendre(2.5)).toThrow(RangeError);
+  });
+
+  it("places every node within 6 Newton steps, as its comment states (cap 10)", () => {
+    // Measured once over all orders 1..4096 (at most 6); re-measured here on 1..300 and a few large orders.
+    let most = 0;
+    for (let n = 1; n <= 300; n++) most = Math.max(most, gaussLegendre(n).maxNewtonSteps);
+    for (const n of [512, 1000, 2048, 4096]) most = Math.max(most, gaussLegendre(n).maxNewtonSteps);
+    expect(most).toBeLessThanOrEqual(6);
+    expect(most).toBeGreaterThanOrEqual(3);
+    expect(NEWTON_CAP).toBe(10);
   });
 });

@@ -1,6 +1,7 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { brent, signChanges } from "../../src/math/roots.js";
+import { brent, MAX_BRENT_ITERATIONS, signChanges } from "../../src/math/roots.js";
+import { loopCount, resetLoopCount } from "../helpers/loop-count.js";
 import { expectClose } from "../helpers/reference.js";
 
 describe("Brent's method", () => {
@@ -57,5 +58,34 @@ describe("sign changes of samples", () => {
     const fs = [-1, 1, 0, 2, -2, NaN, 3];
     const b = signChanges(xs, fs);
     expect(b.map((x) => [x.lo, x.hi])).toEqual([[0, 1], [2, 2], [3, 4]]);
+  });
+});
+
+describe("Brent's iteration bound", () => {
+  it("accepts an iteration cap from 1 to MAX_BRENT_ITERATIONS and reports its count", () => {
+    expect(() => brent((x) => x - 1, 0, 2, { maxIterations: 0 })).toThrow(RangeError);
+    expect(() => brent((x) => x - 1, 0, 2, { maxIterations: MAX_BRENT_ITERATIONS + 1 })).toThrow(RangeError);
+    expect(() => brent((x) => x - 1, 0, 2, { maxIterations: 2.5 })).toThrow(RangeError);
+    resetLoopCount();
+    const r = brent((x) => x * x - 2, 0, 2);
+    expect(loopCount().total).toBe(r.iterations);
+    // A cap of 3 stops a slow bracket unconverged, after exactly 3 iterations.
+    resetLoopCount();
+    const slow = brent((x) => Math.cbrt(x - 1e-3), -1e300, 1e300, { maxIterations: 3 });
+    expect(slow.converged).toBe(false);
+    expect(loopCount().total).toBe(3);
+  });
+
+  it("converges from brackets spanning the whole double range within the largest cap", () => {
+    // atan flattens far from the root, so this is close to plain bisection by value: about
+    // 1,000 halvings from 1e308 down to a root at 0 (measured 1,005-1,008), well under the
+    // 2,100 the doc comment allows for and the 10,000 cap. The default cap of 200 is for
+    // the brackets the library's callers pass (a few decades wide).
+    for (const root of [0, 1e-300, -3e-200, 1, 7e150]) {
+      const r = brent((x) => Math.atan(x - root) + (x - root) * 1e-300, -1e308, 1.7e308, { maxIterations: MAX_BRENT_ITERATIONS });
+      expect(r.converged).toBe(true);
+      expect(r.iterations).toBeLessThan(2_100);
+      expect(Math.abs(r.x - root)).toBeLessThanOrEqual(16 * Number.EPSILON * Math.abs(root) + 1e-300); // twice tol = 2 (2 xRelTol |x|)
+    }
   });
 });
