@@ -144,7 +144,8 @@ export const coreLoss = /* @__PURE__ */ defineFormula({
     if (x.peakFluxDensity === 0) return 0;
     const fa = Math.pow(x.frequency, x.frequencyExponent);
     const bb = Math.pow(x.peakFluxDensity, x.fluxExponent);
-    if (tame(x.coefficient) && tame(fa) && tame(bb) && tame(x.volume)) return x.coefficient * fa * bb * x.volume;
+    // fa, bb > 0 excludes a power that underflowed to zero (tame counts an exact zero as tame).
+    if (tame(x.coefficient) && fa > 0 && tame(fa) && bb > 0 && tame(bb) && tame(x.volume)) return x.coefficient * fa * bb * x.volume;
     const p = mul(mul(scaled(x.coefficient), pow(x.frequency, x.frequencyExponent)), mul(pow(x.peakFluxDensity, x.fluxExponent), scaled(x.volume)));
     return toNumber(p);
   },

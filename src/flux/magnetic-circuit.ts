@@ -2,7 +2,7 @@ import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { formatNumber } from "../core/format.js";
 import { AT_LEAST_ONE, NON_NEGATIVE, POSITIVE, RELATIVE_PERMEABILITY, TURNS } from "../core/spec.js";
-import { add, div, product, quotient, scaled, tame, toNumber, type Scaled } from "./scaled.js";
+import { add, div, mul, product, quotient, scaled, sqrt, tame, toNumber, type Scaled } from "./scaled.js";
 import { logOfRatio, ratio } from "./shared.js";
 
 const MCLYMAN = { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed." } as const;
@@ -253,8 +253,10 @@ export const gapFringingFactor = /* @__PURE__ */ defineFormula({
     // 2G overflows only for G above half the largest double; then ln(G / (g/2)), with g/2 exact for
     // g >= 2^-1021, or ln(G/g) + ln 2 where G/g is astronomically large (no cancellation).
     const ln = 2 * G <= Number.MAX_VALUE ? logOfRatio(2 * G, g) : g >= 2 ** -1021 ? logOfRatio(G, g / 2) : logOfRatio(G, g) + Math.LN2;
-    const addend = tame(g) && tame(x.area) ? (g / Math.sqrt(x.area)) * ln : quotient([g, ln], [Math.sqrt(x.area)]);
-    return 1 + addend;
+    if (tame(g) && tame(x.area)) return 1 + (g / Math.sqrt(x.area)) * ln;
+    const addend = div(mul(scaled(g), scaled(ln)), sqrt(scaled(x.area)));
+    // Below 2^-60 the addend cannot move 1 (it may even underflow the doubles): F is 1.
+    return addend.e < -60 ? 1 : 1 + toNumber(addend);
   },
 });
 
