@@ -4,6 +4,7 @@ import { strongFieldCaution } from "../core/hazards.js";
 import { NON_NEGATIVE, POSITIVE, TURNS } from "../core/spec.js";
 import { loopKernel } from "./loop-series.js";
 import { add, div, mul, product, quotient, scaled, tame, toNumber, type Scaled } from "./scaled.js";
+import { ratio } from "./shared.js";
 
 /**
  * The one strong-field rule (src/core/hazards.ts): ICNIRP 2010 power-frequency
@@ -193,6 +194,7 @@ export const solenoidAxialField = /* @__PURE__ */ defineFormula({
     {
       code: "coarse_pitch",
       when: (x) => x.length / x.turns > x.radius,
+      measure: (x) => ratio(x.length / x.turns, x.radius), // pitch / radius, past 1 when warned
       message: "the turn pitch exceeds the radius: the current-sheet model misses the per-turn ripple (about exp(-2 pi R / pitch)); sum loopAxialField over the turns instead",
     },
   ],
@@ -306,15 +308,18 @@ function solenoidScaled(current: number, turns: number, R: number, l: number, z:
     u1Scale = 1;
   }
   const s1 = hypotScaled(u1, R, u1Scale);
-  const s2 = hypotScaled(Math.abs(u2), R, 0);
   const prefix = product(MU0, turns, Math.abs(current));
   let b: Scaled;
   if (u2 <= 0) {
     const lS = scaled(l);
     let sum = div(s1.u, mul(s1.h, lS));
-    if (u2 < 0) sum = add(sum, div(s2.u, mul(s2.h, lS)));
+    if (u2 < 0) {
+      const s2 = hypotScaled(-u2, R, 0);
+      sum = add(sum, div(s2.u, mul(s2.h, lS)));
+    }
     b = mul(prefix, { m: sum.m, e: sum.e - 1 });
   } else {
+    const s2 = hypotScaled(u2, R, 0);
     const cosSum = add(div(s1.u, s1.h), div(s2.u, s2.h));
     const num = mul(prefix, product(R, R, z));
     b = div(num, mul(mul(s1.h, s1.h), mul(mul(s2.h, s2.h), cosSum)));

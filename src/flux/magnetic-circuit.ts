@@ -67,7 +67,7 @@ function gapPlusCore(g: number, l: number, mur: number): Scaled {
  * Validity: uniform flux over the cross-section, linear (unsaturated) material.
  *
  * Accuracy: within 3 ulp for every input whose result is a double (measured by
- * tests/flux/extremes-accuracy.test.ts; the same holds for every formula in this file).
+ * tests/flux/extremes-accuracy.test.ts; within 4 ulp for every formula in this file).
  *
  * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), magnetic circuits (from memory).
  *

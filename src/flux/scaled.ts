@@ -14,6 +14,8 @@
 // largest double or below the smallest subnormal (2^-1074) comes back as
 // Infinity, which the formula reports as `out_of_range`.
 
+import { countLoop } from "../math/loop-count.js";
+
 const MIN_NORMAL = 2.2250738585072014e-308;
 const TWO_POW_64 = 18446744073709551616;
 const bits = /* @__PURE__ */ new DataView(new ArrayBuffer(8));
@@ -86,8 +88,7 @@ export function sqrt(a: Scaled): Scaled {
  * (|r| <= 1/2) to the mantissa as 2^r, so the exponent carries no rounding at
  * all. u^y and 2^r are single Math.pow calls (correctly rounded to within an
  * ulp): about 2 ulp in all for |y| <= 2000, where |y log2 u| <= 1000 keeps u^y a
- * normal double. Beyond (exponents no fitted material has), u^y goes through
- * y log2 u in doubles and its relative error grows as |y log2 u| * 2^-53.
+ * normal double. Beyond (exponents no fitted material has), see the squaring below.
  */
 export function pow(x: number, y: number): Scaled {
   let { m: u, e: k } = scaled(x);
@@ -96,21 +97,27 @@ export function pow(x: number, y: number): Scaled {
     k += 1;
   }
   const [p, pe] = twoProduct(k, y);
-  let n = Math.round(p);
-  let r = p - n + pe; // p - n is exact (|p - n| <= 1/2 and both near each other)
+  const n = Math.round(p);
+  const r = p - n + pe; // p - n is exact (|p - n| <= 1/2 and both near each other)
   if (!Number.isFinite(n) || Math.abs(n) > 2 ** 52) {
     // The power alone is beyond 2^(2^52): keep the exponent, drop the fraction (no double can hold it anyway).
     return { m: 1, e: n };
   }
+  // u^y directly while it is a normal double (always for |y| <= 2000). Beyond, u^(y / 2^j) is squared
+  // j times in scaled form, with j the fewest halvings that bring it back: each squaring doubles the
+  // relative error, so u^y is within about 2^(j+1) ulp (j = 2 at |y| = 8000). Bound: |y log2 u| halves
+  // per step and is below 2^1024, so at most 1024 steps.
   let t = Math.pow(u, y);
-  if (!(t >= MIN_NORMAL && t <= Number.MAX_VALUE)) {
-    const l = y * Math.log2(u);
-    const j = Math.round(l);
-    n += j;
-    r += l - j;
-    t = 1;
+  let j = 0;
+  while (!(t >= MIN_NORMAL && t <= Number.MAX_VALUE) && j < 1100) {
+    j++;
+    t = Math.pow(u, y * 2 ** -j); // exact scaling of y
   }
-  return mul(norm(t, 0), norm(Math.pow(2, r), n));
+  countLoop(j);
+  let power = norm(t, 0);
+  for (let i = 0; i < j; i++) power = mul(power, power);
+  countLoop(j);
+  return mul(power, norm(Math.pow(2, r), n));
 }
 
 /** The double nearest m 2^e (times sign), a subnormal below 2^-1022; Infinity when not representable. */

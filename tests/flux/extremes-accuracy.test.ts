@@ -181,6 +181,20 @@ describe("loss formulas are exact to a few ulp across the double range", () => {
     );
   });
 
+  it("coreLoss stays within 12 ulp for exponents 2000..8000, where a mantissa's power is squared back into range (see scaled.ts pow)", () => {
+    fc.assert(
+      fc.property(mag(), mag(3.3, 3.9), mag(3.3, 3.9), mag(-2, 2), mag(-2, 2), mag(), (k, a, b, f, B, V) =>
+        check("coreLoss (exponents 2000..8000)", lossRun(k, a, b, f, B, V), lossOracle(k, a, b, f, B, V), 12),
+      ),
+      { numRuns: 300 },
+    );
+    // Powers that alone leave the double range, so scaled.ts squares u^(y/2) or u^(y/4) back:
+    // 1.4^3000 = 1e438 and 1.2^7000 = 1e554 with k V = 1e-600; 0.8^6000 = 1e-581 with k V = 1e600.
+    for (const [f, a, k, V] of [[1.4, 3000, 1e-300, 1e-300], [1.2, 7000, 1e-300, 1e-300], [0.8, 6000, 1e300, 1e300]] as const) {
+      check("coreLoss (exponents 2000..8000)", lossRun(k, a, 1, f, 1, V), lossOracle(k, a, 1, f, 1, V), 12);
+    }
+  });
+
   it("coreLoss returns the representable product where B^beta alone underflows (the issue's reproducer)", () => {
     // B^beta = 1e-400 underflows; k = 1e200 brings the product back to 1e-200 W-scale values.
     check("coreLoss", lossRun(1e200, 1, 2, 1, 1e-200, 1), lossOracle(1e200, 1, 2, 1, 1e-200, 1), 4);
