@@ -117,7 +117,7 @@ export const coreLoss = /* @__PURE__ */ defineFormula({
       code: "unusual_exponents",
       when: (x) => x.frequencyExponent < 1 || x.frequencyExponent > 3 || x.fluxExponent < 1.5 || x.fluxExponent > 3.5,
       // How far outside its usual range the worse exponent lies, as a ratio (> 1 when warned).
-      measure: (x) => Math.max(1 / x.frequencyExponent, x.frequencyExponent / 3, 1.5 / x.fluxExponent, x.fluxExponent / 3.5),
+      measure: (x) => Math.max(ratio(1, x.frequencyExponent), x.frequencyExponent / 3, ratio(1.5, x.fluxExponent), x.fluxExponent / 3.5),
       message: "exponents outside the usual ranges (alpha 1 to 3, beta 1.5 to 3.5; common practice): check the coefficients' units (f in Hz, B in T, k in W/m^3)",
     },
   ],
