@@ -96,6 +96,15 @@ describe("coreLoss", () => {
     expect(hot[0]!.message).toMatch(/500 kW\/m\^3.*common practice.*Local codes, standards and licensed practice govern/);
   });
 
+  it("warns when an exponent is outside its usual range (alpha 1 to 3, beta 1.5 to 3.5; common practice), a sign of mixed units", () => {
+    const codes = (a: number, b: number) =>
+      coreLoss.details({ coefficient: 1.5, frequencyExponent: a, fluxExponent: b, frequency: Hz(1e3), peakFluxDensity: 0.1 as FluxDensity, volume: 5e-6 as Volume }).warnings.map((w) => w.code);
+    expect(codes(1, 1.5)).toEqual([]);
+    expect(codes(3, 3.5)).toEqual([]);
+    expect(codes(0.9, 2.5)).toEqual(["unusual_exponents"]);
+    expect(codes(1.4, 3.6)).toEqual(["unusual_exponents"]);
+  });
+
   it("prints a finite loss density in its caution even where the density itself overflows", () => {
     const d = coreLoss.details({ coefficient: 1e300, frequencyExponent: 1, fluxExponent: 2, frequency: Hz(1), peakFluxDensity: 1 as FluxDensity, volume: 1e-300 as Volume });
     expect(d.cautions[0]!.message).not.toMatch(/Infinity|NaN/);
