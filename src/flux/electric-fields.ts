@@ -1,10 +1,17 @@
 import { EPSILON0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { POSITIVE } from "../core/spec.js";
+import { quotient, tame } from "./scaled.js";
 import { BREAKDOWN_CAUTION, MEDIUM_PERMITTIVITY } from "./shared.js";
 
-const GRIFFITHS = { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed." } as const;
-const FOUR_PI_EPS0 = 4 * Math.PI * EPSILON0;
+const GRIFFITHS = { authors: "D. J. Griffiths", year: 2013, title: "Introduction to Electrodynamics, 4th ed. (Pearson; reissued by Cambridge University Press, 2017)" } as const;
+const FOUR_PI_EPS0 = 4 * Math.PI * EPSILON0; // one rounding (4 pi is exact in binary scaling)
+const TWO_PI_EPS0 = 2 * Math.PI * EPSILON0;
+
+/** Q / (4 pi eps0 epsr r^2): plain when all three are tame (r^2 never formed alone); scaled otherwise. */
+function coulomb(q: number, epsr: number, r: number): number {
+  return tame(q) && tame(epsr) && tame(r) ? q / (FOUR_PI_EPS0 * epsr * r * r) : quotient([q], [FOUR_PI_EPS0, epsr, r, r]);
+}
 
 /**
  * Electric field of a point charge (Coulomb's law).
@@ -12,7 +19,7 @@ const FOUR_PI_EPS0 = 4 * Math.PI * EPSILON0;
  * E = Q / (4 pi eps0 epsr r^2), with E in V/m (radial, positive pointing away from a
  * positive charge), Q in C, r in m, epsr the medium's relative permittivity.
  *
- * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), eq. (2.4) (from memory).
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013), eq. (2.4) (from memory).
  *
  * @example
  * pointChargeField({ charge: quantity(1, "nC"), distance: quantity(1, "m") }); // ≈ 8.99 V/m
@@ -31,8 +38,8 @@ export const pointChargeField = /* @__PURE__ */ defineFormula({
   output: { dimension: "ElectricField", description: "Radial electric field (positive outward)" },
   cautions: [BREAKDOWN_CAUTION],
   source: { ...GRIFFITHS, locator: "eq. (2.4) (from memory)" },
-  // Divide by r twice instead of squaring it: r^2 can overflow or underflow where E is finite.
-  compute: (x) => x.charge / (FOUR_PI_EPS0 * x.relativePermittivity) / x.distance / x.distance,
+  // r^2 can overflow or underflow where E is finite: see coulomb.
+  compute: (x) => coulomb(x.charge, x.relativePermittivity, x.distance),
 });
 
 /**
@@ -42,7 +49,9 @@ export const pointChargeField = /* @__PURE__ */ defineFormula({
  *
  * Validity: the line is straight and much longer than d.
  *
- * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), Example 2.6 (Gauss's law; from memory).
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013), sec. 2.2
+ * (the field of a line charge, by direct integration over a long line segment and
+ * by Gauss's law; section and examples from memory).
  *
  * @example
  * lineChargeField({ chargePerLength: quantity(1, "nC/m"), distance: quantity(10, "cm") }); // ≈ 180 V/m
@@ -60,8 +69,11 @@ export const lineChargeField = /* @__PURE__ */ defineFormula({
   ],
   output: { dimension: "ElectricField", description: "Radial electric field (positive outward)" },
   cautions: [BREAKDOWN_CAUTION],
-  source: { ...GRIFFITHS, locator: "Example 2.6 (from memory)" },
-  compute: (x) => x.chargePerLength / (2 * Math.PI * EPSILON0 * x.relativePermittivity) / x.distance,
+  source: { ...GRIFFITHS, locator: "sec. 2.2, field of a long line charge (Gauss's law; section from memory)" },
+  compute: (x) =>
+    tame(x.chargePerLength) && tame(x.relativePermittivity) && tame(x.distance)
+      ? x.chargePerLength / (TWO_PI_EPS0 * x.relativePermittivity * x.distance)
+      : quotient([x.chargePerLength], [TWO_PI_EPS0, x.relativePermittivity, x.distance]),
 });
 
 /**
@@ -71,7 +83,7 @@ export const lineChargeField = /* @__PURE__ */ defineFormula({
  * (at r = a, the field just outside the surface). E in V/m, Q in C, a and r in m,
  * epsr the permittivity of the medium around the sphere.
  *
- * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), sec. 2.5 (conductors; from memory).
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013), sec. 2.5 (conductors; from memory).
  *
  * @example
  * chargedSphereField({ charge: quantity(1, "nC"), radius: quantity(1, "cm"), distance: quantity(1, "m") }); // ≈ 8.99 V/m
@@ -91,6 +103,5 @@ export const chargedSphereField = /* @__PURE__ */ defineFormula({
   output: { dimension: "ElectricField", description: "Radial electric field (positive outward)" },
   cautions: [BREAKDOWN_CAUTION],
   source: { ...GRIFFITHS, locator: "sec. 2.5.1, field inside a conductor (from memory)" },
-  compute: (x) =>
-    x.distance < x.radius ? 0 : x.charge / (FOUR_PI_EPS0 * x.relativePermittivity) / x.distance / x.distance,
+  compute: (x) => (x.distance < x.radius ? 0 : coulomb(x.charge, x.relativePermittivity, x.distance)),
 });

@@ -1,21 +1,19 @@
 import { defineFormula } from "../core/formula.js";
+import { voltageCautions } from "../core/hazards.js";
 import { NON_NEGATIVE, POSITIVE, TURNS } from "../core/spec.js";
-import { ELV_AC_RMS} from "./shared.js";
+import { formatNumber } from "../core/format.js";
+import { quotient, tame } from "./scaled.js";
+import { ratio } from "./shared.js";
 
-const SQRT2_PI = Math.SQRT2 * Math.PI; // 4.4429, the "4.44" of the transformer equation
+/** sqrt(2) pi = 4.44288..., the "4.44" of the transformer equation (0.5 ulp: 4.442882938158366 is its nearest double). */
+const SQRT2_PI = 4.442882938158366;
+
+const GRIFFITHS = { authors: "D. J. Griffiths", year: 2013, title: "Introduction to Electrodynamics, 4th ed. (Pearson; reissued by Cambridge University Press, 2017)" } as const;
 
 const TRANSFORMER_SOURCE = [
   { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed.", locator: "Faraday's law, E = 4.44 B_ac f A_c N for a sine wave (chapter not checked; from memory)" },
-  { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "sec. 7.2.1, Faraday's law" },
+  { ...GRIFFITHS, locator: "sec. 7.2.1, Faraday's law (from memory)" },
 ] as const;
-
-const ELV_CAUTION = {
-  code: "high_voltage",
-  when: (_x: unknown, value: number | readonly number[]) => Math.abs(value as number) > ELV_AC_RMS,
-  message: (_x: unknown, value: number | readonly number[]) =>
-    `induced voltage ${Math.abs(value as number).toPrecision(3)} V exceeds the 50 V a.c. extra-low-voltage band (IEC 61140 / IEC 60449): ` +
-    "a shock hazard on open terminals. Local codes and licensed practice govern.",
-} as const;
 
 /**
  * Magnetic flux of a uniform field through a flat surface.
@@ -25,7 +23,7 @@ const ELV_CAUTION = {
  *
  * Validity: B uniform over the surface and the surface flat.
  *
- * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), sec. 7.1.3.
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013), sec. 7.1.3 (from memory).
  *
  * @example
  * magneticFlux({ fluxDensity: quantity(0.2, "T"), area: quantity(1, "cm^2") }); // ≈ 2e-5 Wb
@@ -42,9 +40,13 @@ export const magneticFlux = /* @__PURE__ */ defineFormula({
     { name: "angle", dimension: "Angle", description: "Angle between the field and the surface normal", default: 0, example: 0.5 },
   ],
   output: { dimension: "MagneticFlux", description: "Magnetic flux through the surface" },
-  source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "sec. 7.1.3 (flux through a loop; section from memory)" },
-  // A plain product; cos of an angle is exact enough (cos(pi/2) ~ 6e-17 is a representation limit of pi/2).
-  compute: (x) => x.fluxDensity * x.area * Math.cos(x.angle),
+  source: { ...GRIFFITHS, locator: "sec. 7.1.3 (flux through a loop; section from memory)" },
+  // cos of the angle as given (cos(pi/2) ~ 6e-17 is a representation limit of pi/2, not an error).
+  // The plain product rounds twice; scaled where it could overflow or underflow on the way.
+  compute: (x) => {
+    const c = Math.cos(x.angle);
+    return tame(x.fluxDensity) && tame(x.area) && tame(c) ? x.fluxDensity * x.area * c : quotient([x.fluxDensity, x.area, c]);
+  },
 });
 
 /**
@@ -53,8 +55,10 @@ export const magneticFlux = /* @__PURE__ */ defineFormula({
  * E = sqrt(2) * pi * f * N * A * B = 4.44 f N A B, with E the rms EMF in V, f in Hz,
  * N turns, A the core's effective cross-section in m^2, B the peak flux density in T.
  *
- * Validity: sinusoidal flux; all flux links every turn (leakage neglected).
- * For square-wave drive the factor is 4 instead of 4.44.
+ * Assumes a sinusoidal flux (form factor 1.11) and that all flux links every turn
+ * (leakage neglected); for square-wave drive the factor is 4 instead of 4.44.
+ * The result is an a.c. r.m.s. voltage: it is checked against the a.c. r.m.s.
+ * voltage bands (above 50 V: `above_extra_low_voltage`; above 1000 V: `high_voltage`).
  *
  * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004) (from memory).
  *
@@ -65,7 +69,9 @@ export const transformerEmf = /* @__PURE__ */ defineFormula({
   id: "transformerEmf",
   title: "Transformer EMF (rms) from peak flux density",
   category: "flux",
-  description: "RMS voltage induced in N turns by a sinusoidal flux of given peak density in a core of given area.",
+  description:
+    "RMS voltage induced in N turns by a sinusoidal flux of given peak density in a core of given area. " +
+    "Assumes a sinusoidal flux (form factor 1.11) linking every turn; for square-wave drive use 4 f N A B instead of 4.44 f N A B.",
   equation: "E_rms = sqrt(2) * pi * f * N * A * B_peak  (= 4.44 f N A B)",
   inputs: [
     { name: "frequency", dimension: "Frequency", description: "Frequency of the sinusoidal flux", domain: POSITIVE, example: 50 },
@@ -74,16 +80,14 @@ export const transformerEmf = /* @__PURE__ */ defineFormula({
     { name: "peakFluxDensity", dimension: "FluxDensity", description: "Peak flux density in the core", domain: NON_NEGATIVE, example: 1.2 },
   ],
   output: { dimension: "Voltage", description: "RMS induced voltage" },
-  validity: [
-    {
-      code: "sinusoidal_only",
-      when: () => true,
-      message: "assumes sinusoidal flux (form factor 1.11); for square-wave drive use 4 f N A B instead of 4.44 f N A B",
-    },
-  ],
-  cautions: [ELV_CAUTION],
+  // The result is r.m.s.: compared with the a.c. r.m.s. bands as it stands.
+  cautions: voltageCautions("ac"),
   source: TRANSFORMER_SOURCE,
-  compute: (x) => SQRT2_PI * x.frequency * x.turns * x.area * x.peakFluxDensity,
+  // Five positive factors: plain when all are tame (4 roundings), scaled otherwise.
+  compute: (x) =>
+    tame(x.frequency) && tame(x.turns) && tame(x.area) && tame(x.peakFluxDensity)
+      ? SQRT2_PI * x.frequency * x.turns * x.area * x.peakFluxDensity
+      : quotient([SQRT2_PI, x.frequency, x.turns, x.area, x.peakFluxDensity]),
 });
 
 /**
@@ -105,7 +109,9 @@ export const transformerPeakFluxDensity = /* @__PURE__ */ defineFormula({
   id: "transformerPeakFluxDensity",
   title: "Peak flux density from applied rms voltage",
   category: "flux",
-  description: "Peak flux density in a core whose winding carries a sinusoidal rms voltage (transformer equation solved for B).",
+  description:
+    "Peak flux density in a core whose winding carries a sinusoidal rms voltage (transformer equation solved for B). " +
+    "Assumes a sinusoidal voltage; for a square wave of the same rms use 4 f N A instead of 4.44 f N A.",
   equation: "B_peak = E_rms / (sqrt(2) * pi * f * N * A)",
   inputs: [
     { name: "voltage", dimension: "Voltage", description: "RMS voltage across the winding", domain: NON_NEGATIVE, example: 230 },
@@ -126,18 +132,18 @@ export const transformerPeakFluxDensity = /* @__PURE__ */ defineFormula({
     {
       code: "saturation",
       when: (x, b) => x.saturationFluxDensity > 0 && (b as number) >= x.saturationFluxDensity,
+      measure: (x, b) => ratio(b as number, x.saturationFluxDensity),
       message: (x, b) =>
-        `peak flux density ${(b as number).toPrecision(3)} T reaches the given saturation flux density ${x.saturationFluxDensity} T: ` +
+        `peak flux density ${formatNumber(b as number, 3)} T reaches the given saturation flux density ${formatNumber(x.saturationFluxDensity, 3)} T: ` +
         "the core saturates, magnetising current and core temperature rise steeply; add turns or core area",
-    },
-    {
-      code: "sinusoidal_only",
-      when: () => true,
-      message: "assumes a sinusoidal voltage; for a square wave of the same rms use 4 f N A instead of 4.44 f N A",
     },
   ],
   source: TRANSFORMER_SOURCE,
-  compute: (x) => x.voltage / (SQRT2_PI * x.frequency * x.turns * x.area),
+  // One quotient of five values: plain when all are tame, scaled otherwise.
+  compute: (x) =>
+    tame(x.voltage) && tame(x.frequency) && tame(x.turns) && tame(x.area)
+      ? x.voltage / (SQRT2_PI * x.frequency * x.turns * x.area)
+      : quotient([x.voltage], [SQRT2_PI, x.frequency, x.turns, x.area]),
 });
 
 /**
@@ -146,7 +152,11 @@ export const transformerPeakFluxDensity = /* @__PURE__ */ defineFormula({
  * E = B * l * v, with E in V, B in T, l the conductor length in m and v the
  * speed in m/s; B, the conductor and its velocity mutually perpendicular.
  *
- * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2017), sec. 7.1.3.
+ * The result is a steady (d.c.) voltage while the speed is steady: it is checked
+ * against the ripple-free d.c. bands (above 120 V: `above_extra_low_voltage`;
+ * above 1500 V: `high_voltage`).
+ *
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013), sec. 7.1.3 (from memory).
  *
  * @example
  * motionalEmf({ fluxDensity: quantity(0.5, "T"), length: quantity(0.2, "m"), speed: quantity(10, "m/s") }); // ≈ 1 V
@@ -163,7 +173,11 @@ export const motionalEmf = /* @__PURE__ */ defineFormula({
     { name: "speed", dimension: "Velocity", description: "Speed of the conductor across the field", example: 10 },
   ],
   output: { dimension: "Voltage", description: "Induced voltage" },
-  cautions: [{ ...ELV_CAUTION, message: (_x, v) => `induced voltage ${Math.abs(v as number).toPrecision(3)} V exceeds the 50 V extra-low-voltage band (IEC 61140 / IEC 60449): a shock hazard. Local codes and licensed practice govern.` }],
-  source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "sec. 7.1.3, motional emf (section from memory)" },
-  compute: (x) => x.fluxDensity * x.length * x.speed,
+  // A conductor moving at steady speed gives a d.c. voltage.
+  cautions: voltageCautions("dc"),
+  source: { ...GRIFFITHS, locator: "sec. 7.1.3, motional emf (section from memory)" },
+  compute: (x) =>
+    tame(x.fluxDensity) && tame(x.length) && tame(x.speed)
+      ? x.fluxDensity * x.length * x.speed
+      : quotient([x.fluxDensity, x.length, x.speed]),
 });

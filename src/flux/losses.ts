@@ -1,7 +1,17 @@
 import { EPSILON0, MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
-import { NON_NEGATIVE, POSITIVE } from "../core/spec.js";
-import { RELATIVE_PERMEABILITY } from "./shared.js";
+import { formatNumber } from "../core/format.js";
+import { GOVERN } from "../core/hazards.js";
+import { NON_NEGATIVE, POSITIVE, RELATIVE_PERMEABILITY } from "../core/spec.js";
+import { div, mul, pow, scaled, sqrt, tame, toNumber } from "./scaled.js";
+import { ratio } from "./shared.js";
+
+const PI_MU0 = Math.PI * MU0; // two roundings: within 1 ulp of pi mu0
+/** 100 omega eps0 per hertz: conduction current must exceed displacement current a hundredfold. */
+const GOOD_CONDUCTOR_PER_HZ = 100 * 2 * Math.PI * EPSILON0;
+/** Loss density above which a core runs hot, W/m^3 (500 mW/cm^3; common practice). */
+const HOT_CORE_DENSITY = 500e3;
+const ONE = { m: 1, e: 0 } as const;
 
 /**
  * Skin depth of a good conductor.
@@ -11,8 +21,12 @@ import { RELATIVE_PERMEABILITY } from "./shared.js";
  * equation that Faraday's and Ampere's laws give inside a conductor when conduction
  * current dominates displacement current.
  *
- * Validity: good conductor (sigma >> 2 pi f eps0; warning otherwise); plane surface,
- * or a conductor whose radius is several skin depths.
+ * Validity: good conductor (sigma >> 2 pi f eps0; warning below 100 times); plane surface,
+ * or a conductor whose radius is several skin depths. Any relative permeability
+ * above 0 is accepted (copper is diamagnetic, mur = 0.999994).
+ *
+ * Accuracy: within 3 ulp for every input whose result is a double (measured by
+ * tests/flux/extremes-accuracy.test.ts).
  *
  * Reference: J. D. Jackson, Classical Electrodynamics, 3rd ed. (1999), eq. (5.165)
  * (equation number from memory); copper conductivity 58.0 MS/m is the IEC 60028
@@ -30,14 +44,15 @@ export const skinDepth = /* @__PURE__ */ defineFormula({
   inputs: [
     { name: "conductivity", dimension: "Conductivity", description: "Electrical conductivity of the conductor (copper, IEC 60028: 58.0 MS/m)", domain: POSITIVE, example: 58e6 },
     { name: "frequency", dimension: "Frequency", description: "Frequency of the current or field", domain: POSITIVE, example: 100e3 },
-    { name: "relativePermeability", ...RELATIVE_PERMEABILITY, description: "Relative permeability of the conductor (1 for copper, aluminium)", example: 1 },
+    { name: "relativePermeability", ...RELATIVE_PERMEABILITY, description: "Relative permeability of the conductor (1 for copper and aluminium; copper is 0.999994)", example: 1 },
   ],
   output: { dimension: "Length", description: "Skin depth" },
   validity: [
     {
       code: "not_a_good_conductor",
       // Conduction current must dominate displacement current: sigma / (omega eps0) >> 1.
-      when: (x) => x.conductivity < 100 * 2 * Math.PI * x.frequency * EPSILON0,
+      when: (x) => x.conductivity < GOOD_CONDUCTOR_PER_HZ * x.frequency,
+      measure: (x) => ratio(GOOD_CONDUCTOR_PER_HZ * x.frequency, x.conductivity),
       message: "conductivity is below 100 times omega * eps0: displacement current is not negligible and the good-conductor skin depth no longer applies",
     },
   ],
@@ -45,8 +60,13 @@ export const skinDepth = /* @__PURE__ */ defineFormula({
     { authors: "J. D. Jackson", year: 1999, title: "Classical Electrodynamics, 3rd ed.", locator: "sec. 5.18, eq. (5.165) (from memory)" },
     { authors: "IEC", year: 1925, title: "IEC 60028: International standard of resistance for copper", locator: "annealed copper 58.0 MS/m at 20 degC (year from memory)" },
   ],
-  // Product of positive factors then one sqrt: no cancellation; written as 1/sqrt to keep one rounding.
-  compute: (x) => 1 / Math.sqrt(Math.PI * x.frequency * MU0 * x.relativePermeability * x.conductivity),
+  // Product of positive factors then one sqrt: no cancellation. Plain when every factor is tame;
+  // otherwise the product is held as mantissa and exponent (1e20 S/m at 1e300 Hz gives 5e-168 m,
+  // although the product itself overflows).
+  compute: (x) =>
+    tame(x.frequency) && tame(x.relativePermeability) && tame(x.conductivity)
+      ? 1 / Math.sqrt(PI_MU0 * x.frequency * x.relativePermeability * x.conductivity)
+      : toNumber(div(ONE, sqrt(mul(mul(scaled(PI_MU0), scaled(x.frequency)), mul(scaled(x.relativePermeability), scaled(x.conductivity)))))),
 });
 
 /**
@@ -57,8 +77,15 @@ export const skinDepth = /* @__PURE__ */ defineFormula({
  * k is a plain number in the units those fix: W/m^3 when f is in Hz and B in T
  * (convert datasheet fits made in kHz, mT or mW/cm^3 before use).
  *
- * Validity: sinusoidal flux and only within the frequency and flux range the
- * coefficients were fitted over (always noted); DC bias and temperature change the loss.
+ * Assumptions (stated in the description, not warned on every call): sinusoidal
+ * flux, and only within the frequency and flux range the coefficients were fitted
+ * over; DC bias and temperature change the loss. Warns when the exponents are
+ * outside their usual ranges (a sign of a unit mix-up).
+ *
+ * Accuracy: within 4 ulp for every input whose result is a double, including those
+ * where f^alpha or B^beta alone overflows or underflows, for exponents up to 2000
+ * (measured by tests/flux/extremes-accuracy.test.ts); within 12 ulp for exponents up
+ * to 8000, and about |exponent| / 500 ulp beyond (no fitted material comes near).
  *
  * Reference: C. P. Steinmetz, "On the law of hysteresis", Trans. AIEE 9 (1892) 3-64
  * (B^1.6 law); the frequency-exponent form as used in C. W. T. McLyman, Transformer
@@ -71,7 +98,10 @@ export const coreLoss = /* @__PURE__ */ defineFormula({
   id: "coreLoss",
   title: "Core loss (Steinmetz equation)",
   category: "flux",
-  description: "Power lost in a magnetic core under sinusoidal excitation, from the material's Steinmetz coefficients.",
+  description:
+    "Power lost in a magnetic core under sinusoidal excitation, from the material's Steinmetz coefficients. " +
+    "Holds for sinusoidal excitation within the frequency and flux-density range the coefficients were fitted over; " +
+    "other waveforms, DC bias and temperature change the loss.",
   equation: "P = k * f^alpha * B^beta * V  (k in W/m^3 with f in Hz, B in T)",
   inputs: [
     { name: "coefficient", dimension: "Dimensionless", description: "Steinmetz coefficient k, in W/m^3 for f in Hz and B in T", domain: POSITIVE, example: 1.5 },
@@ -84,13 +114,10 @@ export const coreLoss = /* @__PURE__ */ defineFormula({
   output: { dimension: "Power", description: "Core loss" },
   validity: [
     {
-      code: "fitted_range",
-      when: () => true,
-      message: "the Steinmetz equation holds for sinusoidal excitation within the frequency and flux-density range the coefficients were fitted over; other waveforms, DC bias and temperature change the loss",
-    },
-    {
       code: "unusual_exponents",
       when: (x) => x.frequencyExponent < 1 || x.frequencyExponent > 3 || x.fluxExponent < 1.5 || x.fluxExponent > 3.5,
+      // How far outside its usual range the worse exponent lies, as a ratio (> 1 when warned).
+      measure: (x) => Math.max(ratio(1, x.frequencyExponent), x.frequencyExponent / 3, ratio(1.5, x.fluxExponent), x.fluxExponent / 3.5),
       message: "exponents outside the usual ranges (alpha 1 to 3, beta 1.5 to 3.5; common practice): check the coefficients' units (f in Hz, B in T, k in W/m^3)",
     },
   ],
@@ -98,16 +125,28 @@ export const coreLoss = /* @__PURE__ */ defineFormula({
     {
       code: "hot_core",
       // ~100-300 kW/m^3 (100-300 mW/cm^3) is a usual ferrite design range for a ~40 K rise (common practice).
-      when: (x, p) => (p as number) / x.volume > 500e3,
+      when: (x, p) => ratio(p as number, x.volume) > HOT_CORE_DENSITY,
+      measure: (x, p) => ratio(p as number, x.volume),
       message: (x, p) =>
-        `loss density ${(((p as number) / x.volume) / 1e3).toPrecision(3)} kW/m^3 (mW/cm^3) is above about 500: the core will run hot ` +
-        "(burn risk, ferrite losses rise again above their minimum temperature, possible thermal runaway); check the temperature rise",
+        `loss density ${formatNumber(ratio(p as number, x.volume) / 1e3, 3)} kW/m^3 (mW/cm^3) is above about 500 kW/m^3, where a core in still air ` +
+        "runs well beyond a 40 K rise (common practice): burn risk, ferrite losses rise again above their minimum temperature, possible thermal runaway; " +
+        `check the temperature rise. ${GOVERN}`,
     },
   ],
   source: [
     { authors: "C. P. Steinmetz", year: 1892, title: "On the law of hysteresis, Trans. AIEE 9, 3-64" },
     { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed.", locator: "core loss (chapter not checked; from memory)" },
   ],
-  // Powers through exp/log would lose nothing here; Math.pow is exact to an ulp for positive bases.
-  compute: (x) => x.coefficient * Math.pow(x.frequency, x.frequencyExponent) * Math.pow(x.peakFluxDensity, x.fluxExponent) * x.volume,
+  // Math.pow is within an ulp for positive bases. Plain when both powers and the other factors are
+  // tame; otherwise each power is held as mantissa and exponent (see scaled.ts `pow`), so a
+  // B^beta that alone underflows still gives its representable product.
+  compute: (x) => {
+    if (x.peakFluxDensity === 0) return 0;
+    const fa = Math.pow(x.frequency, x.frequencyExponent);
+    const bb = Math.pow(x.peakFluxDensity, x.fluxExponent);
+    // fa, bb > 0 excludes a power that underflowed to zero (tame counts an exact zero as tame).
+    if (tame(x.coefficient) && fa > 0 && tame(fa) && bb > 0 && tame(bb) && tame(x.volume)) return x.coefficient * fa * bb * x.volume;
+    const p = mul(mul(scaled(x.coefficient), pow(x.frequency, x.frequencyExponent)), mul(pow(x.peakFluxDensity, x.fluxExponent), scaled(x.volume)));
+    return toNumber(p);
+  },
 });

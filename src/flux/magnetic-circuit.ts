@@ -1,9 +1,12 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
-import { AT_LEAST_ONE, NON_NEGATIVE, POSITIVE, TURNS } from "../core/spec.js";
-import { RELATIVE_PERMEABILITY} from "./shared.js";
+import { formatNumber } from "../core/format.js";
+import { AT_LEAST_ONE, NON_NEGATIVE, POSITIVE, RELATIVE_PERMEABILITY, TURNS } from "../core/spec.js";
+import { add, div, mul, product, quotient, scaled, sqrt, tame, toNumber, type Scaled } from "./scaled.js";
+import { logOfRatio, ratio } from "./shared.js";
 
 const MCLYMAN = { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed." } as const;
+const CORE_PERMEABILITY = { ...RELATIVE_PERMEABILITY, description: "Relative permeability of the core material (1 for air)" } as const;
 const IEC_60205 = {
   authors: "IEC",
   year: 2016,
@@ -21,11 +24,39 @@ function fringingMatters(gap: number, area: number): boolean {
 }
 const FRINGING_WARNING = {
   code: "fringing",
-  when: (x: { gapLength: number; area: number }) => fringingMatters(x.gapLength, x.area),
-  message: (x: { gapLength: number; area: number }) =>
-    `the gap is ${((100 * x.gapLength) / Math.sqrt(x.area)).toPrecision(2)} % of the core's width (sqrt of its area); fringing flux ` +
+  when: (x: { readonly gapLength: number; readonly area: number }) => fringingMatters(x.gapLength, x.area),
+  // gap / width: past the threshold above 0.01.
+  measure: (x: { readonly gapLength: number; readonly area: number }) => ratio(x.gapLength, Math.sqrt(x.area)),
+  message: (x: { readonly gapLength: number; readonly area: number }) =>
+    // sqrt(area) / 100 is at least 2e-164: never zero.
+    `the gap is ${formatNumber(ratio(x.gapLength, Math.sqrt(x.area) / 100), 2)} % of the core's width (sqrt of its area); fringing flux ` +
     "around a gap longer than about 1 % of the width raises the inductance by roughly 5 % or more, which this result neglects: apply gapFringingFactor",
 };
+
+/**
+ * The magnetic-circuit formulas that assume a core guide the flux along its path;
+ * a relative permeability below 1 (a diamagnetic material) is no magnetic core.
+ * The result then holds only for an evenly wound toroid, where the winding itself
+ * confines the flux.
+ */
+const NOT_A_CORE_WARNING = {
+  code: "not_a_magnetic_core",
+  when: (x: { readonly relativePermeability: number }) => x.relativePermeability < 1,
+  measure: (x: { readonly relativePermeability: number }) => ratio(1, x.relativePermeability),
+  message: (x: { readonly relativePermeability: number }) =>
+    `relative permeability ${formatNumber(x.relativePermeability, 6)} is below 1 (diamagnetic): such a material does not guide flux along a core path, ` +
+    "so this magnetic-circuit result holds only for an evenly wound toroid",
+};
+
+/**
+ * g + l / mur as mantissa and exponent: l / mur can overflow or underflow where
+ * the inductance or flux density it divides is still a double. One rounding in
+ * the quotient, one in the sum (positive terms: no cancellation).
+ */
+function gapPlusCore(g: number, l: number, mur: number): Scaled {
+  const q = div(scaled(l), scaled(mur));
+  return g === 0 ? q : add(scaled(g), q);
+}
 
 /**
  * Reluctance of a uniform section of a magnetic circuit.
@@ -34,6 +65,9 @@ const FRINGING_WARNING = {
  * A the cross-section in m^2, mur the relative permeability, mu0 in H/m (CODATA 2022).
  *
  * Validity: uniform flux over the cross-section, linear (unsaturated) material.
+ *
+ * Accuracy: within 3 ulp for every input whose result is a double (measured by
+ * tests/flux/extremes-accuracy.test.ts; within 4 ulp for every formula in this file).
  *
  * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), magnetic circuits (from memory).
  *
@@ -49,11 +83,14 @@ export const reluctance = /* @__PURE__ */ defineFormula({
   inputs: [
     { name: "length", dimension: "Length", description: "Length of the section along the flux", domain: POSITIVE, example: 0.1 },
     { name: "area", dimension: "Area", description: "Cross-section of the section", domain: POSITIVE, example: 1e-4 },
-    { name: "relativePermeability", ...RELATIVE_PERMEABILITY },
+    { name: "relativePermeability", ...RELATIVE_PERMEABILITY, description: "Relative permeability of the section's material (1 for air)" },
   ],
   output: { dimension: "Reluctance", description: "Reluctance (ampere-turns per weber)" },
   source: { ...MCLYMAN, locator: "magnetic circuits, reluctance (chapter not checked; from memory)" },
-  compute: (x) => x.length / (MU0 * x.relativePermeability * x.area),
+  compute: (x) =>
+    tame(x.length) && tame(x.relativePermeability) && tame(x.area)
+      ? x.length / (MU0 * x.relativePermeability * x.area)
+      : quotient([x.length], [MU0, x.relativePermeability, x.area]),
 });
 
 /**
@@ -64,9 +101,10 @@ export const reluctance = /* @__PURE__ */ defineFormula({
  * core's relative permeability and F the fringing factor (1 = none).
  *
  * Validity: linear core below saturation; the gap has the core's area (fringing
- * neglected unless F is given; warning when g > 1 % of sqrt(A)); leakage neglected.
+ * neglected unless F is given; warning when g > 1 % of sqrt(A)); leakage neglected;
+ * warning below mur = 1, where the material does not guide the flux.
  *
- * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 8 (gapped inductors).
+ * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 8 (gapped inductors; chapter from memory).
  *
  * @example
  * gappedCoreInductance({ turns: 20, pathLength: quantity(100, "mm"), area: quantity(1, "cm^2"), relativePermeability: 2000, gapLength: quantity(0.5, "mm") }); // ≈ 91.4 uH
@@ -81,7 +119,7 @@ export const gappedCoreInductance = /* @__PURE__ */ defineFormula({
     { name: "turns", ...TURNS },
     { name: "pathLength", ...PATH_LENGTH },
     { name: "area", ...CORE_AREA },
-    { name: "relativePermeability", ...RELATIVE_PERMEABILITY },
+    { name: "relativePermeability", ...CORE_PERMEABILITY },
     { name: "gapLength", ...GAP_LENGTH },
     {
       name: "fringingFactor",
@@ -93,10 +131,14 @@ export const gappedCoreInductance = /* @__PURE__ */ defineFormula({
     },
   ],
   output: { dimension: "Inductance", description: "Inductance of the winding" },
-  validity: [{ ...FRINGING_WARNING, when: (x) => x.fringingFactor === 1 && fringingMatters(x.gapLength, x.area) }],
+  validity: [{ ...FRINGING_WARNING, when: (x) => x.fringingFactor === 1 && fringingMatters(x.gapLength, x.area) }, NOT_A_CORE_WARNING],
   source: { ...MCLYMAN, locator: "ch. 8 (from memory), inductance of a gapped core, L = 0.4 pi N^2 A_c 1e-8 / (l_g + MPL / mu_m) in cgs units" },
-  // l / mur goes smoothly to 0 as mur grows: no 1 - 1/mur style cancellation.
-  compute: (x) => (x.fringingFactor * MU0 * x.turns * x.turns * x.area) / (x.gapLength + x.pathLength / x.relativePermeability),
+  // l / mur goes smoothly to 0 as mur grows: no 1 - 1/mur style cancellation. Plain when every
+  // input is tame; otherwise scaled (N^2 and l / mur can leave the double range on their own).
+  compute: (x) =>
+    tame(x.fringingFactor) && tame(x.turns) && tame(x.area) && tame(x.gapLength) && tame(x.pathLength) && tame(x.relativePermeability)
+      ? (x.fringingFactor * MU0 * x.turns * x.turns * x.area) / (x.gapLength + x.pathLength / x.relativePermeability)
+      : toNumber(div(product(x.fringingFactor, MU0, x.turns, x.turns, x.area), gapPlusCore(x.gapLength, x.pathLength, x.relativePermeability))),
 });
 
 /**
@@ -109,7 +151,9 @@ export const gappedCoreInductance = /* @__PURE__ */ defineFormula({
  *
  * Optional saturationFluxDensity (T): when given (> 0) a warning is raised if |B| exceeds it.
  *
- * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 8.
+ * Warning below mur = 1, where the material does not guide the flux.
+ *
+ * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 8 (from memory).
  *
  * @example
  * coreFluxDensity({ turns: 20, current: quantity(10, "A"), pathLength: quantity(100, "mm"), area: quantity(1, "cm^2"), relativePermeability: 2000, gapLength: quantity(0.5, "mm") }); // ≈ 0.457 T
@@ -125,7 +169,7 @@ export const coreFluxDensity = /* @__PURE__ */ defineFormula({
     { name: "current", dimension: "Current", description: "Winding current (peak, for the peak flux density)", example: 10 },
     { name: "pathLength", ...PATH_LENGTH },
     { name: "area", ...CORE_AREA },
-    { name: "relativePermeability", ...RELATIVE_PERMEABILITY },
+    { name: "relativePermeability", ...CORE_PERMEABILITY },
     { name: "gapLength", ...GAP_LENGTH },
     {
       name: "saturationFluxDensity",
@@ -141,14 +185,23 @@ export const coreFluxDensity = /* @__PURE__ */ defineFormula({
     {
       code: "saturation",
       when: (x, b) => x.saturationFluxDensity > 0 && Math.abs(b as number) >= x.saturationFluxDensity,
+      measure: (x, b) => ratio(Math.abs(b as number), x.saturationFluxDensity),
       message: (x, b) =>
-        `flux density ${Math.abs(b as number).toPrecision(3)} T reaches the given saturation flux density ${x.saturationFluxDensity} T: ` +
+        `flux density ${formatNumber(Math.abs(b as number), 3)} T reaches the given saturation flux density ${formatNumber(x.saturationFluxDensity, 3)} T: ` +
         "permeability collapses and the current rises steeply; enlarge the gap, the area or reduce the turns",
     },
     FRINGING_WARNING,
+    NOT_A_CORE_WARNING,
   ],
   source: { ...MCLYMAN, locator: "ch. 8 (from memory), B = 0.4 pi N I 1e-4 / (l_g + MPL / mu_m) in cgs units" },
-  compute: (x) => (MU0 * x.turns * x.current) / (x.gapLength + x.pathLength / x.relativePermeability),
+  compute: (x) => {
+    if (tame(x.turns) && tame(x.current) && tame(x.gapLength) && tame(x.pathLength) && tame(x.relativePermeability)) {
+      return (MU0 * x.turns * x.current) / (x.gapLength + x.pathLength / x.relativePermeability);
+    }
+    if (x.current === 0) return 0;
+    const b = div(product(MU0, x.turns, Math.abs(x.current)), gapPlusCore(x.gapLength, x.pathLength, x.relativePermeability));
+    return toNumber(b, Math.sign(x.current));
+  },
 });
 
 /**
@@ -162,7 +215,7 @@ export const coreFluxDensity = /* @__PURE__ */ defineFormula({
  * Warning when g > 10 % of sqrt(A) or F > 1.5, where it should be checked by measurement
  * or a field solution (common practice).
  *
- * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 8, "Fringing Flux".
+ * Reference: C. W. T. McLyman, Transformer and Inductor Design Handbook, 3rd ed. (2004), ch. 8, "Fringing Flux" (chapter from memory).
  *
  * @example
  * gapFringingFactor({ gapLength: quantity(0.5, "mm"), area: quantity(1, "cm^2"), windowLength: quantity(20, "mm") }); // ≈ 1.22
@@ -184,14 +237,27 @@ export const gapFringingFactor = /* @__PURE__ */ defineFormula({
     {
       code: "large_gap",
       when: (x, f) => x.gapLength > 0.1 * Math.sqrt(x.area) || (f as number) > 1.5,
+      // The worse of the two ratios to their thresholds (> 1 when warned).
+      measure: (x, f) => Math.max(ratio(x.gapLength, 0.1 * Math.sqrt(x.area)), (f as number) / 1.5),
       message: (_x, f) =>
-        `fringing factor ${(f as number).toPrecision(3)} with a gap above 10 % of the pole width or F above 1.5: ` +
+        `fringing factor ${formatNumber(f as number, 3)} with a gap above 10 % of the pole width or F above 1.5: ` +
         "the empirical correction is rough here; check by measurement or a field solution (common practice)",
     },
   ],
   source: { ...MCLYMAN, locator: "ch. 8 (from memory), Fringing Flux: F = 1 + (l_g / sqrt(A_c)) ln(2G / l_g)" },
-  // ln(2G/g) is well conditioned for g < 2G (the relation); the product is a small positive addend.
-  compute: (x) => 1 + (x.gapLength / Math.sqrt(x.area)) * Math.log((2 * x.windowLength) / x.gapLength),
+  // ln(2G/g) from the exact difference near g = 2G (logOfRatio); the product is a positive addend,
+  // scaled where g / sqrt(A) alone would overflow or underflow.
+  compute: (x) => {
+    const g = x.gapLength;
+    const G = x.windowLength;
+    // 2G overflows only for G above half the largest double; then ln(G / (g/2)), with g/2 exact for
+    // g >= 2^-1021, or ln(G/g) + ln 2 where G/g is astronomically large (no cancellation).
+    const ln = 2 * G <= Number.MAX_VALUE ? logOfRatio(2 * G, g) : g >= 2 ** -1021 ? logOfRatio(G, g / 2) : logOfRatio(G, g) + Math.LN2;
+    if (tame(g) && tame(x.area)) return 1 + (g / Math.sqrt(x.area)) * ln;
+    const addend = div(mul(scaled(g), scaled(ln)), sqrt(scaled(x.area)));
+    // Below 2^-60 the addend cannot move 1 (it may even underflow the doubles): F is 1.
+    return addend.e < -60 ? 1 : 1 + toNumber(addend);
+  },
 });
 
 /**
@@ -200,7 +266,9 @@ export const gapFringingFactor = /* @__PURE__ */ defineFormula({
  * A_L = mu0 * A_e / (g + l_e / mur), in H per turn squared (datasheets quote nH),
  * with A_e, l_e the IEC 60205 effective area (m^2) and length (m), g the gap in m.
  *
- * Reference: IEC 60205 (effective parameters); C. W. T. McLyman (2004), ch. 8.
+ * Warning below mur = 1, where the material does not guide the flux.
+ *
+ * Reference: IEC 60205 (effective parameters); C. W. T. McLyman (2004), ch. 8 (from memory).
  *
  * @example
  * inductanceFactor({ pathLength: quantity(100, "mm"), area: quantity(1, "cm^2"), relativePermeability: 2000, gapLength: quantity(0.5, "mm") }); // ≈ 228.5 nH
@@ -214,13 +282,16 @@ export const inductanceFactor = /* @__PURE__ */ defineFormula({
   inputs: [
     { name: "pathLength", ...PATH_LENGTH },
     { name: "area", ...CORE_AREA },
-    { name: "relativePermeability", ...RELATIVE_PERMEABILITY },
+    { name: "relativePermeability", ...CORE_PERMEABILITY },
     { name: "gapLength", ...GAP_LENGTH },
   ],
   output: { dimension: "Inductance", description: "Inductance factor A_L (H per turn squared)" },
-  validity: [FRINGING_WARNING],
+  validity: [FRINGING_WARNING, NOT_A_CORE_WARNING],
   source: [IEC_60205, { ...MCLYMAN, locator: "ch. 8 (from memory)" }],
-  compute: (x) => (MU0 * x.area) / (x.gapLength + x.pathLength / x.relativePermeability),
+  compute: (x) =>
+    tame(x.area) && tame(x.gapLength) && tame(x.pathLength) && tame(x.relativePermeability)
+      ? (MU0 * x.area) / (x.gapLength + x.pathLength / x.relativePermeability)
+      : toNumber(div(product(MU0, x.area), gapPlusCore(x.gapLength, x.pathLength, x.relativePermeability))),
 });
 
 /**
@@ -230,7 +301,7 @@ export const inductanceFactor = /* @__PURE__ */ defineFormula({
  *
  * Validity: A_L is quoted at low flux density; it falls as the core nears saturation.
  *
- * Reference: IEC 60205; C. W. T. McLyman (2004), ch. 8.
+ * Reference: IEC 60205; C. W. T. McLyman (2004), ch. 8 (from memory).
  *
  * @example
  * inductanceFromFactor({ inductanceFactor: quantity(250, "nH"), turns: 20 }); // ≈ 100 uH
@@ -247,5 +318,6 @@ export const inductanceFromFactor = /* @__PURE__ */ defineFormula({
   ],
   output: { dimension: "Inductance", description: "Inductance of the winding" },
   source: [IEC_60205, { ...MCLYMAN, locator: "ch. 8 (from memory)" }],
-  compute: (x) => x.inductanceFactor * x.turns * x.turns,
+  compute: (x) =>
+    tame(x.inductanceFactor) && tame(x.turns) ? x.inductanceFactor * x.turns * x.turns : quotient([x.inductanceFactor, x.turns, x.turns]),
 });

@@ -1,13 +1,6 @@
+import { formatNumber } from "../core/format.js";
+import { GOVERN, magnitude } from "../core/hazards.js";
 import { AT_LEAST_ONE } from "../core/spec.js";
-
-/** Relative permeability of a core material (1 for air and vacuum). */
-export const RELATIVE_PERMEABILITY = {
-  dimension: "Dimensionless",
-  description: "Relative permeability of the core material (1 for air)",
-  default: 1,
-  domain: AT_LEAST_ONE,
-  example: 2000,
-} as const;
 
 /** Relative permittivity of the medium around charges (1 for vacuum). */
 export const MEDIUM_PERMITTIVITY = {
@@ -18,51 +11,39 @@ export const MEDIUM_PERMITTIVITY = {
   example: 1,
 } as const;
 
-
 /**
- * Flux density above which implanted medical devices (pacemakers, defibrillators)
- * may be affected: the commonly cited 0.5 mT (5 G) line. ICNIRP, "Guidelines on
- * limits of exposure to static magnetic fields", Health Physics 96 (2009) 504-514,
- * notes interference with implanted devices below the general limits; device
- * makers' guidance uses 0.5 mT. Treated here as common practice.
+ * Dielectric strength of dry air at sea level in a uniform field, about 3 MV/m
+ * (common practice; the figure quoted for centimetre gaps at 1 atm).
  */
-export const IMPLANT_FIELD_LIMIT = 0.5e-3;
-
-/** The strong-field caution shared by field-source formulas (value = |B| or components). */
-export const IMPLANT_CAUTION = {
-  code: "strong_field",
-  when: (_x: unknown, value: number | readonly number[]): boolean => magnitude(value) >= IMPLANT_FIELD_LIMIT,
-  message: (_x: unknown, value: number | readonly number[]): string =>
-    `flux density ${(magnitude(value) * 1e3).toPrecision(3)} mT is at or above the 0.5 mT (5 G) line commonly cited ` +
-    "for pacemakers and other implanted medical devices (ICNIRP 2009 static-field guidance, device makers' guidance; common practice): " +
-    "mark and restrict the area; above a few mT loose iron parts can also be pulled in. Local codes and licensed practice govern.",
-} as const;
-
-/**
- * Extra-low-voltage line: 50 V a.c. rms (120 V ripple-free d.c.), the upper
- * bound of voltage band I in IEC 60449 / IEC 61140 (from memory).
- */
-export const ELV_AC_RMS = 50;
-
-/** Dielectric strength of dry air at sea level for uniform fields, about 3 MV/m (common practice). */
 export const AIR_BREAKDOWN_FIELD = 3e6;
 
-/** Caution for electric fields beyond the breakdown strength of air. */
+/** Caution for electric fields at or beyond the breakdown strength of air; measure: |E| in V/m. */
 export const BREAKDOWN_CAUTION = {
   code: "air_breakdown",
   when: (_x: unknown, value: number | readonly number[]): boolean => magnitude(value) >= AIR_BREAKDOWN_FIELD,
+  measure: (_x: unknown, value: number | readonly number[]): number => magnitude(value),
   message: (_x: unknown, value: number | readonly number[]): string =>
-    `field ${(magnitude(value) / 1e6).toPrecision(3)} MV/m reaches the ~3 MV/m breakdown strength of dry air (common practice): ` +
-    "expect corona or arcing in air, and treat the source as high voltage. Local codes and licensed practice govern.",
+    `field ${formatNumber(magnitude(value), 3)} V/m reaches the ~3 MV/m breakdown strength of dry air at sea level (uniform field; common practice): ` +
+    `expect corona or arcing in air, and treat the source as high voltage. ${GOVERN}`,
 } as const;
 
-/** |value| of a scalar, or the Euclidean norm of components. */
-export function magnitude(value: number | readonly number[]): number {
-  if (typeof value === "number") return Math.abs(value);
-  let s = 0;
-  let big = 0;
-  for (const v of value) big = Math.max(big, Math.abs(v));
-  if (big === 0) return 0;
-  for (const v of value) s += (v / big) * (v / big);
-  return big * Math.sqrt(s);
+/**
+ * a / b for positive a, b, limited to the largest double: a condition's
+ * measure ("how far past the threshold") must stay finite for bulk tools to
+ * compare points, also where the ratio itself would overflow.
+ */
+export function ratio(a: number, b: number): number {
+  return Math.min(a / b, Number.MAX_VALUE);
+}
+
+/**
+ * ln(b / a) for 0 < a < b (both finite), to a few ulp. Near one (b <= 2a) the
+ * difference b - a is exact (Sterbenz), so log1p((b - a) / a) keeps the digits
+ * that forming b / a first would round away; where b / a overflows, ln b - ln a
+ * has no cancellation (the difference exceeds 700).
+ */
+export function logOfRatio(b: number, a: number): number {
+  if (b <= 2 * a) return Math.log1p((b - a) / a);
+  const r = b / a;
+  return r <= Number.MAX_VALUE ? Math.log(r) : Math.log(b) - Math.log(a);
 }

@@ -35,6 +35,17 @@ describe("pointChargeField", () => {
     expect(d.cautions.map((c) => c.code)).toContain("air_breakdown");
     expect(pointChargeField.details({ charge: C(1e-9), distance: m(1) }).cautions).toHaveLength(0);
   });
+
+  it("cautions from 3 MV/m (dry air at sea level, common practice), in either sign, with a finite message at the largest fields", () => {
+    // 1/(4 pi eps0) = 8.9875517862e9 V m/C (CODATA 2022): 3.3e-4 C at 1 m gives 2.97 MV/m, 3.4e-4 C gives 3.06 MV/m.
+    expect(pointChargeField.details({ charge: C(3.3e-4), distance: m(1) }).cautions).toEqual([]);
+    const c = pointChargeField.details({ charge: C(-3.4e-4), distance: m(1) }).cautions;
+    expect(c.map((n) => n.code)).toEqual(["air_breakdown"]);
+    expect(c[0]!.message).toMatch(/3 MV\/m.*Local codes, standards and licensed practice govern/);
+    const huge = pointChargeField.details({ charge: C(1e-12), distance: m(1e-155) }); // 9e307 V/m
+    expect(huge.value).toBeGreaterThan(1e300);
+    expect(huge.cautions[0]!.message).not.toMatch(/Infinity|NaN/);
+  });
 });
 
 describe("lineChargeField", () => {

@@ -28,18 +28,30 @@ describe("wireField", () => {
     );
   });
 
-  it("cautions about implanted medical devices at 0.5 mT and above", () => {
-    const strong = wireField.details({ current: A(2600), distance: m(1) }); // 0.52 mT
-    expect(strong.cautions.map((c) => c.code)).toContain("strong_field");
-    expect(wireField.details({ current: A(1), distance: m(1) }).cautions).toHaveLength(0);
+  it("cautions from the ICNIRP 2010 public reference level, 200 uT, and names the 0.5 mT implant line for static fields", () => {
+    // ICNIRP 2010 (1 Hz-100 kHz) public reference level at 50-60 Hz: 200 uT; ICNIRP 2009 static: 0.5 mT for implants (from memory).
+    // mu0 / (2 pi) is 1.99999999974e-7 T m/A (CODATA 2022), so 1000 A at 1 m is just under 200 uT.
+    expect(wireField.details({ current: A(999), distance: m(1) }).cautions).toEqual([]);
+    const above = wireField.details({ current: A(1001), distance: m(1) }).cautions;
+    expect(above.map((c) => c.code)).toEqual(["strong_field"]);
+    expect(above[0]!.message).toMatch(/200 uT.*below the 0\.5 mT line/);
+    const implant = wireField.details({ current: A(-2600), distance: m(1) }).cautions[0]!.message; // 0.52 mT, either direction
+    expect(implant).toMatch(/at or above the 0\.5 mT \(5 G\) line/);
+  });
+
+  it("prints no Infinity or NaN in its caution for the largest fields (9e300 T at 2.2e-308 m)", () => {
+    const d = wireField.details({ current: A(10), distance: m(2.2e-308) });
+    expect(d.value).toBeGreaterThan(9e300);
+    expect(d.cautions[0]!.message).not.toMatch(/Infinity|NaN/);
+    expect(d.cautions[0]!.message).toMatch(/ T:/);
   });
 });
 
 describe("loopAxialField", () => {
   it("gives mu0 I / (2 R) at the centre of the loop", () => {
-    // Griffiths, Introduction to Electrodynamics 4th ed., Example 5.6 at z = 0 (from memory).
+    // The on-axis formula mu0 I R^2 / (2 (R^2 + z^2)^(3/2)) at z = 0.
     expectClose(loopAxialField({ current: A(1), radius: m(0.1), axialDistance: m(0) }), {
-      input: "1 A, R = 0.1 m", expected: MU0.div(0.2).toNumber(), tolerance: 1e-15, source: "mu0 I / (2R), decimal.js",
+      input: "1 A, R = 0.1 m", expected: MU0.div(0.2).toNumber(), tolerance: 1e-15, source: "decimal.js oracle of mu0 I / (2R), the on-axis formula at z = 0",
     });
   });
 
@@ -112,7 +124,7 @@ describe("loopField", () => {
   });
 
   it("approaches the dipole field far away", () => {
-    // Dipole m = I pi R^2: B_z = mu0 m (3 cos^2 - 1) / (4 pi r^3) (Griffiths eq. 5.89, from memory).
+    // Dipole m = I pi R^2: B_z = mu0 m (3 cos^2 - 1) / (4 pi r^3), the far field of a current loop (from memory).
     const R = 0.01, rho = 30, z = 40, r = 50;
     const [, bz] = loopField({ current: A(1), radius: m(R), radialDistance: m(rho), axialDistance: m(z) });
     const cos = z / r;
@@ -174,9 +186,9 @@ describe("solenoidAxialField", () => {
   });
 
   it("tends to mu0 N I / l at the centre of a long coil", () => {
-    // Griffiths 4th ed. Example 5.9, infinite solenoid (from memory). Centre correction ~ 2 (R/l)^2.
+    // The long-solenoid limit B = mu0 n I (Ampere's law; common practice). Centre correction ~ 2 (R/l)^2 = 2e-8.
     const got = solenoidAxialField({ current: A(1), turns: 10000, radius: m(0.001), length: m(10), axialPosition: m(0) });
-    expectClose(got, { input: "l / R = 1e4", expected: MU0_NUM * 1000, tolerance: 1e-7, source: "infinite solenoid B = mu0 n I" });
+    expectClose(got, { input: "l / R = 1e4", expected: MU0_NUM * 1000, tolerance: 1e-7, source: "long-solenoid limit B = mu0 n I (common practice)" });
   });
 
   it("is half the central value at the ends of a long coil and symmetric about the centre (fast-check)", () => {
@@ -201,7 +213,11 @@ describe("helmholtzCenterField", () => {
   it("equals (4/5)^(3/2) mu0 N I / R (decimal.js oracle)", () => {
     const expected = new D("0.8").pow(1.5).times(MU0).times(100).div(0.1).toNumber();
     expectClose(helmholtzCenterField({ current: A(1), turns: 100, radius: m(0.1) }), {
-      input: "1 A, 100 turns, R = 0.1 m", expected, tolerance: 1e-15, source: "Helmholtz pair, Griffiths 4th ed. Problem 5.46 (from memory); decimal.js",
+      input: "1 A, 100 turns, R = 0.1 m", expected, tolerance: 1e-15, source: "decimal.js oracle of (4/5)^(3/2) mu0 N I / R",
+    });
+    // The coil constant quoted for Helmholtz pairs, B = 8.992e-7 N I / R in T with R in m (common practice, from memory).
+    expectClose(helmholtzCenterField({ current: A(1), turns: 1, radius: m(1) }), {
+      input: "1 A, 1 turn, R = 1 m", expected: 8.992e-7, tolerance: 1e-4, source: "Helmholtz coil constant 8.992e-7 T m/A (common practice, from memory)",
     });
   });
 

@@ -42,6 +42,12 @@ describe("skinDepth", () => {
     );
   });
 
+  it("accepts copper's diamagnetic relative permeability, 0.999994, without a warning (CRC Handbook of Chemistry and Physics, magnetic susceptibility of copper; from memory)", () => {
+    const d = skinDepth.details({ conductivity: S(58e6), frequency: Hz(60), relativePermeability: 0.999994 });
+    expect(d.warnings).toEqual([]);
+    expect(relativeError(d.value, skinDepth({ conductivity: S(58e6), frequency: Hz(60) }) / Math.sqrt(0.999994))).toBeLessThan(1e-15);
+  });
+
   it("warns when the material is not a good conductor at that frequency", () => {
     expect(skinDepth.details({ conductivity: S(1e-3), frequency: Hz(1e9) }).warnings.map((w) => w.code)).toContain("not_a_good_conductor");
     expect(evaluate("skinDepth", { conductivity: "58 MS/m", frequency: "60 Hz" }).warnings).toHaveLength(0);
@@ -79,9 +85,28 @@ describe("coreLoss", () => {
     );
   });
 
-  it("always notes the fitted range and cautions about hot cores at high loss density", () => {
-    const d = coreLoss.details({ coefficient: 1.5, frequencyExponent: 1.4, fluxExponent: 2.5, frequency: Hz(500e3), peakFluxDensity: 0.3 as FluxDensity, volume: 5e-6 as Volume });
-    expect(d.warnings.map((w) => w.code)).toContain("fitted_range");
-    expect(d.cautions.map((c) => c.code)).toContain("hot_core");
+  it("states the fitted-range assumption in its description and cautions about hot cores only above 500 kW/m^3 (common practice)", () => {
+    expect(coreLoss.definition.description).toMatch(/fitted/);
+    const at = (B: number) => coreLoss.details({ coefficient: 1.5, frequencyExponent: 1.4, fluxExponent: 2.5, frequency: Hz(500e3), peakFluxDensity: B as FluxDensity, volume: 5e-6 as Volume });
+    // At 0.1 T the density k f^a B^b = 1.5 (5e5)^1.4 0.1^2.5 is 4.5e5 W/m^3, just below the line; at 0.3 T, 7e6.
+    expect(at(0.1).warnings).toEqual([]);
+    expect(at(0.1).cautions).toEqual([]);
+    const hot = at(0.3).cautions;
+    expect(hot.map((c) => c.code)).toEqual(["hot_core"]);
+    expect(hot[0]!.message).toMatch(/500 kW\/m\^3.*common practice.*Local codes, standards and licensed practice govern/);
+  });
+
+  it("warns when an exponent is outside its usual range (alpha 1 to 3, beta 1.5 to 3.5; common practice), a sign of mixed units", () => {
+    const codes = (a: number, b: number) =>
+      coreLoss.details({ coefficient: 1.5, frequencyExponent: a, fluxExponent: b, frequency: Hz(1e3), peakFluxDensity: 0.1 as FluxDensity, volume: 5e-6 as Volume }).warnings.map((w) => w.code);
+    expect(codes(1, 1.5)).toEqual([]);
+    expect(codes(3, 3.5)).toEqual([]);
+    expect(codes(0.9, 2.5)).toEqual(["unusual_exponents"]);
+    expect(codes(1.4, 3.6)).toEqual(["unusual_exponents"]);
+  });
+
+  it("prints a finite loss density in its caution even where the density itself overflows", () => {
+    const d = coreLoss.details({ coefficient: 1e300, frequencyExponent: 1, fluxExponent: 2, frequency: Hz(1), peakFluxDensity: 1 as FluxDensity, volume: 1e-300 as Volume });
+    expect(d.cautions[0]!.message).not.toMatch(/Infinity|NaN/);
   });
 });

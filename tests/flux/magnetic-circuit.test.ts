@@ -75,6 +75,25 @@ describe("gappedCoreInductance", () => {
   });
 });
 
+describe("the core-based formulas and relative permeability", () => {
+  const base = { turns: 20, pathLength: mm(100), area: m2(1e-4), gapLength: mm(0.05) };
+
+  it("accept any relative permeability above 0 and warn below 1, where the material guides no flux", () => {
+    for (const mur of [0.5, 0.999994]) {
+      expect(gappedCoreInductance.details({ ...base, relativePermeability: mur }).warnings.map((w) => w.code)).toEqual(["not_a_magnetic_core"]);
+      expect(coreFluxDensity.details({ ...base, current: 1 as Current, relativePermeability: mur }).warnings.map((w) => w.code)).toEqual(["not_a_magnetic_core"]);
+      expect(inductanceFactor.details({ pathLength: mm(100), area: m2(1e-4), gapLength: mm(0.05), relativePermeability: mur }).warnings.map((w) => w.code)).toEqual(["not_a_magnetic_core"]);
+    }
+    expect(gappedCoreInductance.details({ ...base, relativePermeability: 1 }).warnings).toEqual([]);
+    expect(gappedCoreInductance.details({ ...base, relativePermeability: 2000 }).warnings).toEqual([]);
+  });
+
+  it("leave the reluctance of a section of any material unwarned (l / (mu0 mur A) holds for any mur)", () => {
+    expect(reluctance.details({ length: m(0.1), area: m2(1e-4), relativePermeability: 0.5 }).warnings).toEqual([]);
+    expect(() => reluctance({ length: m(0.1), area: m2(1e-4), relativePermeability: 0 })).toThrow(/relativePermeability/);
+  });
+});
+
 describe("inductanceFromFactor", () => {
   it("gives 100 uH from A_L = 250 nH and 20 turns (L = A_L N^2, IEC 60205 convention)", () => {
     const r = evaluate("inductanceFromFactor", { inductanceFactor: "250 nH", turns: 20 });
