@@ -1,0 +1,42 @@
+/**
+ * Fuzz: `evaluate(id, inputs)` and the typed calls (the formula functions and
+ * `formula.details`) under hostile inputs over the whole double range, unit
+ * strings, choice words, vectors, prototype keys, extra and missing keys and
+ * non-objects. Every call returns finite numbers and clean text, or throws a
+ * FormulaError with a public code, within its loop bound (fuzz-check.ts).
+ */
+import { describe, expect, it } from "vitest";
+import { countLoop } from "../helpers/loop-count.js";
+import { judge, LOOP_BOUND_PER_EVALUATION } from "./fuzz-check.js";
+import { describeKnown, driveSync, expectClean, newDrive } from "./fuzz-drive.js";
+import { CASES } from "./fuzz-runners.js";
+
+const evaluated = newDrive();
+const typed = newDrive();
+
+describe("fuzz: evaluate and the typed calls", () => {
+  it(`the case counts of all fuzz paths add up to at least 1e5`, () => {
+    expect(Object.values(CASES).reduce((a, b) => a + b, 0)).toBeGreaterThanOrEqual(100_000);
+  });
+
+  it("the verdict flags a result that is not finite, a foreign throw, a NaN word and a loop over its bound (the checks can fail)", () => {
+    expect(judge(() => ({ value: Infinity }), {}).violations).toHaveLength(1);
+    expect(judge(() => ({ warnings: [{ message: "ratio NaN" }] }), {}).violations).toHaveLength(1);
+    expect(judge(() => [1, 2].map(() => undefined as unknown as number).reduce((a) => a.x), {}).violations[0]).toMatch(/^threw TypeError/);
+    expect(judge(() => (countLoop(LOOP_BOUND_PER_EVALUATION + 1), 1), {}).violations[0]).toMatch(/loop iterations/);
+    // The user's own text quoted back is not the library writing NaN.
+    expect(judge(() => ({ message: 'could not be read: "NaN m"' }), { gap: "NaN m" }).violations).toEqual([]);
+  });
+
+  it(`${CASES.evaluate} evaluate cases: a finite result or a coded FormulaError, clean text, bounded loops`, () => {
+    driveSync(evaluated, "evaluate", CASES.evaluate);
+    expectClean(evaluated, CASES.evaluate);
+  });
+
+  it(`${CASES.typed} typed calls and details: a finite result or a coded FormulaError, clean text, bounded loops`, () => {
+    driveSync(typed, "typed", CASES.typed);
+    expectClean(typed, CASES.typed);
+  });
+});
+
+describeKnown("evaluate and typed calls", () => [evaluated, typed]);
