@@ -71,7 +71,7 @@ if (isMainThread) {
 } else {
   const job = workerData as Job;
   const at = new Int32Array(job.position);
-  const runner = RUNNERS[job.kind];
+  const runner = RUNNERS[job.kind] as unknown as { cases: fc.Arbitrary<unknown>; run: (c: unknown) => unknown };
   const all = fc.sample(runner.cases, { seed: job.seed, numRuns: job.cases });
   if (job.print >= 0) parentPort!.postMessage(`  case ${job.print}: ${show(all[job.print])}\n`);
   Atomics.store(at, 1, 1);
