@@ -93,6 +93,15 @@ export const KNOWN_HANGS: readonly KnownHang[] = [
   },
 ];
 
+/**
+ * One minimal reproducer per known hang, as evaluate cases. While their class
+ * is in KNOWN_HANGS they are skipped; once it is removed they run like any case.
+ */
+export const HANG_REPRODUCERS: readonly { id: string; inputs: Record<string, number> }[] = [
+  { id: "loopField", inputs: { current: 1, radius: 0.1, radialDistance: 0.1, axialDistance: 1e-200 } },
+  { id: "coaxialLoopsMutualInductance", inputs: { radius1: 1000, radius2: 1000, distance: 1e-321 } },
+];
+
 export function knownHang(kind: string, c: unknown): KnownHang | undefined {
   return KNOWN_HANGS.find((h) => h.skips(kind, c));
 }
