@@ -41,6 +41,8 @@ const HOSTILE_BODIES = [
   '{"formula":"parallelPlateCapacitance","vary":{"gap":{"from":1,"to":2,"points":1e400}}}', '{"formula":"parallelPlateCapacitance","vary":{"gap":{"from":1,"to":2,"points":-1e400}},"fixed":{"area":1}}',
   '{"formula":"parallelPlateCapacitance","inputs":{"area":1,"gap":1},"options":{"samples":1e400}}', '{"formula":"parallelPlateCapacitance","inputs":{"area":1,"gap":{"nominal":1,"percent":1e400}},"options":{"samples":4}}',
   '{"formula":"parallelPlateCapacitance","solveFor":"gap","target":1e400,"inputs":{"area":1}}', "\u0000", "{\"formula\":\"\ud800\"}",
+  // Over the 64 kB limit: 413 without reading on.
+  `{"formula":"parallelPlateCapacitance","inputs":{"area":"${"1".repeat(70_000)}"}}`, "[".repeat(70_000),
 ];
 
 /** Requests: well-formed bodies from the path arbitraries, hostile URLs, bodies and methods. */
