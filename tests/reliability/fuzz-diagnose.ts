@@ -9,15 +9,24 @@
  *
  *   npx tsx tests/reliability/fuzz-diagnose.ts <kind> [cases] [seed] [limit ms]
  *
- * kinds: see RUNNERS in fuzz-runners.ts.
+ * kinds: see RUNNERS in fuzz-runners.ts, and "reproducers" (the known hangs'
+ * reproducers, fuzz-known.ts: none should run over the limit once fixed).
  */
 import { isMainThread, parentPort, Worker, workerData } from "node:worker_threads";
 import fc from "fast-check";
 import { RUNNERS, type RunnerKind } from "./fuzz-runners.js";
-import { show } from "./fuzz-check.js";
+import { evaluate } from "../../src/core/evaluate.js";
+import { judge, show } from "./fuzz-check.js";
+import { HANG_REPRODUCERS } from "./fuzz-known.js";
+
+/** The known hangs' reproducers (fuzz-known.ts), to check a fix: `... reproducers 8` reports none over the limit once fixed. */
+const REPRODUCERS = {
+  cases: fc.constantFrom(...HANG_REPRODUCERS) as fc.Arbitrary<unknown>,
+  run: (c: unknown) => judge(() => evaluate((c as { id: string }).id, (c as { inputs: Record<string, number> }).inputs), c),
+};
 
 interface Job {
-  kind: RunnerKind;
+  kind: RunnerKind | "reproducers";
   cases: number;
   seed: number;
   from: number;
@@ -30,7 +39,7 @@ interface Job {
 const BOOT = `import("tsx/esm/api").then((m) => { m.register(); return import(${JSON.stringify(import.meta.url)}); })`;
 
 if (isMainThread) {
-  const kind = (process.argv[2] ?? "evaluate") as RunnerKind;
+  const kind = (process.argv[2] ?? "evaluate") as Job["kind"];
   const cases = Number(process.argv[3] ?? 20000);
   const seed = Number(process.argv[4] ?? 20261202);
   const limit = Number(process.argv[5] ?? 3000);
@@ -45,12 +54,18 @@ if (isMainThread) {
       let last = -1;
       let restarted = false;
       let since = Date.now();
+      let ready = false;
       const timer = setInterval(() => {
         const i = Atomics.load(at, 0);
+        // The clock starts when the worker has booted and drawn its cases.
+        if (!ready && Atomics.load(at, 1) === 1) {
+          ready = true;
+          since = Date.now();
+        }
         if (i !== last) {
           last = i;
           since = Date.now();
-        } else if (Atomics.load(at, 1) === 1 && Date.now() - since > limit) {
+        } else if (ready && i < cases && Date.now() - since > limit) {
           clearInterval(timer);
           restarted = true;
           hangs.push(i);
@@ -71,7 +86,7 @@ if (isMainThread) {
 } else {
   const job = workerData as Job;
   const at = new Int32Array(job.position);
-  const runner = RUNNERS[job.kind] as unknown as { cases: fc.Arbitrary<unknown>; run: (c: unknown) => unknown };
+  const runner = job.kind === "reproducers" ? REPRODUCERS : (RUNNERS[job.kind] as unknown as { cases: fc.Arbitrary<unknown>; run: (c: unknown) => unknown });
   const all = fc.sample(runner.cases, { seed: job.seed, numRuns: job.cases });
   if (job.print >= 0) parentPort!.postMessage(`  case ${job.print}: ${show(all[job.print])}\n`);
   Atomics.store(at, 1, 1);
