@@ -203,6 +203,45 @@ function buildInputs(f: AnyFormula): fc.Arbitrary<unknown> {
   );
 }
 
+/**
+ * Inputs of plain numbers (and valid choice words): the examples with some
+ * replaced by hostile doubles, vanishing values or another input's value. The
+ * typed calls' fast path sees only such objects; anything else goes to its
+ * careful path.
+ */
+export function numericInputsFor(f: AnyFormula): fc.Arbitrary<Record<string, unknown>> {
+  let arb = numericCache.get(f);
+  if (arb === undefined) numericCache.set(f, (arb = buildNumeric(f)));
+  return arb;
+}
+
+const numericCache = new Map<AnyFormula, fc.Arbitrary<Record<string, unknown>>>();
+
+function buildNumeric(f: AnyFormula): fc.Arbitrary<Record<string, unknown>> {
+  const specs = specsOf(f);
+  const value = ([name, spec]: [string, InputSpec]): fc.Arbitrary<unknown> => {
+    if (isChoice(spec)) return fc.constantFrom(...spec.choices);
+    const ex = typeof spec.example === "number" ? spec.example : (spec.default ?? 1);
+    const peers = specs
+      .filter(([n, s]) => n !== name && !isChoice(s) && !s.vector && s.dimension === spec.dimension && typeof s.example === "number")
+      .map(([, s]) => (s as QuantityInput).example as number);
+    const scalar = fc.oneof(
+      hostileNumber,
+      nearExample(ex),
+      fc.constantFrom(0, -0, 5e-324, 1e-321, 1e-300, 1e-200, 1e-160),
+      ...(peers.length ? [fc.tuple(fc.constantFrom(...peers), fc.constantFrom(1, 1 + 2 ** -52, 1 - 2 ** -53)).map(([p, k]) => p * k)] : []),
+    );
+    return spec.vector ? fc.tuple(scalar, scalar, scalar) : scalar;
+  };
+  return fc.tuple(...specs.map((e) => fc.option(value(e), { freq: 2 }))).map((vs) => {
+    const x = exampleOf(f);
+    specs.forEach(([n], i) => {
+      if (vs[i] !== null) x[n] = vs[i];
+    });
+    return x;
+  });
+}
+
 /** A formula id: a registry id mostly, sometimes something that is not one. */
 export const hostileId: fc.Arbitrary<unknown> = fc.oneof(
   { weight: 20, arbitrary: fc.constantFrom(...IDS) },

@@ -5,9 +5,12 @@
  * non-objects. Every call returns finite numbers and clean text, or throws a
  * FormulaError with a public code, within its loop bound (fuzz-check.ts).
  */
+import fc from "fast-check";
 import { describe, expect, it } from "vitest";
+import { FormulaError } from "../../src/core/errors.js";
+import { numericInputsFor, perFormula } from "./fuzz-cases.js";
 import { countLoop } from "../helpers/loop-count.js";
-import { judge, LOOP_BOUND_PER_EVALUATION } from "./fuzz-check.js";
+import { judge, LOOP_BOUND_PER_EVALUATION, show } from "./fuzz-check.js";
 import { describeKnown, driveSync, expectClean, newDrive } from "./fuzz-drive.js";
 import { evaluate } from "../../src/core/evaluate.js";
 import { HANG_REPRODUCERS, knownHang } from "./fuzz-known.js";
@@ -58,3 +61,28 @@ describe("known hangs: skipped while listed in KNOWN_HANGS, run once removed", (
 });
 
 describeKnown("evaluate and typed calls", () => [evaluated, typed]);
+
+describe("fuzz: the typed call's fast path agrees with evaluate", () => {
+  const RUNS = 10_000;
+  it(`on ${RUNS} cases of plain numbers: the same value bit for bit, or the same error code and input`, () => {
+    fc.assert(
+      fc.property(perFormula((f) => numericInputsFor(f).map((x) => ({ f, x }))), ({ f, x }) => {
+        if (knownHang("typed", { id: f.id, inputs: x })) return;
+        const typed = outcome(() => f(x as never));
+        const careful = outcome(() => evaluate(f.id, x).value);
+        expect(typed, `${f.id} ${show(x)}`).toEqual(careful);
+      }),
+      { numRuns: RUNS },
+    );
+  });
+});
+
+/** The value, or the FormulaError's code and input (anything else is rethrown). */
+function outcome(call: () => unknown): unknown {
+  try {
+    return { value: call() };
+  } catch (e) {
+    if (e instanceof FormulaError) return { code: e.code, input: e.input };
+    throw e;
+  }
+}

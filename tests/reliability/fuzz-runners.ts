@@ -12,7 +12,7 @@ import { tolerance, toleranceRequest } from "../../src/tools/tolerance.js";
 import { runCli } from "../../src/cli/run.js";
 import {
   evaluateCase, exampleOf, perFormula, formulaById, hostileCount, hostileId, hostileNumber, IDS, inputsFor, inputValue,
-  scalarNames, spanEnd, specsOf, targetName,
+  numericInputsFor, scalarNames, spanEnd, specsOf, targetName,
 } from "./fuzz-cases.js";
 import { FORBIDDEN, judge, type Verdict, withoutEchoes, userStrings, loopViolations } from "./fuzz-check.js";
 import { resetLoopCount } from "../helpers/loop-count.js";
@@ -65,7 +65,7 @@ const evaluateRunner: Runner<{ id: unknown; inputs: unknown }> = {
 type TypedCase = { id: string; inputs: unknown; details: boolean };
 const typedRunner: Runner<TypedCase> = {
   cases: perFormula((f) =>
-    fc.record({ id: fc.constant(f.id), inputs: inputsFor(f), details: fc.boolean() })),
+    fc.record({ id: fc.constant(f.id), inputs: fc.oneof(inputsFor(f), numericInputsFor(f)), details: fc.boolean() })),
   run: (c) => {
     const f = formulaById(c.id)!;
     return judge(() => (c.details ? f.details(c.inputs as never) : f(c.inputs as never)), c);
