@@ -58,12 +58,22 @@ export function convertInputs(formula: AnyFormula, inputs: unknown, skip: readon
       if (!Array.isArray(raw) || raw.length !== 3) {
         throw new FormulaError("wrong_type", { formula: id, input: name, value: raw, expected: "a 3-array [x, y, z] of numbers or unit strings" });
       }
-      out[name] = raw.map((c: unknown) => readQuantity(id, name, spec.dimension, c));
+      out[name] = raw.map((c: unknown) => toNumber(id, name, spec.dimension, c));
     } else {
-      out[name] = readQuantity(id, name, spec.dimension, raw);
+      out[name] = toNumber(id, name, spec.dimension, raw);
     }
   }
   return out;
+}
+
+/**
+ * A number passes as it is: its finiteness is checked by `prepare` together
+ * with the domains, in declaration order, so `evaluate` and the typed call name
+ * the same input with the same code (checked here, a NaN in a later input was
+ * reported before an earlier input outside its domain). Text is read here.
+ */
+function toNumber(formula: string, input: string, dimension: DimensionName, raw: unknown): unknown {
+  return typeof raw === "number" ? raw : readQuantity(formula, input, dimension, raw);
 }
 
 export { inDomain } from "./domain.js";

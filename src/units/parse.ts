@@ -83,10 +83,11 @@ function parseUncached(text: string, input?: string, formula?: string): ParsedQu
   const fail = (detail?: string): FormulaError =>
     new FormulaError("unparsable", { input, formula, value: text, detail });
   if (text.length > MAX_TEXT) throw fail(`longer than ${MAX_TEXT} characters`);
-  if (PLAIN_NUMBER.test(text)) return Object.freeze({ si: Number(text), exps: ZERO, plain: true });
+  const plainText = typography(text);
+  if (PLAIN_NUMBER.test(plainText)) return Object.freeze({ si: Number(plainText), exps: ZERO, plain: true });
   let unit;
   try {
-    unit = unitMath().unit(text.replace(RECIPROCAL, "$1/"));
+    unit = unitMath().unit(plainText.replace(RECIPROCAL, "$1/"));
   } catch {
     throw fail('expected a number followed by a unit, e.g. "0.2 mm"');
   }
@@ -100,6 +101,29 @@ function parseUncached(text: string, input?: string, formula?: string): ParsedQu
   if (d[8] !== 0) throw fail("bits and bytes are not physical quantities here");
   const exps = Object.freeze([d[1], d[0], d[2], d[3], d[4], d[6], d[5], d[7]]) as unknown as Exponents;
   return Object.freeze({ si: value, exps, plain: false });
+}
+
+const SUPERSCRIPTS = "\u2070\u00b9\u00b2\u00b3\u2074\u2075\u2076\u2077\u2078\u2079";
+const SUPERSCRIPT_POWER = /\u207b?[\u2070\u00b9\u00b2\u00b3\u2074-\u2079]+/g;
+
+/**
+ * The typography engineers paste from data sheets and papers, written the way
+ * mathjs reads it: the micro sign and Greek mu before a unit letter ("4.7 µF")
+ * as "u", the ohm sign and Greek capital omega as "ohm", superscript powers
+ * ("cm²", "m⁻¹") as "^2", "^-1", the minus sign U+2212 as "-", and any run of
+ * Unicode white space (no-break, thin) as one space. Symbols as the SI Brochure
+ * (BIPM, 9th edition, 2019) prints them: µ for micro, Ω for the ohm (from memory).
+ * Plain ASCII text passes unchanged.
+ */
+function typography(text: string): string {
+  // eslint-disable-next-line no-control-regex
+  if (/^[\x00-\x7f]*$/.test(text)) return text;
+  return text
+    .replace(/\s+/g, " ")
+    .replace(/\u2212/g, "-")
+    .replace(/[\u00b5\u03bc](?=[A-Za-z\u03a9\u2126])/g, "u")
+    .replace(/[\u03a9\u2126]/g, "ohm")
+    .replace(SUPERSCRIPT_POWER, (p) => `^${p.startsWith("\u207b") ? "-" : ""}${[...p.replace("\u207b", "")].map((c) => SUPERSCRIPTS.indexOf(c)).join("")}`);
 }
 
 /** Number of cached unit strings (for tests and diagnostics). */

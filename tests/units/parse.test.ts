@@ -90,7 +90,7 @@ describe("wrong dimension through evaluate()", () => {
 describe("strings that are not quantities", () => {
   const UNPARSABLE = [
     "abc", "mm", "", "   ", "1 + 2", "5 furlong", "8 bit", "2 kB", "2i m", "1 m/0", "NaN m", "Infinity m",
-    "__proto__", "constructor", "1 m 1 m", "1e18 1/", "m 5", "5 m)", "((", "1 mm; 2 mm", "\u0000", "5 \u00b5m2",
+    "__proto__", "constructor", "1 m 1 m", "1e18 1/", "m 5", "5 m)", "((", "1 mm; 2 mm", "\u0000", "5 \u00b5",
   ];
   it.each(UNPARSABLE)("%j is FormulaError unparsable naming the input", (text) => {
     const err = expectFormulaError(() => evaluate(ID, { area: "1 cm^2", gap: text }));
