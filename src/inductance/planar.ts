@@ -104,10 +104,10 @@ export const planarSpiralInductance = /* @__PURE__ */ defineFormula({
  * Wheeler formula and its coefficient table.
  *
  * @example
- * planarSpiralInductanceWheeler({ turns: 5, outerDiameter: quantity(400, "um"), innerDiameter: quantity(200, "um"), shape: "square" }); // ≈ 11.5 nH
+ * modifiedWheelerSpiralInductance({ turns: 5, outerDiameter: quantity(400, "um"), innerDiameter: quantity(200, "um"), shape: "square" }); // ≈ 11.5 nH
  */
-export const planarSpiralInductanceWheeler = /* @__PURE__ */ defineFormula({
-  id: "planarSpiralInductanceWheeler",
+export const modifiedWheelerSpiralInductance = /* @__PURE__ */ defineFormula({
+  id: "modifiedWheelerSpiralInductance",
   title: "Planar spiral inductance (modified Wheeler)",
   category: "inductance",
   description: "Inductance of a square, hexagonal or octagonal planar spiral from the modified Wheeler expression of Mohan et al. (1999); typical error 2-3 % for spacing up to three trace widths.",

@@ -101,10 +101,10 @@ export const solenoidInductance = /* @__PURE__ */ defineFormula({
  * Electrodynamics, 4th ed. (2017), sec. 7.2.3.
  *
  * @example
- * idealSolenoidInductance({ turns: 1000, radius: quantity(1, "cm"), length: quantity(1, "m") }); // ≈ 395 µH
+ * longSolenoidInductance({ turns: 1000, radius: quantity(1, "cm"), length: quantity(1, "m") }); // ≈ 395 µH
  */
-export const idealSolenoidInductance = /* @__PURE__ */ defineFormula({
-  id: "idealSolenoidInductance",
+export const longSolenoidInductance = /* @__PURE__ */ defineFormula({
+  id: "longSolenoidInductance",
   title: "Long-solenoid inductance",
   category: "inductance",
   description: "Inductance of a solenoid from the infinitely long solenoid's uniform field; end effects neglected.",

@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { MU0 } from "../../src/constants/si.js";
 import {
-  FormulaError, evaluate, inductorEnergy, parallelInductance, planarSpiralInductance, planarSpiralInductanceWheeler, seriesInductance,
+  FormulaError, evaluate, inductorEnergy, parallelInductance, planarSpiralInductance, modifiedWheelerSpiralInductance, seriesInductance,
   type Current, type Inductance, type Length,
 } from "../../src/index.js";
 import { expectClose, relativeError } from "../helpers/reference.js";
@@ -50,7 +50,7 @@ describe("planarSpiralInductance (Mohan et al. 1999)", () => {
         const dout = 300e-6;
         const din = (dout * (1 - rho)) / (1 + rho);
         const x = { turns: n, outerDiameter: m(dout), innerDiameter: m(din), shape };
-        expect(relativeError(planarSpiralInductance(x), planarSpiralInductanceWheeler(x))).toBeLessThan(0.1);
+        expect(relativeError(planarSpiralInductance(x), modifiedWheelerSpiralInductance(x))).toBeLessThan(0.1);
       }),
     );
   });
@@ -60,10 +60,10 @@ describe("planarSpiralInductance (Mohan et al. 1999)", () => {
       fc.property(fc.double({ min: 1e-3, max: 1e3, noNaN: true }), fc.double({ min: 0, max: 0.9, noNaN: true }), (s, t) => {
         const x = { turns: 4, outerDiameter: m(1e-3), innerDiameter: m(t * 1e-3), shape: "octagonal" as const };
         const L = planarSpiralInductance(x);
-        const Lw = planarSpiralInductanceWheeler(x);
+        const Lw = modifiedWheelerSpiralInductance(x);
         const y = { ...x, outerDiameter: m(s * 1e-3), innerDiameter: m(s * t * 1e-3) };
         expect(relativeError(planarSpiralInductance(y), s * L)).toBeLessThan(1e-13);
-        expect(relativeError(planarSpiralInductanceWheeler(y), s * Lw)).toBeLessThan(1e-13);
+        expect(relativeError(modifiedWheelerSpiralInductance(y), s * Lw)).toBeLessThan(1e-13);
         expect(relativeError(planarSpiralInductance({ ...x, turns: 8 }), 4 * L)).toBeLessThan(1e-15);
       }),
     );
@@ -74,7 +74,7 @@ describe("planarSpiralInductance (Mohan et al. 1999)", () => {
     const e1 = err(() => evaluate("planarSpiralInductance", { turns: 3, outerDiameter: "1 mm", innerDiameter: "0.5 mm", shape: "triangle" }));
     expect(e1.code).toBe("out_of_domain");
     expect(e1.input).toBe("shape");
-    const e2 = err(() => evaluate("planarSpiralInductanceWheeler", { turns: 3, outerDiameter: "1 mm", innerDiameter: "0.5 mm", shape: "circular" }));
+    const e2 = err(() => evaluate("modifiedWheelerSpiralInductance", { turns: 3, outerDiameter: "1 mm", innerDiameter: "0.5 mm", shape: "circular" }));
     expect(e2.input).toBe("shape");
     const e3 = err(() => evaluate("planarSpiralInductance", { turns: 3, outerDiameter: "1 mm", innerDiameter: "1 mm" }));
     expect(e3.rule).toBe("innerDiameter < outerDiameter");
