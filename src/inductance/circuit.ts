@@ -26,7 +26,7 @@ function couplingExcess(x: { mutualInductance: number; inductance1: number; indu
 }
 
 function clampedMessage(x: { mutualInductance: number; inductance1: number; inductance2: number }): string {
-  return `mutualInductance exceeds sqrt(inductance1 inductance2) by ${couplingExcess(x).toPrecision(3)} of it (coupling coefficient above 1, admitted as rounding by the coupling relation): the result would be negative and is returned as 0, the perfectly coupled limit`;
+  return `mutualInductance exceeds sqrt(inductance1 inductance2) by ${couplingExcess(x).toPrecision(3)} of it (coupling coefficient above 1, admitted as rounding by the coupling relation): the pair is taken as perfectly coupled (k = 1) instead of returning a negative or unphysical result`;
 }
 
 const COUPLING_RELATION = {
@@ -228,12 +228,12 @@ export const parallelInductance = /* @__PURE__ */ defineFormula({
       return det / den;
     }
     const { v, exp } = detScaled(L1, L2, M);
-    if (v <= 0) return 0; // perfect coupling (or M above sqrt(L1 L2), with a warning)
     const den =
       x.connection === "opposing"
         ? Scaled.of(L1).plus(Scaled.of(L2)).plus(Scaled.of(M).times(2))
         : sumScaled(L1 - M, L2 - M); // differences of positives never overflow
-    if (den.m === 0) return L1;
+    if (den.m === 0) return L1; // as above: equal coils, perfect coupling
+    if (v <= 0) return 0; // perfect coupling (or M above sqrt(L1 L2), with a warning)
     return Scaled.of(v, exp).div(den).toNumber();
   },
 });
