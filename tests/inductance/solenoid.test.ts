@@ -147,12 +147,13 @@ describe("longSolenoidInductance", () => {
 });
 
 describe("wheelerSolenoidInductance", () => {
-  it("is within Wheeler's stated 1 % of the exact current sheet for length > 0.8 radius", () => {
-    // Wheeler (1928): accurate to about 1 % for l > 0.8 r.
+  it("is within Wheeler's stated 1 % (0.6 % measured, as the doc comment says) of the exact current sheet for length > 0.8 radius", () => {
+    // Wheeler (1928): accurate to about 1 % for l > 0.8 r (from memory); the doc comment
+    // states 0.6 % measured against the current sheet, which this checks.
     fc.assert(
       fc.property(fc.double({ min: 0.8, max: 1e6, noNaN: true }), fc.integer({ min: 1, max: 1000 }), (ratio, N) => {
         const x = { turns: N, radius: m(0.01), length: m(0.01 * ratio) };
-        expect(relativeError(wheelerSolenoidInductance(x), solenoidInductance(x))).toBeLessThan(0.01);
+        expect(relativeError(wheelerSolenoidInductance(x), solenoidInductance(x))).toBeLessThan(0.006);
       }),
       { numRuns: 300 },
     );
