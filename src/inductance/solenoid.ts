@@ -32,7 +32,7 @@ const WHEELER_MULTI = 0.8e-6 / INCH;
  *
  * Exact for a uniform current sheet. Computed without cancellation for very
  * long and very short coils (see `nagaoka` in shared.ts); a coefficient below
- * the smallest normal double (length/radius below about 1e-305) is `out_of_range`.
+ * the smallest normal double (length/radius below about 1e-310) is `out_of_range`.
  *
  * Reference: Nagaoka (1909); Grover, Inductance Calculations (1946), single-layer coils.
  *
