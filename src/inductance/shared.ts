@@ -193,14 +193,18 @@ export function shortCoilFactor(radius: number, length: number): number {
   return Math.PI * (radius / length) * nagaokaShape(radius, length);
 }
 
-// The general branch, for l >= 2e-9 r. Both lengths are first scaled by the
-// power of two that brings l into [1, 2) (exact), so 2r and the hypot neither
-// overflow nor underflow; r may underflow only when r/l < 2^-1022, where K = 1
+// The general branch, for l >= 2e-9 r. Outside moderate magnitudes both
+// lengths are first scaled by the power of two that brings l into [1, 2)
+// (exact), so 2r and the hypot neither overflow nor underflow; r may underflow only when r/l < 2^-1022, where K = 1
 // to the last digit.
 function nagaokaShape(radius: number, length: number): number {
-  const s = -exponentOf(length);
-  const r = ldexp(radius, s);
-  const l = ldexp(length, s);
+  let r = radius;
+  let l = length;
+  if (!(moderate(r) && moderate(l))) {
+    const s = -exponentOf(length);
+    r = ldexp(radius, s);
+    l = ldexp(length, s);
+  }
   const h = Math.hypot(2 * r, l);
   const k = (2 * r) / h;
   const kc = l / h;
