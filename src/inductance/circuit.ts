@@ -62,7 +62,8 @@ const COUPLED_PAIR = [
  * the energy, interrupting the current produces a voltage L dI/dt that can arc
  * and destroy semiconductors (said in the description, since it always holds).
  *
- * Reference: Alexander & Sadiku, Fundamentals of Electric Circuits, 5th ed. (2013), sec. 6.4.
+ * Reference: Alexander & Sadiku, Fundamentals of Electric Circuits, 5th ed. (2013), sec. 6.4 (from memory);
+ * IEC 60950-1:2005, 1.2.8.10 for the 20 J level (from memory).
  *
  * @example
  * inductorEnergy({ inductance: quantity(10, "mH"), current: quantity(5, "A") }); // 0.125 J
@@ -145,9 +146,13 @@ function sumScaled(a: number, b: number): Scaled {
  *
  * The opposing sum is computed as (L1 - M) + (L2 - M): for a tightly coupled
  * pair each difference is exact in floating point (Sterbenz), so the small
- * result keeps full relative precision.
+ * result keeps full relative precision. Sums of positive terms overflow only
+ * when the result does; a subnormal sum is exact and returned as it is. If M
+ * exceeds sqrt(L1 L2) within the coupling relation's rounding tolerance and the
+ * opposing sum would be negative, 0 (perfect coupling) is returned with a
+ * `coupling_clamped` warning.
  *
- * Reference: Alexander & Sadiku, Fundamentals of Electric Circuits, 5th ed. (2013), sec. 13.2.
+ * Reference: Alexander & Sadiku, Fundamentals of Electric Circuits, 5th ed. (2013), sec. 13.2 (from memory).
  *
  * @example
  * seriesInductance({ inductance1: quantity(10, "uH"), inductance2: quantity(20, "uH"), mutualInductance: quantity(5, "uH") }); // 40 µH
@@ -192,7 +197,12 @@ function seriesOpposing(x: { mutualInductance: number; inductance1: number; indu
  * coupled coils the limit L1 is returned.
  *
  * Reference: Alexander & Sadiku, Fundamentals of Electric Circuits, 5th ed. (2013),
- * ch. 13 (coupled inductors); derived from the two mesh equations.
+ * ch. 13 (coupled inductors) (from memory); derived from the two mesh equations.
+ * Scaled (exact mantissa products) for extreme magnitudes: every representable
+ * result to a few ulp, `out_of_range` beyond the double range or below the
+ * smallest normal double. If M exceeds sqrt(L1 L2) within the coupling
+ * relation's rounding tolerance, the pair is taken as perfectly coupled with a
+ * `coupling_clamped` warning.
  *
  * @example
  * parallelInductance({ inductance1: quantity(10, "uH"), inductance2: quantity(10, "uH"), mutualInductance: 0 }); // 5 µH

@@ -93,7 +93,8 @@ export const coaxialInductance = /* @__PURE__ */ defineFormula({
  * smallest normal double.
  *
  * Reference: S. Ramo, J. R. Whinnery, T. Van Duzer, Fields and Waves in
- * Communication Electronics, 3rd ed. (1994), table of transmission-line parameters.
+ * Communication Electronics, 3rd ed. (1994), table of transmission-line parameters
+ * (from memory).
  *
  * @example
  * twoWireInductance({ wireRadius: quantity(0.5, "mm"), separation: quantity(5, "mm"), length: quantity(1, "m") }); // ≈ 917 nH
@@ -148,7 +149,8 @@ export const twoWireInductance = /* @__PURE__ */ defineFormula({
  * A partial inductance: only closed loops have a measurable inductance.
  *
  * Reference: E. B. Rosa, "The self and mutual inductances of linear conductors",
- * Bull. Bureau of Standards 4 (1908) 301-344; Grover (1946), straight conductors.
+ * Bull. Bureau of Standards 4 (1908) 301-344; Grover (1946), straight conductors
+ * (from memory).
  *
  * @example
  * straightWireInductance({ length: quantity(10, "cm"), radius: quantity(0.5, "mm") }); // ≈ 104 nH
@@ -190,7 +192,8 @@ export const straightWireInductance = /* @__PURE__ */ defineFormula({
  * beyond the double range or below the smallest normal double.
  *
  * Reference: Grover (1946), circular rings of round wire; E. B. Rosa and
- * F. W. Grover, Bull. Bureau of Standards 8 (1912), formulas for circular rings.
+ * F. W. Grover, Bull. Bureau of Standards 8 (1912), formulas for circular rings
+ * (from memory).
  *
  * @example
  * loopInductance({ loopRadius: quantity(5, "cm"), wireRadius: quantity(0.5, "mm") }); // ≈ 310 nH

@@ -24,7 +24,8 @@ const MAXWELL = {
  * circles: full precision when the circles are far apart (M ~ 1/d^3, where the
  * textbook form cancels) and when they nearly touch.
  *
- * Reference: Maxwell, Treatise (1873), vol. 2, art. 701; Grover (1946), coaxial circles.
+ * Reference: Maxwell, Treatise (1873), vol. 2, art. 701; Grover (1946), coaxial circles
+ * (from memory).
  *
  * @example
  * coaxialLoopsMutualInductance({ radius1: quantity(5, "cm"), radius2: quantity(5, "cm"), distance: quantity(5, "cm") }); // ≈ 24.7 nH
@@ -205,7 +206,7 @@ export const coaxialCoilsMutualInductance = /* @__PURE__ */ defineFormula({
  * self-inductances in H; k dimensionless, |k| <= 1 for any physical pair.
  *
  * Reference: any circuits text, e.g. C. K. Alexander and M. N. O. Sadiku,
- * Fundamentals of Electric Circuits, 5th ed. (2013), sec. 13.3.
+ * Fundamentals of Electric Circuits, 5th ed. (2013), sec. 13.3 (from memory).
  *
  * @example
  * couplingCoefficient({ mutualInductance: quantity(5, "uH"), inductance1: quantity(10, "uH"), inductance2: quantity(10, "uH") }); // 0.5

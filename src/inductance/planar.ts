@@ -75,7 +75,9 @@ function spiral(k: number, n: number, dout: number, din: number, g: (rho: number
  * layer; the substrate and a ground plane are neglected.
  *
  * Reference: Mohan, Hershenson, Boyd & Lee, IEEE JSSC 34(10) (1999), current-sheet
- * approximation and its coefficient table.
+ * approximation and its coefficient table (coefficients from memory). Scaled for
+ * extreme magnitudes: every representable result to a few ulp, `out_of_range`
+ * beyond the double range or below the smallest normal double.
  *
  * @example
  * planarSpiralInductance({ turns: 5, outerDiameter: quantity(400, "um"), innerDiameter: quantity(200, "um"), shape: "square" }); // ≈ 11.4 nH
@@ -116,7 +118,9 @@ export const planarSpiralInductance = /* @__PURE__ */ defineFormula({
  * spacing not exceeding three trace widths.
  *
  * Reference: Mohan, Hershenson, Boyd & Lee, IEEE JSSC 34(10) (1999), modified
- * Wheeler formula and its coefficient table.
+ * Wheeler formula and its coefficient table (coefficients from memory). Scaled for
+ * extreme magnitudes: every representable result to a few ulp, `out_of_range`
+ * beyond the double range or below the smallest normal double.
  *
  * @example
  * modifiedWheelerSpiralInductance({ turns: 5, outerDiameter: quantity(400, "um"), innerDiameter: quantity(200, "um"), shape: "square" }); // ≈ 11.5 nH

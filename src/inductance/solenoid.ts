@@ -34,7 +34,8 @@ const WHEELER_MULTI = 0.8e-6 / INCH;
  * long and very short coils (see `nagaoka` in shared.ts); a coefficient below
  * the smallest normal double (length/radius below about 1e-310) is `out_of_range`.
  *
- * Reference: Nagaoka (1909); Grover, Inductance Calculations (1946), single-layer coils.
+ * Reference: Nagaoka (1909); Grover, Inductance Calculations (1946), single-layer
+ * coils (locators from memory).
  *
  * @example
  * nagaokaCoefficient({ radius: quantity(1, "cm"), length: quantity(2, "cm") }); // ≈ 0.6884
@@ -64,7 +65,8 @@ export const nagaokaCoefficient = /* @__PURE__ */ defineFormula({
  * correction for the wire's size and spacing (below 1-2 % for closely wound
  * coils of many turns). Low-frequency current distribution assumed.
  *
- * Reference: Nagaoka (1909); Grover, Inductance Calculations (1946), single-layer coils.
+ * Reference: Nagaoka (1909); Grover, Inductance Calculations (1946), single-layer
+ * coils (locators from memory).
  *
  * @example
  * solenoidInductance({ turns: 100, radius: quantity(1, "cm"), length: quantity(2, "cm") }); // ≈ 136 µH
@@ -179,7 +181,7 @@ function formatPercent(f: number): string {
  * Stated accuracy: within 1 % for l > 0.8 r (measured here against the exact
  * current sheet: within 0.6 % over that range).
  *
- * Reference: H. A. Wheeler, Proc. IRE 16 (1928) 1398, single-layer formula.
+ * Reference: H. A. Wheeler, Proc. IRE 16 (1928) 1398, single-layer formula (from memory).
  *
  * @example
  * wheelerSolenoidInductance({ turns: 100, radius: quantity(1, "cm"), length: quantity(2, "cm") }); // ≈ 135 µH
@@ -229,7 +231,7 @@ export const wheelerSolenoidInductance = /* @__PURE__ */ defineFormula({
  * Stated accuracy: about 1 % when the three terms 6a, 9b and 10c are roughly
  * equal; a warning is given when they differ by more than a factor of 3.
  *
- * Reference: H. A. Wheeler, Proc. IRE 16 (1928) 1398, multilayer formula.
+ * Reference: H. A. Wheeler, Proc. IRE 16 (1928) 1398, multilayer formula (from memory).
  *
  * @example
  * multilayerCoilInductance({ turns: 200, meanRadius: quantity(1, "cm"), length: quantity(1, "cm"), depth: quantity(6, "mm") }); // ≈ 600 µH
