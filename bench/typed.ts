@@ -5,7 +5,7 @@
  */
 import { mulDiv } from "../src/capacitance/shared.js";
 import { EPSILON0, MU0 } from "../src/constants/si.js";
-import { coaxialCapacitance, idealSolenoidInductance, parallelPlateCapacitance, solenoidInductance } from "../src/index.js";
+import { coaxialCapacitance, longSolenoidInductance, parallelPlateCapacitance, solenoidInductance } from "../src/index.js";
 import type { Area, Length } from "../src/units/types.js";
 import { type BenchRow, compare, ns, randomArray, times } from "./util.js";
 
@@ -84,13 +84,13 @@ export async function run(): Promise<BenchRow[]> {
         },
         typed: () => {
           let s = 0;
-          for (let i = 0; i < N; i++) s += idealSolenoidInductance({ turns: turns[i]!, radius: radius[i]! as Length, length: len[i]! as Length });
+          for (let i = 0; i < N; i++) s += longSolenoidInductance({ turns: turns[i]!, radius: radius[i]! as Length, length: len[i]! as Length });
           return s;
         },
       },
       N,
     );
-    rows.push({ name: "typed idealSolenoidInductance vs plain arithmetic", value: times(t.ratio.typed!), note: `typed ${ns(t.ns.typed!)}/call, plain ${ns(t.ns.plain!)}; includes the whole-number check on turns` });
+    rows.push({ name: "typed longSolenoidInductance vs plain arithmetic", value: times(t.ratio.typed!), note: `typed ${ns(t.ns.typed!)}/call, plain ${ns(t.ns.plain!)}; includes the whole-number check on turns` });
   }
   {
     // A formula heavier than a product (Nagaoka's coefficient through elliptic

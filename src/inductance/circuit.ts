@@ -1,25 +1,33 @@
 import { defineFormula } from "../core/formula.js";
+import { formatNumber } from "../core/format.js";
+import { GOVERN, HAZARDOUS_ENERGY } from "../core/hazards.js";
 import { NON_NEGATIVE, POSITIVE } from "../core/spec.js";
+import { Scaled, moderate, scaledProduct } from "./shared.js";
 
 const CIRCUITS = { authors: "C. K. Alexander, M. N. O. Sadiku", year: 2013, title: "Fundamentals of Electric Circuits, 5th ed." } as const;
 
-/** Cautions for anything that stores magnetic energy. */
-export const STORED_MAGNETIC_ENERGY_CAUTIONS = [
-  {
-    code: "flyback_voltage",
-    message:
-      "interrupting an inductor's current (opening a switch, a broken connection) produces a high voltage L dI/dt that can arc, break insulation and destroy semiconductors: provide a clamp or freewheeling path",
-  },
-  {
-    code: "stored_energy",
-    message:
-      "stored magnetic energy is released as heat, arcs or forces on conductors when the current is interrupted; large inductors and magnets can hold lethal energy: discharge through a rated dump path before work",
-  },
-  {
-    code: "codes_govern",
-    message: "these results support engineering judgement; local codes, standards and licensed practice govern any real installation",
-  },
-] as const;
+/**
+ * The stored-energy hazard: at or above HAZARDOUS_ENERGY (20 J, IEC 60950-1:2005
+ * 1.2.8.10, now IEC 62368-1; from memory) the energy released when the current
+ * is interrupted is treated as a hazard. Below it no caution: an inductor
+ * storing microjoules is not a hazard, and a caution on every call protects no one.
+ */
+const STORED_ENERGY = {
+  code: "stored_energy",
+  when: (_x: unknown, w: number | readonly number[]) => (w as number) >= HAZARDOUS_ENERGY,
+  measure: (_x: unknown, w: number | readonly number[]) => w as number,
+  message: (_x: unknown, w: number | readonly number[]) =>
+    `${formatNumber(w as number, 3)} J stored, at or above the ${HAZARDOUS_ENERGY} J hazardous energy level (IEC 60950-1:2005, 1.2.8.10; now IEC 62368-1; from memory): interrupting the current releases it as an arc, heat or forces on conductors; provide a rated dump or freewheeling path and discharge before work. ${GOVERN}`,
+} as const;
+
+/** When the 1e-12 rounding tolerance of the coupling relation admits M above sqrt(L1 L2): k - 1. */
+function couplingExcess(x: { mutualInductance: number; inductance1: number; inductance2: number }): number {
+  return x.mutualInductance / (Math.sqrt(x.inductance1) * Math.sqrt(x.inductance2)) - 1;
+}
+
+function clampedMessage(x: { mutualInductance: number; inductance1: number; inductance2: number }): string {
+  return `mutualInductance exceeds sqrt(inductance1 inductance2) by ${couplingExcess(x).toPrecision(3)} of it (coupling coefficient above 1, admitted as rounding by the coupling relation): the pair is taken as perfectly coupled (k = 1) instead of returning a negative or unphysical result`;
+}
 
 const COUPLING_RELATION = {
   rule: "mutualInductance <= sqrt(inductance1 * inductance2) (coupling coefficient at most 1)",
@@ -48,8 +56,14 @@ const COUPLED_PAIR = [
  * W = L I^2 / 2, with L the inductance in H and I the current in A; W in J.
  *
  * Linear inductor (constant L); for a saturating core integrate i dPsi instead.
+ * Scaled for extreme magnitudes: every representable result to a few ulp,
+ * `out_of_range` beyond the double range or below the smallest normal double.
+ * A `stored_energy` caution from 20 J (the hazardous energy level). Whatever
+ * the energy, interrupting the current produces a voltage L dI/dt that can arc
+ * and destroy semiconductors (said in the description, since it always holds).
  *
- * Reference: Alexander & Sadiku, Fundamentals of Electric Circuits, 5th ed. (2013), sec. 6.4.
+ * Reference: Alexander & Sadiku, Fundamentals of Electric Circuits, 5th ed. (2013), sec. 6.4 (from memory);
+ * IEC 60950-1:2005, 1.2.8.10 for the 20 J level (from memory).
  *
  * @example
  * inductorEnergy({ inductance: quantity(10, "mH"), current: quantity(5, "A") }); // 0.125 J
@@ -58,16 +72,24 @@ export const inductorEnergy = /* @__PURE__ */ defineFormula({
   id: "inductorEnergy",
   title: "Energy stored in an inductor",
   category: "inductance",
-  description: "Magnetic energy stored in a linear inductor carrying a current.",
+  description:
+    "Magnetic energy stored in a linear inductor carrying a current. Interrupting the current (opening a switch, a broken connection) produces a voltage L dI/dt that can arc, break insulation and destroy semiconductors: provide a clamp or freewheeling path.",
   equation: "W = L I^2 / 2",
   inputs: [
     { name: "inductance", dimension: "Inductance", description: "Inductance", domain: POSITIVE, example: 0.01 },
     { name: "current", dimension: "Current", description: "Current through the inductor", example: 5 },
   ],
   output: { dimension: "Energy", description: "Stored energy" },
-  cautions: STORED_MAGNETIC_ENERGY_CAUTIONS,
-  source: { ...CIRCUITS, locator: "sec. 6.4 (energy stored in an inductor)" },
-  compute: (x) => 0.5 * x.inductance * x.current * x.current,
+  cautions: [STORED_ENERGY],
+  source: [
+    { ...CIRCUITS, locator: "sec. 6.4 (energy stored in an inductor) (from memory)" },
+    { authors: "IEC", year: 2005, title: "IEC 60950-1: Information technology equipment - Safety - Part 1: General requirements", locator: "1.2.8.10, hazardous energy level 20 J (from memory)" },
+  ],
+  // I^2 could overflow (or L I^2 underflow) in an intermediate step: scaled outside moderate magnitudes.
+  compute: (x) => {
+    const i = Math.abs(x.current);
+    return moderate(x.inductance) && moderate(i) ? 0.5 * x.inductance * i * i : scaledProduct(0.5, x.inductance, i, i);
+  },
 });
 
 /** a b as an unevaluated sum hi + lo, exactly (Dekker's product with Veltkamp's split). */
@@ -83,11 +105,37 @@ function twoProduct(a: number, b: number): [number, number] {
   return [p, ahi * bhi - p + ahi * blo + alo * bhi + alo * blo];
 }
 
-/** L1 L2 - M^2 to about one ulp even when M is close to sqrt(L1 L2). */
+/** L1 L2 - M^2 to about one ulp even when M is close to sqrt(L1 L2); moderate magnitudes. */
 function detInductance(l1: number, l2: number, mutual: number): number {
   const [p, e] = twoProduct(l1, l2);
   const [q, f] = twoProduct(mutual, mutual);
   return p - q + (e - f); // p - q is exact when the products are within a factor 2
+}
+
+/**
+ * L1 L2 - M^2 for any magnitudes, as v 2^exp. The mantissas (in [1, 2)) are
+ * multiplied exactly by twoProduct, and M^2 is brought to L1 L2's exponent by
+ * a power of two (exact); where M^2 is below 2^-120 of L1 L2 it cannot change
+ * the result. v is negative when M > sqrt(L1 L2).
+ */
+function detScaled(l1: number, l2: number, mutual: number): { v: number; exp: number } {
+  const a = Scaled.of(l1);
+  const b = Scaled.of(l2);
+  const exp = a.e + b.e;
+  const [p, e] = twoProduct(a.m, b.m);
+  if (mutual === 0) return { v: p + e, exp };
+  const c = Scaled.of(mutual);
+  const d = 2 * c.e - exp; // M^2 = (c.m^2 2^d) 2^exp; the coupling relation keeps d <= 2
+  if (d < -120) return { v: p + e, exp };
+  const [q, f] = twoProduct(c.m, c.m);
+  const scale = 2 ** d;
+  return { v: p - q * scale + (e - f * scale), exp };
+}
+
+/** a + b for finite a, b whose sum is positive, halved first where the sum of two large terms could overflow. */
+function sumScaled(a: number, b: number): Scaled {
+  if (Math.abs(a) < 2 ** 1000 && Math.abs(b) < 2 ** 1000) return Scaled.of(Math.max(0, a + b));
+  return Scaled.of(Math.max(0, a / 2 + b / 2)).times(2);
 }
 
 /**
@@ -98,9 +146,13 @@ function detInductance(l1: number, l2: number, mutual: number): number {
  *
  * The opposing sum is computed as (L1 - M) + (L2 - M): for a tightly coupled
  * pair each difference is exact in floating point (Sterbenz), so the small
- * result keeps full relative precision.
+ * result keeps full relative precision. Sums of positive terms overflow only
+ * when the result does; a subnormal sum is exact and returned as it is. If M
+ * exceeds sqrt(L1 L2) within the coupling relation's rounding tolerance and the
+ * opposing sum would be negative, 0 (perfect coupling) is returned with a
+ * `coupling_clamped` warning.
  *
- * Reference: Alexander & Sadiku, Fundamentals of Electric Circuits, 5th ed. (2013), sec. 13.2.
+ * Reference: Alexander & Sadiku, Fundamentals of Electric Circuits, 5th ed. (2013), sec. 13.2 (from memory).
  *
  * @example
  * seriesInductance({ inductance1: quantity(10, "uH"), inductance2: quantity(20, "uH"), mutualInductance: quantity(5, "uH") }); // 40 µH
@@ -114,13 +166,24 @@ export const seriesInductance = /* @__PURE__ */ defineFormula({
   inputs: COUPLED_PAIR,
   output: { dimension: "Inductance", description: "Total inductance" },
   relations: [COUPLING_RELATION],
-  source: { ...CIRCUITS, locator: "sec. 13.2 (series-aiding and series-opposing connections)" },
+  validity: [
+    {
+      code: "coupling_clamped",
+      when: (x) => x.connection === "opposing" && seriesOpposing(x) < 0,
+      measure: (x) => couplingExcess(x),
+      message: (x) => clampedMessage(x),
+    },
+  ],
+  source: { ...CIRCUITS, locator: "sec. 13.2 (series-aiding and series-opposing connections) (from memory)" },
+  // Sums of positive terms cannot overflow unless the result does; no scaling needed.
   compute: (x) =>
-    x.connection === "aiding"
-      ? x.inductance1 + x.inductance2 + 2 * x.mutualInductance
-      : // (L1 - M) + (L2 - M): exact differences near perfect coupling, no cancellation left.
-        Math.max(0, x.inductance1 - x.mutualInductance + (x.inductance2 - x.mutualInductance)),
+    x.connection === "aiding" ? x.inductance1 + x.inductance2 + 2 * x.mutualInductance : Math.max(0, seriesOpposing(x)),
 });
+
+/** (L1 - M) + (L2 - M): exact differences near perfect coupling, no cancellation left; negative only when M > sqrt(L1 L2). */
+function seriesOpposing(x: { mutualInductance: number; inductance1: number; inductance2: number }): number {
+  return x.inductance1 - x.mutualInductance + (x.inductance2 - x.mutualInductance);
+}
 
 /**
  * Total inductance of two coupled inductors in parallel.
@@ -134,7 +197,12 @@ export const seriesInductance = /* @__PURE__ */ defineFormula({
  * coupled coils the limit L1 is returned.
  *
  * Reference: Alexander & Sadiku, Fundamentals of Electric Circuits, 5th ed. (2013),
- * ch. 13 (coupled inductors); derived from the two mesh equations.
+ * ch. 13 (coupled inductors) (from memory); derived from the two mesh equations.
+ * Scaled (exact mantissa products) for extreme magnitudes: every representable
+ * result to a few ulp, `out_of_range` beyond the double range or below the
+ * smallest normal double. If M exceeds sqrt(L1 L2) within the coupling
+ * relation's rounding tolerance, the pair is taken as perfectly coupled with a
+ * `coupling_clamped` warning.
  *
  * @example
  * parallelInductance({ inductance1: quantity(10, "uH"), inductance2: quantity(10, "uH"), mutualInductance: 0 }); // 5 µH
@@ -148,13 +216,34 @@ export const parallelInductance = /* @__PURE__ */ defineFormula({
   inputs: COUPLED_PAIR,
   output: { dimension: "Inductance", description: "Total inductance" },
   relations: [COUPLING_RELATION],
-  source: { ...CIRCUITS, locator: "ch. 13 (coupled inductors)" },
+  validity: [
+    {
+      code: "coupling_clamped",
+      when: (x) => couplingExcess(x) > 0 && detScaled(x.inductance1, x.inductance2, x.mutualInductance).v < 0,
+      measure: (x) => couplingExcess(x),
+      message: (x) => clampedMessage(x),
+    },
+  ],
+  source: { ...CIRCUITS, locator: "ch. 13 (coupled inductors) (from memory)" },
   compute: (x) => {
+    const L1 = x.inductance1;
+    const L2 = x.inductance2;
     const M = x.mutualInductance;
-    const det = Math.max(0, detInductance(x.inductance1, x.inductance2, M)); // L1 L2 - M^2
-    if (x.connection === "opposing") return det / (x.inductance1 + x.inductance2 + 2 * M);
-    const den = x.inductance1 - M + (x.inductance2 - M); // L1 + L2 - 2M, exact differences
-    if (den <= 0) return x.inductance1; // equal coils, perfect coupling: they act as one
-    return det / den;
+    if (moderate(L1) && moderate(L2) && (M === 0 || moderate(M))) {
+      // Products of moderate magnitudes and their rounding errors stay normal: twoProduct is exact.
+      const det = Math.max(0, detInductance(L1, L2, M)); // L1 L2 - M^2
+      if (x.connection === "opposing") return det / (L1 + L2 + 2 * M);
+      const den = L1 - M + (L2 - M); // L1 + L2 - 2M, exact differences
+      if (den <= 0) return L1; // equal coils, perfect coupling: they act as one
+      return det / den;
+    }
+    const { v, exp } = detScaled(L1, L2, M);
+    const den =
+      x.connection === "opposing"
+        ? Scaled.of(L1).plus(Scaled.of(L2)).plus(Scaled.of(M).times(2))
+        : sumScaled(L1 - M, L2 - M); // differences of positives never overflow
+    if (den.m === 0) return L1; // as above: equal coils, perfect coupling
+    if (v <= 0) return 0; // perfect coupling (or M above sqrt(L1 L2), with a warning)
+    return Scaled.of(v, exp).div(den).toNumber();
   },
 });

@@ -1,22 +1,41 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { POSITIVE } from "../core/spec.js";
+import { acoshRatio, exponentOf, ldexp, logRatio, moderate, ratio, scaledProduct } from "./shared.js";
+
+const MU0_OVER_2PI = MU0 / (2 * Math.PI);
+const MU0_OVER_PI = MU0 / Math.PI;
 
 const GROVER = { authors: "F. W. Grover", year: 1946, title: "Inductance Calculations: Working Formulas and Tables" } as const;
 
-/** acosh(1 + s) for s >= 0 built from the small part: log1p(s + sqrt(s (2 + s))); ln(2(1 + s)) once s is huge. */
-export function acosh1p(s: number): number {
-  if (s > 1e8) return Math.LN2 + Math.log1p(s); // acosh(x) = ln(2x) - 1/(4x^2) - ..., the rest is below 1e-17
-  return Math.log1p(s + Math.sqrt(s * (2 + s)));
-}
+/** 3 ln 2 - 7/4 = ln 8 - 7/4, to the last digit (loop inductance). */
+const LN8_MINUS_7_4 = 0.3294415416798359;
 
 /**
- * Rosa's partial self-inductance of a straight round wire (length l, radius r, SI),
+ * Rosa's partial self-inductance of a straight round wire (length l, radius r, SI):
+ *   (mu0 l/(2 pi)) [ asinh(l/r) - l/(sqrt(l^2 + r^2) + r) + 1/4 ],
  * written without cancellation: asinh(l/r) = ln((l + sqrt(l^2 + r^2))/r) and
- * r - sqrt(l^2 + r^2) = -l^2/(sqrt(l^2 + r^2) + r). Shared with the polyline solver.
+ * r - sqrt(l^2 + r^2) = -l^2/(sqrt(l^2 + r^2) + r). The bracket is at least 1/4
+ * and its first two terms never cancel badly (asinh t >= t/(sqrt(1+t^2)+1)).
+ * asinh(l/r) is ln 2 + ln(l/r) once l/r > 1e8 (the neglected 1/(4 t^2) is below
+ * 1e-17 of it), so l/r may overflow; the ratio in the middle term is formed with
+ * both lengths scaled to [1, 2) by one power of two, so its sum cannot
+ * overflow. Infinity (`out_of_range`) when the result leaves the normal range.
+ * Shared with the polyline solver.
  */
 export function wirePartialSelf(l: number, r: number): number {
-  return ((MU0 * l) / (2 * Math.PI)) * (Math.asinh(l / r) - l / (Math.hypot(l, r) + r) + 0.25);
+  const t = l / r;
+  const asinh = t > 1e8 ? Math.LN2 + logRatio(l, r) : Math.asinh(t);
+  let middle: number;
+  if (moderate(l) && moderate(r)) middle = l / (Math.hypot(l, r) + r);
+  else {
+    const s = -exponentOf(Math.max(l, r));
+    const ls = ldexp(l, s);
+    const rs = ldexp(r, s);
+    middle = ls / (Math.hypot(ls, rs) + rs);
+  }
+  const bracket = asinh - middle + 0.25;
+  return moderate(l) ? MU0_OVER_2PI * l * bracket : scaledProduct(MU0_OVER_2PI, l, bracket);
 }
 
 /**
@@ -27,10 +46,12 @@ export function wirePartialSelf(l: number, r: number): number {
  *
  * Counts only the field between the conductors: the high-frequency inductance
  * (current on the facing surfaces). At low frequency a solid inner conductor
- * adds mu0 l/(8 pi). Computed with log1p((b - a)/a) for thin gaps.
+ * adds mu0 l/(8 pi). Computed with log1p((b - a)/a) for thin gaps and ln b - ln a
+ * where b/a overflows; every representable result to a few ulp, `out_of_range`
+ * beyond the double range or below the smallest normal double.
  *
- * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (2017), sec. 7.2.3;
- * Grover (1946), coaxial lines.
+ * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (Pearson, 2013),
+ * ch. 7 (from memory).
  *
  * @example
  * coaxialInductance({ innerRadius: quantity(0.5, "mm"), outerRadius: quantity(1.75, "mm"), length: quantity(1, "m") }); // ≈ 251 nH
@@ -48,9 +69,13 @@ export const coaxialInductance = /* @__PURE__ */ defineFormula({
   ],
   output: { dimension: "Inductance", description: "External inductance" },
   relations: [{ rule: "innerRadius < outerRadius", holds: (x) => x.innerRadius < x.outerRadius }],
-  source: { authors: "D. J. Griffiths", year: 2017, title: "Introduction to Electrodynamics, 4th ed.", locator: "sec. 7.2.3 (inductance), coaxial cable" },
-  // log1p of the exact difference keeps b close to a accurate.
-  compute: (x) => (MU0 * x.length * Math.log1p((x.outerRadius - x.innerRadius) / x.innerRadius)) / (2 * Math.PI),
+  source: { authors: "D. J. Griffiths", year: 2013, title: "Introduction to Electrodynamics, 4th ed. (Pearson)", locator: "ch. 7, inductance of a coaxial cable (from memory)" },
+  // logRatio keeps b close to a accurate and never forms an overflowing b/a;
+  // the logarithm is in [1e-16, 1500], so only the length can need scaling.
+  compute: (x) => {
+    const ln = logRatio(x.outerRadius, x.innerRadius);
+    return moderate(x.length) ? MU0_OVER_2PI * x.length * ln : scaledProduct(MU0_OVER_2PI, x.length, ln);
+  },
 });
 
 /**
@@ -63,10 +88,13 @@ export const coaxialInductance = /* @__PURE__ */ defineFormula({
  * tends to (mu0 l/pi) ln(D/a) for D >> a. At low frequency each wire adds
  * mu0 l/(8 pi) of internal inductance. End effects are neglected (warning when
  * the line is shorter than 10 separations). acosh(1 + s), s = (D - 2a)/(2a), is
- * built from s so nearly touching wires keep full precision.
+ * built from s so nearly touching wires keep full precision; every representable
+ * result to a few ulp, `out_of_range` beyond the double range or below the
+ * smallest normal double.
  *
  * Reference: S. Ramo, J. R. Whinnery, T. Van Duzer, Fields and Waves in
- * Communication Electronics, 3rd ed. (1994), table of transmission-line parameters.
+ * Communication Electronics, 3rd ed. (1994), table of transmission-line parameters
+ * (from memory).
  *
  * @example
  * twoWireInductance({ wireRadius: quantity(0.5, "mm"), separation: quantity(5, "mm"), length: quantity(1, "m") }); // ≈ 917 nH
@@ -88,13 +116,18 @@ export const twoWireInductance = /* @__PURE__ */ defineFormula({
     {
       code: "end_effects",
       when: (x) => x.length < 10 * x.separation,
+      measure: (x) => ratio(10 * x.separation, x.length),
       message: (x) =>
         `length is only ${(x.length / x.separation).toPrecision(3)} separations: the per-length formula neglects end effects of order separation/length`,
     },
   ],
-  source: { authors: "S. Ramo, J. R. Whinnery, T. Van Duzer", year: 1994, title: "Fields and Waves in Communication Electronics, 3rd ed.", locator: "parallel-wire line parameters" },
-  // acosh(1 + s) from s = (D - 2a)/(2a), formed by an exact subtraction near touching.
-  compute: (x) => ((MU0 * x.length) / Math.PI) * acosh1p((x.separation - 2 * x.wireRadius) / (2 * x.wireRadius)),
+  source: { authors: "S. Ramo, J. R. Whinnery, T. Van Duzer", year: 1994, title: "Fields and Waves in Communication Electronics, 3rd ed.", locator: "parallel-wire line parameters (from memory)" },
+  // acoshRatio: acosh(1 + s) from the exact difference near touching, ln terms
+  // (no D^2) far apart; in [1e-8, 1500], so only the length can need scaling.
+  compute: (x) => {
+    const ach = acoshRatio(x.separation, 2 * x.wireRadius);
+    return moderate(x.length) ? MU0_OVER_PI * x.length * ach : scaledProduct(MU0_OVER_PI, x.length, ach);
+  },
 });
 
 /**
@@ -107,13 +140,17 @@ export const twoWireInductance = /* @__PURE__ */ defineFormula({
  * Computed as (mu0 l/(2 pi)) [ asinh(l/r) - l/(sqrt(l^2 + r^2) + r) + 1/4 ]: the
  * logarithm is asinh(l/r) (no ratio of nearly equal numbers) and r - sqrt(l^2 + r^2)
  * is rewritten as -l^2/(sqrt(l^2 + r^2) + r), which does not cancel for l << r.
+ * Scaled for extreme magnitudes (l/r up to 1e600 and beyond): every
+ * representable result to a few ulp, `out_of_range` beyond the double range or
+ * below the smallest normal double.
  *
  * Validity: uniform current (skin depth well above r); the radius enters as the
  * mutual-inductance distance, which assumes a long wire (warning for l < 10 r).
  * A partial inductance: only closed loops have a measurable inductance.
  *
  * Reference: E. B. Rosa, "The self and mutual inductances of linear conductors",
- * Bull. Bureau of Standards 4 (1908) 301-344; Grover (1946), straight conductors.
+ * Bull. Bureau of Standards 4 (1908) 301-344; Grover (1946), straight conductors
+ * (from memory).
  *
  * @example
  * straightWireInductance({ length: quantity(10, "cm"), radius: quantity(0.5, "mm") }); // ≈ 104 nH
@@ -133,11 +170,12 @@ export const straightWireInductance = /* @__PURE__ */ defineFormula({
     {
       code: "short_wire",
       when: (x) => x.length < 10 * x.radius,
+      measure: (x) => ratio(10 * x.radius, x.length),
       message: (x) =>
         `length is ${(x.length / x.radius).toPrecision(3)} radii: the formula takes the radius as the wire's own mean distance and the internal term l/4, both derived for a long wire`,
     },
   ],
-  source: { authors: "E. B. Rosa", year: 1908, title: "The self and mutual inductances of linear conductors, Bull. Bureau of Standards 4, 301-344", locator: "straight cylindrical wire" },
+  source: { authors: "E. B. Rosa", year: 1908, title: "The self and mutual inductances of linear conductors, Bull. Bureau of Standards 4, 301-344", locator: "straight cylindrical wire (volume, pages and formula from memory)" },
   compute: (x) => wirePartialSelf(x.length, x.radius),
 });
 
@@ -149,10 +187,13 @@ export const straightWireInductance = /* @__PURE__ */ defineFormula({
  * current (-7/4 = -2 + 1/4).
  *
  * Validity: thin wire; terms of order (a/R)^2 ln(8R/a) are neglected (warning
- * when a > R/10).
+ * when a > R/10). Computed as ln(R/a) + (ln 8 - 7/4), two positive terms (no
+ * 8R to overflow); every representable result to a few ulp, `out_of_range`
+ * beyond the double range or below the smallest normal double.
  *
  * Reference: Grover (1946), circular rings of round wire; E. B. Rosa and
- * F. W. Grover, Bull. Bureau of Standards 8 (1912), formulas for circular rings.
+ * F. W. Grover, Bull. Bureau of Standards 8 (1912), formulas for circular rings
+ * (from memory).
  *
  * @example
  * loopInductance({ loopRadius: quantity(5, "cm"), wireRadius: quantity(0.5, "mm") }); // ≈ 310 nH
@@ -173,10 +214,14 @@ export const loopInductance = /* @__PURE__ */ defineFormula({
     {
       code: "thick_wire",
       when: (x) => x.wireRadius > 0.1 * x.loopRadius,
+      measure: (x) => x.wireRadius / (0.1 * x.loopRadius),
       message: (x) =>
         `wireRadius/loopRadius = ${(x.wireRadius / x.loopRadius).toPrecision(3)}: the thin-ring formula neglects terms of order (a/R)^2 ln(8R/a), no longer small above 0.1`,
     },
   ],
-  source: { ...GROVER, locator: "circular ring of round wire" },
-  compute: (x) => MU0 * x.loopRadius * (Math.log((8 * x.loopRadius) / x.wireRadius) - 1.75),
+  source: { ...GROVER, locator: "circular ring of round wire (from memory)" },
+  compute: (x) => {
+    const bracket = logRatio(x.loopRadius, x.wireRadius) + LN8_MINUS_7_4; // ln(8R/a) - 7/4, in [0.33, 1500]
+    return moderate(x.loopRadius) ? MU0 * x.loopRadius * bracket : scaledProduct(MU0, x.loopRadius, bracket);
+  },
 });

@@ -1,6 +1,7 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { NON_NEGATIVE, POSITIVE, TURNS } from "../core/spec.js";
+import { Scaled, exponentOf, ldexp, moderate } from "./shared.js";
 
 const MOHAN = {
   authors: "S. S. Mohan, M. del Mar Hershenson, S. P. Boyd, T. H. Lee",
@@ -35,13 +36,28 @@ const SPIRAL_RELATIONS = [
 const SINGLE_TURN = {
   code: "single_turn",
   when: (x: { turns: number }) => x.turns < 2,
+  measure: (x: { turns: number }) => 2 / x.turns,
   message: "a single turn is not a spiral: the fitted expression does not apply; use loopInductance or the Neumann solver (mutualInductance, polylineSelfInductance)",
 } as const;
 
-/** Fill ratio rho = (dout - din)/(dout + din) and mean diameter (dout + din)/2. */
-function geometry(x: { outerDiameter: number; innerDiameter: number }): { rho: number; mean: number } {
-  const sum = x.outerDiameter + x.innerDiameter;
-  return { rho: (x.outerDiameter - x.innerDiameter) / sum, mean: sum / 2 };
+/**
+ * L = k n^2 d_avg g(rho) for a shape constant k and a dimensionless g of the
+ * fill ratio rho = (dout - din)/(dout + din), d_avg = (dout + din)/2. Plain
+ * while n and dout are moderate; otherwise both diameters are scaled by the
+ * power of two that brings dout into [1, 2) (exact: din may underflow only
+ * where it no longer changes the sum), and the product is scaled, so every
+ * representable result is returned to a few ulp and the rest is `out_of_range`.
+ */
+function spiral(k: number, n: number, dout: number, din: number, g: (rho: number) => number): number {
+  if (moderate(n) && moderate(dout)) {
+    const sum = dout + din;
+    return k * n * n * (sum / 2) * g((dout - din) / sum);
+  }
+  const s = -exponentOf(dout);
+  const o = ldexp(dout, s);
+  const i = ldexp(din, s);
+  const sum = o + i;
+  return Scaled.of(k).times(n).times(n).times(Scaled.of(sum / 2, -s)).times(g((o - i) / sum)).toNumber();
 }
 
 /**
@@ -59,7 +75,9 @@ function geometry(x: { outerDiameter: number; innerDiameter: number }): { rho: n
  * layer; the substrate and a ground plane are neglected.
  *
  * Reference: Mohan, Hershenson, Boyd & Lee, IEEE JSSC 34(10) (1999), current-sheet
- * approximation and its coefficient table.
+ * approximation and its coefficient table (coefficients from memory). Scaled for
+ * extreme magnitudes: every representable result to a few ulp, `out_of_range`
+ * beyond the double range or below the smallest normal double.
  *
  * @example
  * planarSpiralInductance({ turns: 5, outerDiameter: quantity(400, "um"), innerDiameter: quantity(200, "um"), shape: "square" }); // ≈ 11.4 nH
@@ -77,12 +95,11 @@ export const planarSpiralInductance = /* @__PURE__ */ defineFormula({
   output: { dimension: "Inductance", description: "Self-inductance" },
   relations: SPIRAL_RELATIONS,
   validity: [SINGLE_TURN],
-  source: { ...MOHAN, locator: "current-sheet expression and its coefficient table" },
+  source: { ...MOHAN, locator: "current-sheet expression and its coefficient table (coefficients from memory)" },
   compute: (x) => {
     const [c1, c2, c3, c4] = SHEET[x.shape];
-    const { rho, mean } = geometry(x);
-    // ln(c2/rho) as ln(c2) - ln(rho): rho may be tiny (thin ring) without loss.
-    return 0.5 * MU0 * x.turns * x.turns * mean * c1 * (Math.log(c2) - Math.log(rho) + c3 * rho + c4 * rho * rho);
+    // ln(c2/rho) as ln(c2) - ln(rho): rho may be tiny (thin ring) without loss; every term is positive (c2 > 1, rho <= 1).
+    return spiral(0.5 * MU0 * c1, x.turns, x.outerDiameter, x.innerDiameter, (rho) => Math.log(c2) - Math.log(rho) + c3 * rho + c4 * rho * rho);
   },
 });
 
@@ -101,13 +118,15 @@ export const planarSpiralInductance = /* @__PURE__ */ defineFormula({
  * spacing not exceeding three trace widths.
  *
  * Reference: Mohan, Hershenson, Boyd & Lee, IEEE JSSC 34(10) (1999), modified
- * Wheeler formula and its coefficient table.
+ * Wheeler formula and its coefficient table (coefficients from memory). Scaled for
+ * extreme magnitudes: every representable result to a few ulp, `out_of_range`
+ * beyond the double range or below the smallest normal double.
  *
  * @example
- * planarSpiralInductanceWheeler({ turns: 5, outerDiameter: quantity(400, "um"), innerDiameter: quantity(200, "um"), shape: "square" }); // ≈ 11.5 nH
+ * modifiedWheelerSpiralInductance({ turns: 5, outerDiameter: quantity(400, "um"), innerDiameter: quantity(200, "um"), shape: "square" }); // ≈ 11.5 nH
  */
-export const planarSpiralInductanceWheeler = /* @__PURE__ */ defineFormula({
-  id: "planarSpiralInductanceWheeler",
+export const modifiedWheelerSpiralInductance = /* @__PURE__ */ defineFormula({
+  id: "modifiedWheelerSpiralInductance",
   title: "Planar spiral inductance (modified Wheeler)",
   category: "inductance",
   description: "Inductance of a square, hexagonal or octagonal planar spiral from the modified Wheeler expression of Mohan et al. (1999); typical error 2-3 % for spacing up to three trace widths.",
@@ -119,10 +138,9 @@ export const planarSpiralInductanceWheeler = /* @__PURE__ */ defineFormula({
   output: { dimension: "Inductance", description: "Self-inductance" },
   relations: SPIRAL_RELATIONS,
   validity: [SINGLE_TURN],
-  source: { ...MOHAN, locator: "modified Wheeler expression and its coefficient table" },
+  source: { ...MOHAN, locator: "modified Wheeler expression and its coefficient table (coefficients from memory)" },
   compute: (x) => {
     const [k1, k2] = WHEELER[x.shape];
-    const { rho, mean } = geometry(x);
-    return (k1 * MU0 * x.turns * x.turns * mean) / (1 + k2 * rho);
+    return spiral(k1 * MU0, x.turns, x.outerDiameter, x.innerDiameter, (rho) => 1 / (1 + k2 * rho));
   },
 });

@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { MU0 } from "../../src/constants/si.js";
 import {
-  FormulaError, evaluate, inductorEnergy, parallelInductance, planarSpiralInductance, planarSpiralInductanceWheeler, seriesInductance,
+  FormulaError, evaluate, inductorEnergy, parallelInductance, planarSpiralInductance, modifiedWheelerSpiralInductance, seriesInductance,
   type Current, type Inductance, type Length,
 } from "../../src/index.js";
 import { expectClose, relativeError } from "../helpers/reference.js";
@@ -21,7 +21,7 @@ describe("planarSpiralInductance (Mohan et al. 1999)", () => {
       const rho = (dout - din) / (dout + din);
       const expected = ((MU0 * 36 * ((dout + din) / 2) * c1) / 2) * (Math.log(c2 / rho) + c3 * rho + c4 * rho * rho);
       expectClose(planarSpiralInductance({ turns: 6, outerDiameter: m(dout), innerDiameter: m(din), shape: shape as "square" }), {
-        input: shape, expected, tolerance: 1e-14, source: "Mohan et al. (1999) current-sheet expression, coefficients from memory",
+        input: shape, expected, tolerance: 1e-14, source: "Mohan et al. (1999) current-sheet expression re-evaluated with the coefficients from memory: a check of the implementation, not a published value",
       });
     }
   });
@@ -50,7 +50,7 @@ describe("planarSpiralInductance (Mohan et al. 1999)", () => {
         const dout = 300e-6;
         const din = (dout * (1 - rho)) / (1 + rho);
         const x = { turns: n, outerDiameter: m(dout), innerDiameter: m(din), shape };
-        expect(relativeError(planarSpiralInductance(x), planarSpiralInductanceWheeler(x))).toBeLessThan(0.1);
+        expect(relativeError(planarSpiralInductance(x), modifiedWheelerSpiralInductance(x))).toBeLessThan(0.1);
       }),
     );
   });
@@ -60,10 +60,10 @@ describe("planarSpiralInductance (Mohan et al. 1999)", () => {
       fc.property(fc.double({ min: 1e-3, max: 1e3, noNaN: true }), fc.double({ min: 0, max: 0.9, noNaN: true }), (s, t) => {
         const x = { turns: 4, outerDiameter: m(1e-3), innerDiameter: m(t * 1e-3), shape: "octagonal" as const };
         const L = planarSpiralInductance(x);
-        const Lw = planarSpiralInductanceWheeler(x);
+        const Lw = modifiedWheelerSpiralInductance(x);
         const y = { ...x, outerDiameter: m(s * 1e-3), innerDiameter: m(s * t * 1e-3) };
         expect(relativeError(planarSpiralInductance(y), s * L)).toBeLessThan(1e-13);
-        expect(relativeError(planarSpiralInductanceWheeler(y), s * Lw)).toBeLessThan(1e-13);
+        expect(relativeError(modifiedWheelerSpiralInductance(y), s * Lw)).toBeLessThan(1e-13);
         expect(relativeError(planarSpiralInductance({ ...x, turns: 8 }), 4 * L)).toBeLessThan(1e-15);
       }),
     );
@@ -74,7 +74,7 @@ describe("planarSpiralInductance (Mohan et al. 1999)", () => {
     const e1 = err(() => evaluate("planarSpiralInductance", { turns: 3, outerDiameter: "1 mm", innerDiameter: "0.5 mm", shape: "triangle" }));
     expect(e1.code).toBe("out_of_domain");
     expect(e1.input).toBe("shape");
-    const e2 = err(() => evaluate("planarSpiralInductanceWheeler", { turns: 3, outerDiameter: "1 mm", innerDiameter: "0.5 mm", shape: "circular" }));
+    const e2 = err(() => evaluate("modifiedWheelerSpiralInductance", { turns: 3, outerDiameter: "1 mm", innerDiameter: "0.5 mm", shape: "circular" }));
     expect(e2.input).toBe("shape");
     const e3 = err(() => evaluate("planarSpiralInductance", { turns: 3, outerDiameter: "1 mm", innerDiameter: "1 mm" }));
     expect(e3.rule).toBe("innerDiameter < outerDiameter");
@@ -83,13 +83,27 @@ describe("planarSpiralInductance (Mohan et al. 1999)", () => {
 });
 
 describe("inductorEnergy", () => {
-  it("is L I^2 / 2 and always carries the flyback and stored-energy cautions", () => {
+  it("is L I^2 / 2 for either sign of the current", () => {
     expect(inductorEnergy({ inductance: H(0.01), current: 5 as Current })).toBe(0.125);
     const r = evaluate("inductorEnergy", { inductance: "10 mH", current: "-5 A" });
     expect(r.value).toBeCloseTo(0.125, 15);
     expect(r.unit).toBe("J");
-    const codes = r.cautions.map((c) => c.code);
-    expect(codes).toEqual(expect.arrayContaining(["flyback_voltage", "stored_energy", "codes_govern"]));
+  });
+
+  it("cautions about stored energy from the 20 J hazardous energy level on, and not below", () => {
+    // 20 J: the hazardous energy level of IEC 60950-1:2005, 1.2.8.10 (from memory), as in src/core/hazards.ts.
+    const notes = (L: string, I: string) => evaluate("inductorEnergy", { inductance: L, current: I }).cautions;
+    expect(notes("10 mH", "5 A")).toEqual([]); // 0.125 J
+    expect(notes("1 nH", "1 mA")).toEqual([]); // 0.5 fJ: no caution on a signal inductor
+    expect(notes("0.4 H", "9.9 A").map((c) => c.code)).toEqual([]); // 19.6 J, just below
+    const big = notes("1 H", "10 A"); // 50 J
+    expect(big.map((c) => c.code)).toEqual(["stored_energy"]);
+    expect(big[0]!.message).toMatch(/50 J stored.*20 J.*IEC 60950-1.*Local codes, standards and licensed practice govern/);
+  });
+
+  it("reports the worst point of a bulk run by the stored energy (measure)", () => {
+    const caution = inductorEnergy.definition.cautions!.find((c) => c.code === "stored_energy")!;
+    expect(caution.measure!({ inductance: 1, current: 10 } as never, 50)).toBe(50);
   });
 });
 
@@ -138,6 +152,23 @@ describe("seriesInductance and parallelInductance", () => {
     );
     expect(parallelInductance({ inductance1: H(1e-5), inductance2: H(1e-5) })).toBeCloseTo(5e-6, 18);
     expect(parallelInductance({ inductance1: H(1e-5), inductance2: H(1e-5), mutualInductance: H(1e-5) })).toBe(1e-5);
+  });
+
+  it("warns when a coupling a hair above 1 (within the relation's rounding tolerance) is clamped to 0", () => {
+    // L1 = L2 = 1 uH, M = 1 uH (1 + 1e-13): k - 1 = 1e-13 passes the relation's 1e-12 tolerance,
+    // and both L1 + L2 - 2M and L1 L2 - M^2 come out negative.
+    // The perfectly coupled limits: series opposing 0; parallel aiding of equal coils L1, opposing 0.
+    const M = "1.0000000000001 uH";
+    const cases = [["seriesInductance", "opposing", 0], ["parallelInductance", "aiding", 1e-6], ["parallelInductance", "opposing", 0]] as const;
+    for (const [id, connection, limit] of cases) {
+      const r = evaluate(id, { inductance1: "1 uH", inductance2: "1 uH", mutualInductance: M, connection });
+      expect(r.value).toBeCloseTo(limit, 20);
+      expect(r.warnings.map((w) => w.code)).toEqual(["coupling_clamped"]);
+      expect(r.warnings[0]!.message).toMatch(/perfectly coupled/);
+    }
+    // No warning at perfect coupling or below it.
+    expect(evaluate("seriesInductance", { inductance1: "1 uH", inductance2: "1 uH", mutualInductance: "1 uH", connection: "opposing" }).warnings).toEqual([]);
+    expect(evaluate("parallelInductance", { inductance1: "1 uH", inductance2: "4 uH", mutualInductance: "1.9 uH" }).warnings).toEqual([]);
   });
 
   it("rejects a mutual inductance above sqrt(L1 L2)", () => {

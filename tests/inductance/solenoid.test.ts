@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { MU0 } from "../../src/constants/si.js";
 import {
-  FormulaError, evaluate, idealSolenoidInductance, multilayerCoilInductance, nagaokaCoefficient, solenoidInductance,
+  FormulaError, evaluate, longSolenoidInductance, multilayerCoilInductance, nagaokaCoefficient, solenoidInductance,
   wheelerSolenoidInductance, type Length,
 } from "../../src/index.js";
 import { coaxialSheetsMutual } from "../../src/inductance/mutual.js";
@@ -107,7 +107,7 @@ describe("solenoidInductance", () => {
     fc.assert(
       fc.property(fc.double({ min: 1e3, max: 1e9, noNaN: true }), (ratio) => {
         const x = { turns: 100, radius: m(0.01), length: m(0.01 * ratio) };
-        const err = relativeError(solenoidInductance(x), idealSolenoidInductance(x));
+        const err = relativeError(solenoidInductance(x), longSolenoidInductance(x));
         // 1 - K = 8r/(3 pi l) + O((r/l)^2): the gap shrinks as 0.85 r/l
         expect(err).toBeLessThan(0.86 / ratio);
         expect(err).toBeGreaterThan(0.84 / ratio);
@@ -135,24 +135,25 @@ describe("solenoidInductance", () => {
   });
 });
 
-describe("idealSolenoidInductance", () => {
+describe("longSolenoidInductance", () => {
   it("warns with the error in per cent when the coil is not long", () => {
-    const r = evaluate("idealSolenoidInductance", { turns: 100, radius: "1 cm", length: "2 cm" });
+    const r = evaluate("longSolenoidInductance", { turns: 100, radius: "1 cm", length: "2 cm" });
     const w = r.warnings.find((n) => n.code === "short_coil");
     expect(w).toBeDefined();
     // 1/K - 1 = 1/0.6884 - 1 = 45.3 %
     expect(w!.message).toContain("45.3 %");
-    expect(evaluate("idealSolenoidInductance", { turns: 100, radius: "1 cm", length: "1 m" }).warnings).toHaveLength(0);
+    expect(evaluate("longSolenoidInductance", { turns: 100, radius: "1 cm", length: "1 m" }).warnings).toHaveLength(0);
   });
 });
 
 describe("wheelerSolenoidInductance", () => {
-  it("is within Wheeler's stated 1 % of the exact current sheet for length > 0.8 radius", () => {
-    // Wheeler (1928): accurate to about 1 % for l > 0.8 r.
+  it("is within Wheeler's stated 1 % (0.6 % measured, as the doc comment says) of the exact current sheet for length > 0.8 radius", () => {
+    // Wheeler (1928): accurate to about 1 % for l > 0.8 r (from memory); the doc comment
+    // states 0.6 % measured against the current sheet, which this checks.
     fc.assert(
       fc.property(fc.double({ min: 0.8, max: 1e6, noNaN: true }), fc.integer({ min: 1, max: 1000 }), (ratio, N) => {
         const x = { turns: N, radius: m(0.01), length: m(0.01 * ratio) };
-        expect(relativeError(wheelerSolenoidInductance(x), solenoidInductance(x))).toBeLessThan(0.01);
+        expect(relativeError(wheelerSolenoidInductance(x), solenoidInductance(x))).toBeLessThan(0.006);
       }),
       { numRuns: 300 },
     );

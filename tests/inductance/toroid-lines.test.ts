@@ -2,7 +2,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import { EPSILON0, MU0 } from "../../src/constants/si.js";
 import {
-  circularToroidInductance, coaxialInductance, evaluate, loopInductance, straightWireInductance, toroidInductance,
+  FormulaError, circularToroidInductance, coaxialInductance, evaluate, loopInductance, straightWireInductance, toroidInductance,
   twoWireInductance, type Length,
 } from "../../src/index.js";
 import { maxwellMutual } from "../../src/inductance/shared.js";
@@ -179,5 +179,25 @@ describe("loopInductance", () => {
   it("warns for thick wire", () => {
     expect(evaluate("loopInductance", { loopRadius: 0.01, wireRadius: 0.002 }).warnings.map((w) => w.code)).toContain("thick_wire");
     expect(evaluate("loopInductance", { loopRadius: 0.01, wireRadius: 0.0002 }).warnings).toHaveLength(0);
+  });
+});
+
+describe("relative permeability of the toroid cores", () => {
+  it("takes any mu_r > 0 (the core spec of src/core/spec.ts), a diamagnetic core included, with no note", () => {
+    // Copper's mu_r = 0.999994 (from memory): the winding confines the flux whatever the material.
+    const r = evaluate("toroidInductance", { turns: 50, innerRadius: "1 cm", outerRadius: "2 cm", height: "1 cm", relativePermeability: 0.999994 });
+    expect(r.warnings).toEqual([]);
+    expect(r.cautions).toEqual([]);
+    expect(evaluate("circularToroidInductance", { turns: 50, majorRadius: "2 cm", minorRadius: "5 mm", relativePermeability: 2000 }).warnings).toEqual([]);
+    expect(() => evaluate("toroidInductance", { turns: 50, innerRadius: "1 cm", outerRadius: "2 cm", height: "1 cm", relativePermeability: 0 })).toThrow(FormulaError);
+  });
+});
+
+describe("notes at extreme shapes", () => {
+  it("longSolenoidInductance states a huge overestimate for a very flat coil as a factor, never NaN", () => {
+    const r = evaluate("longSolenoidInductance", { turns: 1, radius: 1, length: 1e-305 });
+    const w = r.warnings.find((n) => n.code === "short_coil")!;
+    expect(w.message).toMatch(/a factor of/);
+    expect(w.message).not.toMatch(/NaN|Infinity/);
   });
 });
