@@ -70,14 +70,41 @@ export class FormulaError extends Error {
   }
 }
 
+/**
+ * A value as quoted in a message. Messages never echo "Infinity", "NaN" or
+ * "undefined": those read as a program's internals, so they are said in words.
+ */
 function show(v: unknown): string {
   if (typeof v === "string") return JSON.stringify(v.length > 60 ? `${v.slice(0, 57)}...` : v);
-  if (typeof v === "number" || typeof v === "boolean" || v === null || v === undefined) return String(v);
+  if (typeof v === "number") {
+    if (v !== v) return "not a number";
+    if (v === Infinity) return "an infinite value";
+    if (v === -Infinity) return "a negative infinite value";
+    return String(v);
+  }
+  if (v === undefined) return "nothing";
+  if (typeof v === "boolean" || v === null) return String(v);
   if (Array.isArray(v)) return "an array";
   return `a value of type ${typeof v}`;
 }
 
+/**
+ * The last guard: a free-text field (detail, rule) built elsewhere may still
+ * quote a non-finite number through String(); say it in words instead.
+ */
+function words(text: string): string {
+  return text
+    .replace(/-Infinity\b/g, "a negative infinite value")
+    .replace(/\bInfinity\b/g, "an infinite value")
+    .replace(/\bNaN\b/g, "not a number")
+    .replace(/\bundefined\b/g, "nothing");
+}
+
 function buildMessage(code: ErrorCode, f: FormulaErrorFields): string {
+  return words(messageOf(code, f));
+}
+
+function messageOf(code: ErrorCode, f: FormulaErrorFields): string {
   const where = f.formula ? `${f.formula}: ` : "";
   const inp = f.input ? `input "${f.input}"` : "input";
   const tail = f.detail ? ` (${f.detail})` : "";

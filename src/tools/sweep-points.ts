@@ -91,7 +91,7 @@ function generatedLoop(formula: AnyFormula, nRelations: number, nComponents: num
   const hit = byAxes.get(key);
   if (hit !== undefined) return hit ?? undefined;
   const count = (n: number, f: (i: number) => string, sep = " "): string => Array.from({ length: n }, (_, i) => f(i)).join(sep);
-  // Axis values are finite (from, to and the spacing are), so only the bounds are tested.
+  // Axis values are finite (fillAxis keeps them between the finite ends), so only the bounds are tested.
   const inDomain = (v: string, d: Domain | undefined): string => ["true", ...domainBounds(v, d)].join(" && ");
   const relations = count(nRelations, (r) => ` && h${r}(o)`, "");
   // Same acceptance as Formula.run: a finite number, or an array of finite components.
