@@ -234,10 +234,9 @@ function axisPlan(id: string, name: string, spec: QuantityInput, a: SweepAxisSpe
 
 /**
  * The axis values. Every value lies between `from` and `to` and is finite for
- * any finite ends: linear values are weighted means from * (1 - t) + to * t
- * (never `to - from`, which overflows for ends of opposite sign near the
- * largest double), log values exp of weighted means of the logs, kept within
- * the ends (exp can round one ulp past an end at the largest double).
+ * any finite ends: linear values step from `from` (by half-steps when
+ * `to - from` overflows), log values are exp of evenly spaced logs,
+ * all kept within the ends.
  */
 function fillAxis(p: AxisPlan, values: Float64Array): SweepAxis {
   const { from, to, scale } = p;
@@ -245,7 +244,6 @@ function fillAxis(p: AxisPlan, values: Float64Array): SweepAxis {
   // Branches hoisted out of the loops: this runs once per grid value. A multiply
   // per value, not a divide: its rounding error is far below the spacing, and
   // both ends are set exactly below.
-  const inv = 1 / last;
   if (scale === "log") {
     // Log spacing by exp of interpolated logs (sign carried separately).
     const sign = Math.sign(from);
@@ -253,18 +251,23 @@ function fillAxis(p: AxisPlan, values: Float64Array): SweepAxis {
     const lb = Math.log(Math.abs(to));
     const small = Math.min(Math.abs(from), Math.abs(to));
     const large = Math.max(Math.abs(from), Math.abs(to));
-    for (let i = 1; i < last; i++) {
-      const t = i * inv;
-      values[i] = sign * Math.min(large, Math.max(small, Math.exp(la * (1 - t) + lb * t)));
-    }
+    const step = (lb - la) / last;
+    for (let i = 1; i < last; i++) values[i] = sign * Math.min(large, Math.max(small, Math.exp(la + i * step)));
   } else {
-    // Each term is at most its end in size; the clamp catches the one-ulp
-    // rounding past an end that two terms near the largest double can make.
+    // from + i * step, the spacing users expect (1..10 in 10 points gives
+    // whole numbers); when to - from overflows (ends of opposite sign near the
+    // largest double), half-steps added twice: from + i h is between from and
+    // the midpoint and adding i h again reaches at most to. The clamp catches
+    // the one-ulp rounding past an end.
     const lo = Math.min(from, to);
     const hi = Math.max(from, to);
-    for (let i = 1; i < last; i++) {
-      const t = i * inv;
-      values[i] = Math.min(hi, Math.max(lo, from * (1 - t) + to * t));
+    const span = to - from;
+    if (span - span === 0) {
+      const step = span / last;
+      for (let i = 1; i < last; i++) values[i] = Math.min(hi, Math.max(lo, from + i * step));
+    } else {
+      const half = (to / 2 - from / 2) / last;
+      for (let i = 1; i < last; i++) values[i] = Math.min(hi, Math.max(lo, from + i * half + i * half));
     }
   }
   values[0] = from;
