@@ -3,40 +3,11 @@
 // prepare, run and notes per point, no sweep machinery).
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { defineFormula, type AnyFormula } from "../../src/core/formula.js";
-import { POSITIVE } from "../../src/core/spec.js";
+import type { AnyFormula } from "../../src/core/formula.js";
 import { sweep, type SweepResult } from "../../src/tools/sweep.js";
 import { withoutCodeGeneration } from "../helpers/no-eval.js";
 import { isQuantity, specsOf, withExamples } from "../reliability/harness.js";
-
-// Test-only formulas: a scalar and a component output, each with a measured
-// warning, an always-on caution and a relation.
-const measured = defineFormula({
-  id: "testMeasuredNotes", title: "t", category: "test", description: "notes on purpose", equation: "y = a b",
-  inputs: [
-    { name: "a", dimension: "Length", description: "a", domain: POSITIVE, example: 1 },
-    { name: "b", dimension: "Length", description: "b", domain: POSITIVE, example: 1 },
-  ],
-  output: { dimension: "Area", description: "a b" },
-  relations: [{ rule: "a < 9", holds: (x) => x.a < 9 }],
-  validity: [{ code: "large", when: (_x, v) => (v as number) > 10, measure: (_x, v) => v as number, message: (_x, v) => `y is ${v as number}` }],
-  cautions: [{ code: "always_here", message: "always" }],
-  source: { authors: "common practice", title: "test" },
-  compute: (x) => x.a * x.b,
-});
-
-const measuredVector = defineFormula({
-  id: "testMeasuredVector", title: "t", category: "test", description: "notes on purpose", equation: "y = (a b, -a b)",
-  inputs: [
-    { name: "a", dimension: "Length", description: "a", domain: POSITIVE, example: 1 },
-    { name: "b", dimension: "Length", description: "b", domain: POSITIVE, example: 1 },
-  ],
-  output: { dimension: "Area", description: "a b", components: ["plus", "minus"] },
-  // Measured on the second component: the note pass must hand every component over.
-  validity: [{ code: "deep", when: (_x, v) => (v as number[])[1]! < -10, measure: (_x, v) => -(v as number[])[1]!, message: (_x, v) => `minus is ${(v as number[])[1]}` }],
-  source: { authors: "common practice", title: "test" },
-  compute: (x) => [x.a * x.b, -x.a * x.b],
-});
+import { measured, measuredVector } from "./note-fixtures.js";
 
 /** Counts, worst measure and first index per code, from formula.notes point by point over a sweep's grid. */
 function pointByPoint(f: AnyFormula, r: SweepResult, fixed: Record<string, unknown>) {
