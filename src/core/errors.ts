@@ -1,3 +1,5 @@
+import { inWords } from "./format.js";
+
 /**
  * Stable error codes. These strings are public API: adding a code is a minor
  * change, renaming or removing one is a breaking change.
@@ -88,20 +90,9 @@ function show(v: unknown): string {
   return `a value of type ${typeof v}`;
 }
 
-/**
- * The last guard: a free-text field (detail, rule) built elsewhere may still
- * quote a non-finite number through String(); say it in words instead.
- */
-function words(text: string): string {
-  return text
-    .replace(/-Infinity\b/g, "a negative infinite value")
-    .replace(/\bInfinity\b/g, "an infinite value")
-    .replace(/\bNaN\b/g, "not a number")
-    .replace(/\bundefined\b/g, "nothing");
-}
-
 function buildMessage(code: ErrorCode, f: FormulaErrorFields): string {
-  return words(messageOf(code, f));
+  // The last guard: free text (detail, rule) built elsewhere may quote a non-finite number through String().
+  return inWords(messageOf(code, f));
 }
 
 function messageOf(code: ErrorCode, f: FormulaErrorFields): string {

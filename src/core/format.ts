@@ -40,6 +40,24 @@ export function formatNumber(v: number, significant = 2): string {
 }
 
 /**
+ * Text with any "Infinity", "-Infinity", "NaN" or "undefined" that a template
+ * string or String() put there said in words (as formatNumber says them).
+ * The last guard of every message: formula notes and error messages pass
+ * through it, so no message shows a program's internals even where its
+ * numbers were not formatted with formatNumber.
+ *
+ * @example
+ * inWords("flux density Infinity mT"); // "flux density a value beyond the double range mT"
+ */
+export function inWords(text: string): string {
+  return text
+    .replace(/-Infinity\b/g, `minus ${BEYOND_RANGE}`)
+    .replace(/\bInfinity\b/g, BEYOND_RANGE)
+    .replace(/\bNaN\b/g, NOT_A_NUMBER)
+    .replace(/\bundefined\b/g, "nothing");
+}
+
+/**
  * A ratio as a percentage: formatPercent(0.0123) is "1.2 %". A ratio whose
  * percentage would overflow (above 1.8e306) is written as a plain factor:
  * "1e307 times".

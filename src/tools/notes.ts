@@ -1,3 +1,4 @@
+import { inWords } from "../core/format.js";
 import type { AnyFormula } from "../core/formula.js";
 import type { Condition, InputSpecs, Note } from "../core/spec.js";
 
@@ -103,7 +104,7 @@ export class NoteCollector {
         x[n] = inputs[n];
       });
       const value = this.worstValue[c]!;
-      const message = typeof cond.message === "function" ? cond.message(x as never, value) : cond.message;
+      const message = inWords(typeof cond.message === "function" ? cond.message(x as never, value) : cond.message);
       const m = this.worstMeasure[c]!;
       out.push({
         code: cond.code,

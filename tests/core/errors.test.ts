@@ -19,7 +19,7 @@ describe("error messages", () => {
 
   it("put free text that quotes a non-finite number into words too", () => {
     const e = new FormulaError("out_of_range", { formula: "f", detail: "gap = Infinity, area = NaN, turns = -Infinity, shape = undefined" });
-    expect(e.message).toBe("f: the result is out of the representable range (gap = an infinite value, area = not a number, turns = a negative infinite value, shape = nothing)");
+    expect(e.message).toBe("f: the result is out of the representable range (gap = a value beyond the double range, area = not a number, turns = minus a value beyond the double range, shape = nothing)");
   });
 
   it("reach users without Infinity or NaN through evaluate", () => {
