@@ -1,7 +1,10 @@
 // Message formatting: readable numbers in warnings, never "1.0e+2".
 import { describe, expect, it } from "vitest";
 import fc from "fast-check";
+import { evaluate } from "../../src/core/evaluate.js";
 import { formatNumber, formatPercent, formatScaled } from "../../src/core/format.js";
+import { listFormulas } from "../../src/core/registry.js";
+import type { InputSpec } from "../../src/core/spec.js";
 
 describe("number formatting for messages", () => {
   it("round numbers print plainly and extremes in short exponent form", () => {
@@ -51,5 +54,30 @@ describe("non-finite values in messages", () => {
         expect(formatScaled(v, scale, "mT", "T")).not.toMatch(/Infinity|NaN/);
       }),
     );
+  });
+});
+
+describe("messages of every registry formula at extreme inputs", () => {
+  it("never show Infinity, NaN or undefined in a result's notes or an error (reported: wireField said \"Infinity mT\")", () => {
+    const extremes = [2.2e-308, 5e-324, 1e-300, 1e300, 1.7e308, -1.7e308];
+    const problems: string[] = [];
+    for (const f of listFormulas()) {
+      const specs = Object.entries(f.definition.inputs as Record<string, InputSpec>);
+      const ex: Record<string, unknown> = {};
+      for (const [n, s] of specs) ex[n] = s.example ?? s.default;
+      for (const [n, s] of specs) {
+        if ("choices" in s || s.vector) continue;
+        for (const v of extremes) {
+          let text: string;
+          try {
+            text = JSON.stringify(evaluate(f.id, { ...ex, [n]: v }));
+          } catch (e) {
+            text = (e as Error).message;
+          }
+          if (/Infinity|NaN|undefined/.test(text)) problems.push(`${f.id} ${n} = ${v}: ${text.slice(0, 160)}`);
+        }
+      }
+    }
+    expect(problems).toEqual([]);
   });
 });
