@@ -24,11 +24,15 @@ export type ToleranceSpec =
 export type ToleranceValue = QuantityValue | readonly QuantityValue[] | ToleranceSpec;
 
 export interface ToleranceOptions {
-  /** Monte Carlo samples (default 10000, at most 1e6; 0 skips the Monte Carlo). */
+  /** Monte Carlo samples: a whole number from 0 to 1e6 (default 10000; 0 skips the Monte Carlo). */
   readonly samples?: number;
-  /** Seed of the generator (default 1). Same seed, same samples. */
+  /** Seed of the generator, a whole number (default 1). Same seed, same samples. */
   readonly seed?: number;
-  /** Up to this many toleranced inputs every corner of the box is evaluated (default 12). */
+  /**
+   * Up to this many toleranced inputs every corner of the box is evaluated: a
+   * whole number from 0 to 16 (default 12; 2^16 corners at most); above it only
+   * the two corners the slopes point to.
+   */
   readonly maxCornerInputs?: number;
 }
 
@@ -170,13 +174,20 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
     varied.push(readTolerance(id, name, spec, raw, remarks));
   }
   const fixed = convertInputs(formula, plain);
-  const samples = Math.floor(options.samples ?? 10000);
-  if (!(samples >= 0 && samples <= 1e6)) {
-    throw new FormulaError("invalid_argument", { formula: id, input: "samples", value: options.samples, detail: "samples must be from 0 to 1000000" });
+  if (typeof options !== "object" || options === null || Array.isArray(options)) {
+    throw new FormulaError("invalid_argument", { formula: id, input: "options", detail: "options is an object { samples, seed, maxCornerInputs }" });
   }
-  const seed = options.seed ?? 1;
-  if (!Number.isInteger(seed)) throw new FormulaError("invalid_argument", { formula: id, input: "seed", value: seed, detail: "seed must be a whole number" });
-  const maxCorner = Math.min(16, Math.max(0, Math.floor(options.maxCornerInputs ?? 12)));
+  const whole = (name: "samples" | "seed" | "maxCornerInputs", fallback: number, min: number, max: number): number => {
+    const v = options[name] ?? fallback;
+    if (typeof v !== "number" || !Number.isInteger(v) || v < min || v > max) {
+      const limits = Number.isFinite(min) ? ` from ${min} to ${max}` : "";
+      throw new FormulaError("invalid_argument", { formula: id, input: name, value: typeof v === "number" ? v : undefined, detail: `${name} must be a whole number${limits}` });
+    }
+    return v;
+  };
+  const samples = whole("samples", 10000, 0, 1e6);
+  const seed = whole("seed", 1, -Infinity, Infinity);
+  const maxCorner = whole("maxCornerInputs", 12, 0, 16);
 
   // Nominal: the full checks, so a bad nominal input fails as in evaluate.
   const nominalInputs: Record<string, unknown> = { ...fixed };
