@@ -25,7 +25,35 @@ export interface NoteSummary {
 }
 
 type Value = number | readonly number[];
-type AnyCondition = Condition<InputSpecs>;
+export type AnyCondition = Condition<InputSpecs>;
+
+/**
+ * The conditions bulk tools check, in summary order (warnings first, then
+ * cautions, each in definition order), with their kinds. Warnings without
+ * `when` never apply (the rule of `formula.notes`), so they are left out.
+ */
+export function noteConditions(formula: AnyFormula): { conditions: AnyCondition[]; kinds: ("warning" | "caution")[] } {
+  const def = formula.definition;
+  const validity = ((def.validity ?? []) as readonly AnyCondition[]).filter((c) => c.when !== undefined);
+  const cautions = (def.cautions ?? []) as readonly AnyCondition[];
+  return {
+    conditions: [...validity, ...cautions],
+    kinds: [...validity.map(() => "warning" as const), ...cautions.map(() => "caution" as const)],
+  };
+}
+
+/**
+ * The summary of one condition from its count and worst point. `x` must hold
+ * the worst point's inputs (the message is built from it, then passed
+ * through inWords); `inputs` are the varied ones to report.
+ */
+export function noteSummary(
+  cond: AnyCondition, kind: "warning" | "caution", count: number, index: number, measure: number,
+  inputs: Record<string, number>, x: Readonly<Record<string, unknown>>, value: Value,
+): NoteSummary {
+  const message = inWords(typeof cond.message === "function" ? cond.message(x as never, value) : cond.message);
+  return { code: cond.code, kind, count, worst: { index, inputs, ...(cond.measure !== undefined && measure - measure === 0 ? { measure } : {}), message } };
+}
 
 /**
  * Gathers notes point by point without building messages: per point only the
@@ -40,25 +68,26 @@ export class NoteCollector {
   private readonly counts: number[];
   private readonly worstIndex: number[];
   private readonly worstMeasure: number[];
-  private readonly worstInputs: (number[] | undefined)[];
-  private readonly worstValue: (Value | undefined)[];
+  // Preallocated per condition and overwritten in place: on a monotonic grid
+  // every point can be a new worst, and an allocation per point would cost
+  // more than the conditions themselves.
+  private readonly worstInputs: Float64Array[];
+  private readonly worstScalar: Float64Array;
+  private readonly worstArray: number[][];
 
   /**
    * @param formula whose conditions are collected
    * @param names the varied inputs, whose values are recorded at the worst point
    */
   constructor(formula: AnyFormula, private readonly names: readonly string[]) {
-    const def = formula.definition;
-    const validity = (def.validity ?? []) as readonly AnyCondition[];
-    const cautions = (def.cautions ?? []) as readonly AnyCondition[];
-    this.conditions = [...validity.filter((c) => c.when !== undefined), ...cautions];
-    this.kinds = [...validity.filter((c) => c.when !== undefined).map(() => "warning" as const), ...cautions.map(() => "caution" as const)];
+    ({ conditions: this.conditions, kinds: this.kinds } = noteConditions(formula));
     const n = this.conditions.length;
     this.counts = new Array<number>(n).fill(0);
     this.worstIndex = new Array<number>(n).fill(-1);
     this.worstMeasure = new Array<number>(n).fill(-Infinity);
-    this.worstInputs = new Array<number[] | undefined>(n).fill(undefined);
-    this.worstValue = new Array<Value | undefined>(n).fill(undefined);
+    this.worstInputs = Array.from({ length: n }, () => new Float64Array(names.length));
+    this.worstScalar = new Float64Array(n);
+    this.worstArray = Array.from({ length: n }, () => []);
   }
 
   /** True when the formula has no conditions at all (nothing to collect). */
@@ -81,8 +110,14 @@ export class NoteCollector {
       if (this.worstIndex[c] === -1 || m > this.worstMeasure[c]!) {
         this.worstIndex[c] = index;
         if (m > this.worstMeasure[c]!) this.worstMeasure[c] = m;
-        this.worstInputs[c] = this.names.map((n) => x[n] as number);
-        this.worstValue[c] = typeof value === "number" ? value : [...value];
+        const inputs = this.worstInputs[c]!;
+        for (let i = 0; i < this.names.length; i++) inputs[i] = x[this.names[i]!] as number;
+        if (typeof value === "number") this.worstScalar[c] = value;
+        else {
+          const arr = this.worstArray[c]!;
+          arr.length = value.length;
+          for (let i = 0; i < value.length; i++) arr[i] = value[i]!;
+        }
       }
     }
   }
@@ -103,15 +138,8 @@ export class NoteCollector {
         inputs[n] = this.worstInputs[c]![i]!;
         x[n] = inputs[n];
       });
-      const value = this.worstValue[c]!;
-      const message = inWords(typeof cond.message === "function" ? cond.message(x as never, value) : cond.message);
-      const m = this.worstMeasure[c]!;
-      out.push({
-        code: cond.code,
-        kind: this.kinds[c]!,
-        count: this.counts[c]!,
-        worst: { index: this.worstIndex[c]!, inputs, ...(cond.measure !== undefined && m - m === 0 ? { measure: m } : {}), message },
-      });
+      const value: Value = this.worstArray[c]!.length > 0 ? this.worstArray[c]! : this.worstScalar[c]!;
+      out.push(noteSummary(cond, this.kinds[c]!, this.counts[c]!, this.worstIndex[c]!, this.worstMeasure[c]!, inputs, x, value));
     }
     this.names.forEach((n, i) => (x[n] = saved[i]));
     return out;

@@ -3,8 +3,8 @@ import type { AnyFormula, Formula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
 import type { InputSpecs, OutputSpec, QuantityInput } from "../core/spec.js";
 import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
-import { NoteCollector, type NoteSummary } from "./notes.js";
-import { computePoints, type Grid } from "./sweep-points.js";
+import { noteConditions, noteSummary, type NoteSummary } from "./notes.js";
+import { computePoints, scanNotes, type Grid } from "./sweep-points.js";
 import type { QuantityValue } from "./tolerance.js";
 
 /** One swept input: `points` values from `from` to `to`, evenly spaced or geometric. */
@@ -173,33 +173,27 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
 }
 
 /**
- * The notes of a computed grid: a second pass over the computed points, run
- * only when the formula has conditions, so the point loops stay as lean as
- * before (bench/sweep.ts measures them). One pass of at most n0 * n1 points.
+ * The notes of a computed grid: a second pass over the computed points
+ * (scanNotes), run only when the formula has conditions, so the point loops
+ * stay as lean as before (bench/sweep.ts measures them). Messages are built
+ * once per condition, at its worst point.
  */
 function gridNotes(formula: AnyFormula, g: Grid, name0: string, name1: string | undefined, failed: number): NoteSummary[] {
-  const names = name1 === undefined ? [name0] : [name0, name1];
-  const collector = new NoteCollector(formula, names);
+  const { conditions, kinds } = noteConditions(formula);
   const { o, v0, v1, values, components, computed } = g;
-  if (collector.empty || failed === computed.length) return [];
+  if (conditions.length === 0 || failed === computed.length) return [];
+  const scan = scanNotes(formula, g, name0, name1, conditions);
   const n1 = name1 === undefined ? 1 : v1.length;
-  const nc = components.length;
-  const point: number[] = new Array<number>(nc).fill(0);
-  const saved0 = o[name0];
-  const saved1 = name1 === undefined ? undefined : o[name1];
-  for (let k = 0; k < computed.length; k++) {
-    if (computed[k] !== 1) continue;
-    o[name0] = v0[(k / n1) | 0]!;
-    if (name1 !== undefined) o[name1] = v1[k % n1]!;
-    if (nc === 0) collector.add(k, o, values[k]!);
-    else {
-      for (let c = 0; c < nc; c++) point[c] = components[c]![k]!;
-      collector.add(k, o, point);
-    }
+  const out: NoteSummary[] = [];
+  for (let c = 0; c < conditions.length; c++) {
+    if (scan.counts[c] === 0) continue;
+    const k = scan.index[c]!;
+    const inputs: Record<string, number> = { [name0]: v0[(k / n1) | 0]! };
+    if (name1 !== undefined) inputs[name1] = v1[k % n1]!;
+    Object.assign(o, inputs);
+    const value = components.length === 0 ? values[k]! : components.map((arr) => arr[k]!);
+    out.push(noteSummary(conditions[c]!, kinds[c]!, scan.counts[c]!, k, scan.measure[c]!, inputs, o, value));
   }
-  const out = collector.summaries(o);
-  o[name0] = saved0;
-  if (name1 !== undefined) o[name1] = saved1;
   return out;
 }
 
