@@ -221,7 +221,8 @@ const scans = new WeakMap<AnyFormula, Map<string, Scan | null>>();
  * wins), or the first point for a condition without one. Only the worst
  * point's index is kept: its inputs and value are read back from the grid.
  * Generated per formula and swept inputs like the point loop (calls through
- * an array of conditions shared by all formulas ran about 6x slower);
+ * an array of conditions shared by all formulas ran about 5x slower: 67 ms
+ * against 13 ms for a 1M-point grid of parallelPlateCapacitance);
  * `generalScan` where code cannot be generated.
  */
 export function scanNotes(formula: AnyFormula, g: Grid, name0: string, name1: string | undefined, conditions: readonly ScanCondition[]): NoteScan {

@@ -4,7 +4,9 @@ import { defineFormula } from "../../src/core/formula.js";
 import { POSITIVE } from "../../src/core/spec.js";
 
 // A scalar output with a measured warning, an always-on caution and a relation.
-export const measured = defineFormula({
+// Factories: the sweep caches its generated loops per formula, so a test of the
+// fallback loops needs a formula no earlier sweep has seen.
+export const makeMeasured = () => defineFormula({
   id: "testMeasuredNotes", title: "t", category: "test", description: "notes on purpose", equation: "y = a b",
   inputs: [
     { name: "a", dimension: "Length", description: "a", domain: POSITIVE, example: 1 },
@@ -19,7 +21,7 @@ export const measured = defineFormula({
 });
 
 // A component output with a warning measured on its second component.
-export const measuredVector = defineFormula({
+export const makeMeasuredVector = () => defineFormula({
   id: "testMeasuredVector", title: "t", category: "test", description: "notes on purpose", equation: "y = (a b, -a b)",
   inputs: [
     { name: "a", dimension: "Length", description: "a", domain: POSITIVE, example: 1 },
@@ -32,3 +34,6 @@ export const measuredVector = defineFormula({
   compute: (x) => [x.a * x.b, -x.a * x.b],
 });
 
+
+export const measured = makeMeasured();
+export const measuredVector = makeMeasuredVector();

@@ -7,7 +7,7 @@ import type { AnyFormula } from "../../src/core/formula.js";
 import { sweep, type SweepResult } from "../../src/tools/sweep.js";
 import { withoutCodeGeneration } from "../helpers/no-eval.js";
 import { isQuantity, specsOf, withExamples } from "../reliability/harness.js";
-import { measured, measuredVector } from "./note-fixtures.js";
+import { makeMeasured, makeMeasuredVector, measured, measuredVector } from "./note-fixtures.js";
 
 /** Counts, worst measure and first index per code, from formula.notes point by point over a sweep's grid. */
 function pointByPoint(f: AnyFormula, r: SweepResult, fixed: Record<string, unknown>) {
@@ -68,9 +68,11 @@ describe("sweep results carry the notes found on the grid", () => {
 
   it("gives the same notes from the fallback loop (no code generation)", () => {
     const spec = { vary: { a: { from: 1, to: 10, points: 10 }, b: { from: 1, to: 5, points: 5 } } };
-    const fast = sweep(measured, spec);
-    const general = withoutCodeGeneration(() => sweep(measured, spec));
-    expect(general.notes).toEqual(fast.notes);
+    // A fresh formula: no generated loop or scan is cached for it yet.
+    const fresh = makeMeasured();
+    const general = withoutCodeGeneration(() => sweep(fresh, spec));
+    expect(general.notes).toEqual(sweep(measured, spec).notes);
+    expectAgree(fresh, general, {});
   });
 
   it("hands every output component to the conditions, on both loops", () => {
@@ -78,7 +80,8 @@ describe("sweep results carry the notes found on the grid", () => {
     const r = sweep(measuredVector, spec);
     expectAgree(measuredVector, r, { b: 3 });
     expect(r.notes[0]).toMatchObject({ code: "deep", count: 3, worst: { inputs: { a: 6 }, measure: 18 } });
-    expect(withoutCodeGeneration(() => sweep(measuredVector, spec)).notes).toEqual(r.notes);
+    const fresh = makeMeasuredVector();
+    expect(withoutCodeGeneration(() => sweep(fresh, spec)).notes).toEqual(r.notes);
   });
 
   it("gives an empty list when nothing on the grid raises a note", () => {
