@@ -5,8 +5,12 @@
  *   GET  /formulas/:id        one formula's metadata plus the JSON Schema of its inputs
  *   POST /evaluate            { formula, inputs }                  -> { id, value, unit, warnings, cautions }
  *   POST /solve               { formula, solveFor, target, inputs } -> { value, unit, exact?, outputAtValue, ... }
- *   POST /tolerance           { formula, inputs, options }         -> worst case, RSS, Monte Carlo, sensitivities
- *   POST /sweep               { formula, vary, fixed }             -> axes and output values (null = not computed)
+ *   POST /tolerance           { formula, inputs, options }         -> worst case, RSS, Monte Carlo, sensitivities, notes
+ *   POST /sweep               { formula, vary, fixed }             -> axes, output values (null = not computed), notes
+ *
+ * Every response with a result carries its notes: warnings and cautions at the
+ * result (evaluate, solve), and for sweeps and tolerance analyses each note
+ * found over the points with its count and worst point.
  *
  * Inputs are numbers in SI or unit strings ("0.2 mm"). Errors are
  * { error: { code, message, input } }: 400 unreadable JSON, 404 unknown route or
@@ -163,6 +167,7 @@ export function createHandler(options: HandlerOptions = {}): (req: IncomingMessa
           // NaN is not JSON: points not computed are null.
           output: { name: r.output.name, unit: r.output.unit, values: Array.from(r.output.values, (v, k) => (r.computed[k] ? v : null)) },
           notComputed: r.notComputed,
+          notes: r.notes,
         });
         return;
       }

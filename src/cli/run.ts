@@ -3,9 +3,11 @@ import { evaluate } from "../core/evaluate.js";
 import { getFormula, listFormulas } from "../core/registry.js";
 import type { InputSpec, Note } from "../core/spec.js";
 import { catalogEntry } from "../tools/catalog.js";
+import type { NoteSummary } from "../tools/notes.js";
 import { solveRequest } from "../tools/solve.js";
 import { sweepRequest, sweepToCsv, sweepToVegaLite } from "../tools/sweep.js";
 import { toleranceRequest } from "../tools/tolerance.js";
+import { DIMENSIONS } from "../units/dimensions.js";
 import { formatBoth, formatQuantity } from "../units/display.js";
 
 /** Where the command line writes. */
@@ -36,11 +38,12 @@ Options:
   --range lo..hi    solve: search only this range of the input, e.g. --range "0 V..1 kV"
   --points N        points per swept input (default 11)
   --log             geometric spacing for sweeps
-  --csv             sweep as CSV
-  --chart           sweep as a Vega-Lite chart specification (JSON)
+  --csv             sweep as CSV (the notes found on the grid go to stderr)
+  --chart           sweep as a Vega-Lite chart specification (JSON; notes to stderr)
 
 Values are numbers in SI units or numbers with a unit ("0.2 mm", "4.7 uF").
-Warnings and cautions are printed with every result.`;
+Warnings and cautions are printed with every result; sweeps and tolerance
+analyses say how many points raised each one and where it was worst.`;
 
 interface Parsed {
   positional: string[];
@@ -91,6 +94,11 @@ function intFlag(p: Parsed, name: string): number | undefined {
 }
 
 /** A command-line value for an input: vectors as "[a, b, c]" or "a, b, c"; others as typed. */
+/** SI unit symbol of a quantity input ("" for choices and dimensionless). */
+function unitOf(spec: InputSpec | undefined): string {
+  return spec && !("choices" in spec) ? DIMENSIONS[spec.dimension].unit : "";
+}
+
 function inputValue(spec: InputSpec | undefined, text: string): unknown {
   if (spec && !("choices" in spec) && spec.vector) {
     return text.replace(/^\s*\[|\]\s*$/g, "").split(",").map((s) => s.trim());
@@ -131,6 +139,19 @@ function notesText(warnings: readonly Note[], cautions: readonly Note[]): string
     ...cautions.map((c) => `CAUTION [${c.code}]: ${c.message}`),
     ...warnings.map((w) => `warning [${w.code}]: ${w.message}`),
   ];
+}
+
+/**
+ * Note summaries of a sweep or tolerance analysis, one line each: the worst
+ * point's message, then how many points raised it and where the worst was.
+ */
+function summaryText(summaries: readonly NoteSummary[], over: number, units: Readonly<Record<string, string>>): string[] {
+  const ordered = [...summaries.filter((s) => s.kind === "caution"), ...summaries.filter((s) => s.kind === "warning")];
+  return ordered.map((s) => {
+    const at = Object.entries(s.worst.inputs).map(([k, v]) => `${k} = ${formatQuantity(v, units[k] ?? "")}`).join(", ");
+    const head = s.kind === "caution" ? `CAUTION [${s.code}]` : `warning [${s.code}]`;
+    return `${head}: ${s.worst.message} (at ${s.count} of ${over} points; ${s.worst.measure !== undefined ? "worst" : "first"} at ${at})`;
+  });
 }
 
 function need(p: Parsed, n: number, what: string): void {
@@ -306,7 +327,11 @@ function toleranceCommand(p: Parsed, io: CliIO, json: boolean): number {
     return 0;
   }
   const q = (v: number): string => formatQuantity(v, r.unit, 4);
-  const pct = (v: number): string => (r.nominal !== 0 ? ` (${(((v - r.nominal) / Math.abs(r.nominal)) * 100).toFixed(2)} %)` : "");
+  // v / |nominal| - sign(nominal): no difference of two huge values; left out if it overflows.
+  const pct = (v: number): string => {
+    const p = (v / Math.abs(r.nominal) - Math.sign(r.nominal)) * 100;
+    return r.nominal !== 0 && p - p === 0 ? ` (${p.toFixed(2)} %)` : "";
+  };
   const lines = [
     `nominal      ${q(r.nominal)}`,
     `worst case   ${q(r.worstCase.min)}${pct(r.worstCase.min)} to ${q(r.worstCase.max)}${pct(r.worstCase.max)}   [${r.worstCase.method}, ${r.worstCase.evaluated} evaluated]`,
@@ -325,7 +350,9 @@ function toleranceCommand(p: Parsed, io: CliIO, json: boolean): number {
     for (const s of r.sensitivities) lines.push(`  ${s.input.padEnd(24)} ${(100 * s.share).toFixed(1).padStart(5)} %   slope ${s.derivative.toPrecision(4)} ${s.derivativeUnit}`);
   }
   for (const m of r.remarks) lines.push(`note: ${m}`);
-  lines.push(...notesText(r.warnings, r.cautions));
+  const spec = getFormula(id).definition.inputs as Readonly<Record<string, InputSpec>>;
+  const units = Object.fromEntries(r.sensitivities.map((s) => [s.input, unitOf(spec[s.input])]));
+  lines.push(...summaryText(r.notes, r.notesOver, units));
   io.out(lines.join("\n"));
   return 0;
 }
@@ -344,12 +371,12 @@ function sweepCommand(p: Parsed, io: CliIO, json: boolean): number {
   }
   if (Object.keys(vary).length === 0) throw new UsageError('give one or two inputs as name=from..to, e.g. gap="0.1 mm..1 mm"');
   const r = sweepRequest({ formula: id, vary, fixed: inputsFrom(id, fixedPairs) });
-  if (p.flags.has("csv")) {
-    io.out(sweepToCsv(r).trimEnd());
-    return 0;
-  }
-  if (p.flags.has("chart")) {
-    io.out(JSON.stringify(sweepToVegaLite(r), null, 2));
+  const units = Object.fromEntries(r.axes.map((a) => [a.name, a.unit]));
+  const summary = summaryText(r.notes, r.computed.length - r.notComputed, units);
+  if (p.flags.has("csv") || p.flags.has("chart")) {
+    // The data stays data only; the notes go beside it, on stderr.
+    io.out(p.flags.has("csv") ? sweepToCsv(r).trimEnd() : JSON.stringify(sweepToVegaLite(r), null, 2));
+    if (summary.length) io.err(["notes found on the grid:", ...summary].join("\n"));
     return 0;
   }
   if (json) {
@@ -358,6 +385,7 @@ function sweepCommand(p: Parsed, io: CliIO, json: boolean): number {
       axes: r.axes.map((a) => ({ name: a.name, unit: a.unit, scale: a.scale, values: [...a.values] })),
       output: { name: r.output.name, unit: r.output.unit, values: [...r.output.values].map((v, k) => (r.computed[k] ? v : null)) },
       notComputed: r.notComputed,
+      notes: r.notes,
     }, null, 2));
     return 0;
   }
@@ -370,21 +398,8 @@ function sweepCommand(p: Parsed, io: CliIO, json: boolean): number {
     lines.push(row.join("\t"));
   }
   if (r.notComputed) lines.push(`note: ${r.notComputed} points not computed (outside a domain or breaking a relation)`);
-  // Warnings and cautions anywhere on the grid (each code once), so a hazard at one end is not missed.
-  const warnings = new Map<string, Note>();
-  const cautions = new Map<string, Note>();
-  const fixed = inputsFrom(id, fixedPairs);
-  const step = Math.max(1, Math.floor(r.output.values.length / 2000));
-  for (let k = 0; k < r.output.values.length; k += step) {
-    if (!r.computed[k]) continue;
-    const inputs = { ...fixed, [r.axes[0]!.name]: r.axes[0]!.values[Math.floor(k / n1)]! };
-    if (r.axes.length === 2) inputs[r.axes[1]!.name] = r.axes[1]!.values[k % n1]!;
-    const ev = evaluate(id, inputs);
-    for (const w of ev.warnings) if (!warnings.has(w.code)) warnings.set(w.code, w);
-    for (const c of ev.cautions) if (!cautions.has(c.code)) cautions.set(c.code, c);
-  }
-  const notes = notesText([...warnings.values()], [...cautions.values()]);
-  if (notes.length) lines.push("somewhere on the grid:", ...notes);
+  // Every note on the grid with its count and worst point, so a hazard at one end is not missed.
+  if (summary.length) lines.push("notes found on the grid:", ...summary);
   io.out(lines.join("\n"));
   return 0;
 }

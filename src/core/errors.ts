@@ -1,3 +1,5 @@
+import { inWords } from "./format.js";
+
 /**
  * Stable error codes. These strings are public API: adding a code is a minor
  * change, renaming or removing one is a breaking change.
@@ -70,14 +72,30 @@ export class FormulaError extends Error {
   }
 }
 
+/**
+ * A value as quoted in a message. Messages never echo "Infinity", "NaN" or
+ * "undefined": those read as a program's internals, so they are said in words.
+ */
 function show(v: unknown): string {
   if (typeof v === "string") return JSON.stringify(v.length > 60 ? `${v.slice(0, 57)}...` : v);
-  if (typeof v === "number" || typeof v === "boolean" || v === null || v === undefined) return String(v);
+  if (typeof v === "number") {
+    if (v !== v) return "not a number";
+    if (v === Infinity) return "an infinite value";
+    if (v === -Infinity) return "a negative infinite value";
+    return String(v);
+  }
+  if (v === undefined) return "nothing";
+  if (typeof v === "boolean" || v === null) return String(v);
   if (Array.isArray(v)) return "an array";
   return `a value of type ${typeof v}`;
 }
 
 function buildMessage(code: ErrorCode, f: FormulaErrorFields): string {
+  // The last guard: free text (detail, rule) built elsewhere may quote a non-finite number through String().
+  return inWords(messageOf(code, f));
+}
+
+function messageOf(code: ErrorCode, f: FormulaErrorFields): string {
   const where = f.formula ? `${f.formula}: ` : "";
   const inp = f.input ? `input "${f.input}"` : "input";
   const tail = f.detail ? ` (${f.detail})` : "";

@@ -3,17 +3,30 @@
  * the "1.0e+2" that `toPrecision` gives for round numbers.
  */
 
+/** What a message shows for a value past the largest double (never "Infinity"). */
+export const BEYOND_RANGE = "a value beyond the double range";
+/** What a message shows for NaN (never "NaN"). */
+export const NOT_A_NUMBER = "not a number";
+
 /**
  * A number with `significant` digits (default 2): plain notation between
  * 0.001 and 1e6 ("100", "2.5", "0.012"), exponent notation outside ("3.4e-7",
  * "1.2e9"). Trailing zeros after the point are dropped.
  *
+ * Messages never print "Infinity" or "NaN": a non-finite value is shown as
+ * words (BEYOND_RANGE, with "minus " before it when negative, or NOT_A_NUMBER).
+ * Words and not a thrown error, because a message is built while a result or
+ * an error is being reported, and failing there would hide the report.
+ *
  * @example
  * formatNumber(100); // "100"
  * formatNumber(0.000123456, 3); // "1.23e-4"
+ * formatNumber(Infinity); // "a value beyond the double range"
  */
 export function formatNumber(v: number, significant = 2): string {
-  if (!Number.isFinite(v)) return String(v);
+  if (v !== v) return NOT_A_NUMBER;
+  if (v === Infinity) return BEYOND_RANGE;
+  if (v === -Infinity) return `minus ${BEYOND_RANGE}`;
   if (v === 0) return "0";
   const digits = Math.min(21, Math.max(1, Math.round(significant)));
   // Round first: rounding may carry into the next decade (999.6 -> "1.0e+3"),
@@ -26,9 +39,49 @@ export function formatNumber(v: number, significant = 2): string {
   return `${stripZeros(m!)}e${Number(e)}`;
 }
 
-/** A ratio as a percentage: formatPercent(0.0123) is "1.2 %". */
+/**
+ * Text with any "Infinity", "-Infinity", "NaN" or "undefined" that a template
+ * string or String() put there said in words (as formatNumber says them).
+ * The last guard of every message: formula notes and error messages pass
+ * through it, so no message shows a program's internals even where its
+ * numbers were not formatted with formatNumber.
+ *
+ * @example
+ * inWords("flux density Infinity mT"); // "flux density a value beyond the double range mT"
+ */
+export function inWords(text: string): string {
+  return text
+    .replace(/-Infinity\b/g, `minus ${BEYOND_RANGE}`)
+    .replace(/\bInfinity\b/g, BEYOND_RANGE)
+    .replace(/\bNaN\b/g, NOT_A_NUMBER)
+    .replace(/\bundefined\b/g, "nothing");
+}
+
+/**
+ * A ratio as a percentage: formatPercent(0.0123) is "1.2 %". A ratio whose
+ * percentage would overflow (above 1.8e306) is written as a plain factor:
+ * "1e307 times".
+ */
 export function formatPercent(ratio: number, significant = 2): string {
-  return `${formatNumber(100 * ratio, significant)} %`;
+  const p = 100 * ratio;
+  if (p - p !== 0 && ratio - ratio === 0) return `${formatNumber(ratio, significant)} times`;
+  return `${formatNumber(p, significant)} %`;
+}
+
+/**
+ * A quantity in a scaled unit, `value * scale` followed by `unit` (b = 0.02 T
+ * with scale 1e3 and "mT" gives "20 mT"). When the scaled value would not be
+ * finite (b near the largest double), it is written in the base unit instead,
+ * so a message never shows an overflowed figure.
+ *
+ * @example
+ * formatScaled(0.02, 1e3, "mT", "T"); // "20 mT"
+ * formatScaled(1e307, 1e3, "mT", "T"); // "1e307 T"
+ */
+export function formatScaled(value: number, scale: number, unit: string, baseUnit: string, significant = 2): string {
+  const scaled = value * scale;
+  const [v, u] = scaled - scaled === 0 || value - value !== 0 ? [scaled, unit] : [value, baseUnit];
+  return u ? `${formatNumber(v, significant)} ${u}` : formatNumber(v, significant);
 }
 
 // Plain decimal notation of an already-rounded value in [1e-3, 1e6).

@@ -1,5 +1,6 @@
 import { inDomain } from "./domain.js";
 import { FormulaError } from "./errors.js";
+import { inWords } from "./format.js";
 import { buildFastPath, inputsClass } from "./fast-path.js";
 import type {
   ComputeInputs, ComputeOutput, Detailed, Domain, FormulaDeclaration, FormulaDefinition, FormulaInputs, FormulaOutput,
@@ -147,7 +148,8 @@ export function defineFormula<const L extends InputList, const O extends OutputS
       const out: Note[] = [];
       for (const c of list ?? []) {
         if (c.when ? c.when(x, value) : always) {
-          out.push({ code: c.code, message: typeof c.message === "function" ? c.message(x, value) : c.message });
+          // inWords: a message that quotes an overflowed number says so in words, never "Infinity".
+          out.push({ code: c.code, message: inWords(typeof c.message === "function" ? c.message(x, value) : c.message) });
         }
       }
       return out;

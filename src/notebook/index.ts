@@ -28,7 +28,14 @@ export const DISABLED_IN_EXPRESSIONS = [
  * formula is a function taking and returning mathjs Units, positional in the
  * definition's input order or as one object of named inputs, plus the trade's
  * units, plus `notes(name, ...same arguments)` returning the warnings and
- * cautions of a call. Inside expressions the functions of
+ * cautions of a call. A formula's result carries its notes: a Unit (or a
+ * matrix of components) whose `notes` property holds the warnings and
+ * cautions and whose text (`toString`, `format`, `math.format`) ends with one
+ * line per note, so a notebook that prints results shows them with no second
+ * call. Arithmetic on the result gives a plain Unit again (the notes belonged
+ * to the formula's value, not to what is computed from it). Dimensionless
+ * results stay plain numbers, which cannot carry notes: for those use
+ * `onNotes` or `notes(...)`. Inside expressions the functions of
  * DISABLED_IN_EXPRESSIONS throw; the returned object's own `evaluate` (saved
  * before they were disabled) is the one to call.
  *
@@ -65,8 +72,40 @@ export function createNotebookMath(options: NotebookOptions = {}): MathJsInstanc
 function call(math: MathJsInstance, f: AnyFormula, args: unknown[], options: NotebookOptions): unknown {
   const x = f.prepare(inputsFrom(math, f, args));
   const value = f.run(x);
-  if (options.onNotes) options.onNotes(f.id, f.notes(x, value));
-  return toUnits(math, f, value);
+  const notes = f.notes(x, value);
+  if (options.onNotes) options.onNotes(f.id, notes);
+  return withNotes(toUnits(math, f, value), notes);
+}
+
+/** One line per note, cautions first, as a notebook prints them under the value. */
+export function notesLines(notes: { readonly warnings: readonly Note[]; readonly cautions: readonly Note[] }): string[] {
+  return [
+    ...notes.cautions.map((c) => `CAUTION [${c.code}]: ${c.message}`),
+    ...notes.warnings.map((w) => `warning [${w.code}]: ${w.message}`),
+  ];
+}
+
+/**
+ * The result with its notes: a `notes` property (always, possibly empty) and,
+ * when there are notes, text that ends with them. Own, non-enumerable
+ * properties on this one object: mathjs's own code reads Units through their
+ * fields, so arithmetic and conversions are unaffected. A plain number is
+ * returned as it is.
+ */
+function withNotes(result: unknown, notes: { readonly warnings: readonly Note[]; readonly cautions: readonly Note[] }): unknown {
+  if (typeof result !== "object" || result === null) return result;
+  const copy = { warnings: notes.warnings.map((w) => ({ ...w })), cautions: notes.cautions.map((c) => ({ ...c })) };
+  Object.defineProperty(result, "notes", { value: copy, enumerable: false });
+  const lines = notesLines(copy);
+  if (lines.length === 0) return result;
+  const proto = Object.getPrototypeOf(result) as { format(o?: unknown): string; toString(): string };
+  const append = (text: string): string => [text, ...lines].join("\n");
+  // A Unit's toString goes through its format; a matrix's does not, so both are wrapped for matrices.
+  Object.defineProperty(result, "format", { value(this: unknown, o?: unknown) { return append(proto.format.call(this, o)); }, enumerable: false });
+  if (!isUnit(result)) {
+    Object.defineProperty(result, "toString", { value(this: unknown) { return append(proto.toString.call(this)); }, enumerable: false });
+  }
+  return result;
 }
 
 function isUnit(v: unknown): v is Unit {

@@ -2,6 +2,7 @@ import { FormulaError } from "../core/errors.js";
 import type { AnyFormula, Formula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
 import type { FormulaInputs, FormulaOutput, InputSpecs, Note, OutputSpec, QuantityInput } from "../core/spec.js";
+import { countLoop } from "../math/loop-count.js";
 import { brent, signChanges } from "../math/roots.js";
 import type { DimensionName } from "../units/dimensions.js";
 import type { DimensionTypes } from "../units/types.js";
@@ -16,18 +17,67 @@ export type SolvableInput<I extends InputSpecs> = {
 
 type InputQuantity<S> = S extends { readonly dimension: infer D extends DimensionName } ? DimensionTypes[D] : never;
 
-/** Options of the search. */
+/**
+ * Options of the search. Each is checked like an input: a value of the wrong
+ * type, outside its limits, or an option name not listed here is
+ * `invalid_argument` naming the option. With the limits below a search
+ * evaluates the formula at most 2 * ((300 + 6) * 100 + 1) + 5 = 61,207 times, and
+ * refines each sign change found with at most 200 Brent iterations.
+ */
 export interface SolveOptions {
   /**
-   * How far to search, in decades either side of the input's example value
-   * (default 12). The search widens one decade at a time and stops at the first
-   * width where the output crosses the target.
+   * How far to search, in decades either side of the input's example value:
+   * a whole number from 1 to 300 (default 12). The search widens one decade at
+   * a time and stops at the first width where the output crosses the target.
    */
   readonly decades?: number;
-  /** Samples per decade (default 8). */
+  /** Samples per decade: a whole number from 2 to 100 (default 8). */
   readonly samplesPerDecade?: number;
-  /** Search only within [lo, hi] (SI), still inside the input's domain. */
+  /** Search only within [lo, hi] (SI, finite, lo < hi), still inside the input's domain. */
   readonly range?: readonly [number, number];
+}
+
+/** Limits of the search options (see SolveOptions). */
+export const SOLVE_LIMITS = {
+  decades: { min: 1, max: 300, default: 12 },
+  samplesPerDecade: { min: 2, max: 100, default: 8 },
+  /** Brent iterations per sign change (R. P. Brent's procedure converges well before). */
+  refineIterations: 200,
+} as const;
+
+const OPTION_NAMES = new Set(["decades", "samplesPerDecade", "range"]);
+
+/** The options checked, with defaults filled; `range` already in SI numbers. */
+function checkOptions(id: string, options: unknown): { decades: number; perDecade: number; range: readonly [number, number] | undefined } {
+  if (options === undefined) options = {};
+  if (typeof options !== "object" || options === null || Array.isArray(options)) {
+    throw new FormulaError("invalid_argument", { formula: id, input: "options", value: options, detail: "options is an object { decades, samplesPerDecade, range }" });
+  }
+  const o = options as Record<string, unknown>;
+  for (const k of Object.keys(o)) {
+    if (!OPTION_NAMES.has(k) && o[k] !== undefined) {
+      throw new FormulaError("invalid_argument", { formula: id, input: k, detail: "not a solve option; the options are decades, samplesPerDecade and range" });
+    }
+  }
+  const count = (name: "decades" | "samplesPerDecade"): number => {
+    const v = o[name];
+    const lim = SOLVE_LIMITS[name];
+    if (v === undefined) return lim.default;
+    if (typeof v !== "number" || !Number.isInteger(v) || v < lim.min || v > lim.max) {
+      throw new FormulaError("invalid_argument", { formula: id, input: name, value: typeof v === "number" ? v : undefined, detail: `${name} must be a whole number from ${lim.min} to ${lim.max}` });
+    }
+    return v;
+  };
+  let range: readonly [number, number] | undefined;
+  if (o.range !== undefined) {
+    const r = o.range;
+    if (!Array.isArray(r) || r.length !== 2 || typeof r[0] !== "number" || typeof r[1] !== "number" || r[0] - r[0] !== 0 || r[1] - r[1] !== 0) {
+      throw new FormulaError("invalid_argument", { formula: id, input: "range", detail: "range is [low, high]: two finite numbers in the solved input's SI unit" });
+    }
+    if (!(r[0] < r[1])) throw new FormulaError("invalid_argument", { formula: id, input: "range", detail: "range is [low, high] with low < high" });
+    range = [r[0], r[1]];
+  }
+  return { decades: count("decades"), perDecade: count("samplesPerDecade"), range };
 }
 
 /** Everything solve found. Values in SI. */
@@ -108,6 +158,9 @@ export function solveRequest(request: SolveRequest): SolveResult {
   const si = convertInputs(formula, inputs, [request.solveFor]);
   const target = readQuantity(formula.id, "target", formula.definition.output.dimension, request.target);
   const opts = request.options ?? {};
+  if (typeof opts !== "object" || opts === null || Array.isArray(opts)) {
+    throw new FormulaError("invalid_argument", { formula: formula.id, input: "options", detail: "options is an object { decades, samplesPerDecade, range }" });
+  }
   let range: [number, number] | undefined;
   if (opts.range !== undefined) {
     const spec = Object.hasOwn(specsOf(formula), request.solveFor) ? specsOf(formula)[request.solveFor] : undefined;
@@ -116,11 +169,12 @@ export function solveRequest(request: SolveRequest): SolveResult {
     }
     range = [readQuantity(formula.id, "range", spec.dimension, opts.range[0]), readQuantity(formula.id, "range", spec.dimension, opts.range[1])];
   }
-  return solveSI(formula, request.solveFor, target, si, { ...opts, ...(range ? { range } : { range: undefined }) } as SolveOptions);
+  return solveSI(formula, request.solveFor, target, si, { ...opts, ...(range ? { range } : {}) } as SolveOptions);
 }
 
-function solveSI(formula: AnyFormula, name: string, target: unknown, others: Record<string, unknown>, options: SolveOptions): SolveResult {
+function solveSI(formula: AnyFormula, name: string, target: unknown, others: Record<string, unknown>, rawOptions: unknown): SolveResult {
   const id = formula.id;
+  const options = checkOptions(id, rawOptions);
   const def = formula.definition;
   const specs = specsOf(formula);
   const spec = Object.hasOwn(specs, name) ? specs[name] : undefined;
@@ -140,9 +194,14 @@ function solveSI(formula: AnyFormula, name: string, target: unknown, others: Rec
   const start = startValue(spec);
   const binding = bind(formula, others, { [name]: start });
   const x = binding.x;
+  let lastOutput = NaN;
   const g = (v: number): number => {
     x[name] = v;
-    return binding.scalar() - target;
+    lastOutput = binding.scalar();
+    // Output and target of opposite signs near the largest double: the
+    // difference overflows. Its sign is what the search needs; keep it finite.
+    const r = lastOutput - target;
+    return r === Infinity ? Number.MAX_VALUE : r === -Infinity ? -Number.MAX_VALUE : r;
   };
 
   const grid = searchGrid(spec, start, options);
@@ -157,17 +216,22 @@ function solveSI(formula: AnyFormula, name: string, target: unknown, others: Rec
   let hi = grid.center;
   let minSeen = Infinity;
   let maxSeen = -Infinity;
+  // Bound: each grid point is evaluated once (done[]), at most 61,207 points
+  // (SOLVE_LIMITS); the grid has one point per sample offset, the start,
+  // the domain's ends and the range's ends.
+  let evaluations = 0;
   for (const ring of grid.rings) {
     lo = ring[0];
     hi = ring[1];
     for (let i = lo; i <= hi; i++) {
       if (done[i]) continue;
       done[i] = 1;
+      evaluations++;
       const r = g(samplesX[i]!);
       samplesF[i] = r;
       if (r === r) {
-        minSeen = Math.min(minSeen, r + target);
-        maxSeen = Math.max(maxSeen, r + target);
+        minSeen = Math.min(minSeen, lastOutput);
+        maxSeen = Math.max(maxSeen, lastOutput);
       }
     }
     searched = [samplesX[lo]!, samplesX[hi]!];
@@ -191,6 +255,7 @@ function solveSI(formula: AnyFormula, name: string, target: unknown, others: Rec
     }
     if (roots.length > 0 || flat.length > 0) break;
   }
+  countLoop(evaluations);
 
   const unit = siUnit(spec.dimension);
   const outputUnit = siUnit(def.output.dimension);
@@ -259,10 +324,18 @@ function refine(g: (v: number) => number, b: { lo: number; hi: number; flo: numb
     return r;
   };
   let res;
+  let calls = 0;
+  const counted = (u: number): number => {
+    calls++;
+    return safe(u);
+  };
   try {
-    res = brent(safe, a, c, { xRelTol: 2 * Number.EPSILON, xAbsTol: log ? 1e-15 : 0 }, b.flo, b.fhi);
+    // Bound: at most SOLVE_LIMITS.refineIterations iterations, one evaluation each.
+    res = brent(counted, a, c, { xRelTol: 2 * Number.EPSILON, xAbsTol: log ? 1e-15 : 0, maxIterations: SOLVE_LIMITS.refineIterations }, b.flo, b.fhi);
   } catch {
     return undefined;
+  } finally {
+    countLoop(calls);
   }
   const v = log ? Math.exp(res.x) : res.x;
   // A sign change across a jump converges to the jump, not a root: the residual stays large.
@@ -285,13 +358,9 @@ interface Grid {
  * domain is positive, otherwise offsets start +- scale * 10^k on both sides.
  * Rings widen by one decade at a time; everything is clipped to the domain.
  */
-function searchGrid(spec: QuantityInput, start: number, options: SolveOptions): Grid {
-  const decades = Math.max(1, Math.min(300, Math.floor(options.decades ?? 12)));
-  const perDecade = Math.max(2, Math.min(100, Math.floor(options.samplesPerDecade ?? 8)));
+function searchGrid(spec: QuantityInput, start: number, options: ReturnType<typeof checkOptions>): Grid {
+  const { decades, perDecade } = options;
   const d = spec.domain;
-  if (options.range !== undefined && !(options.range[0] <= options.range[1])) {
-    throw new FormulaError("invalid_argument", { input: "range", detail: "range is [low, high] with low <= high" });
-  }
   const lower = Math.max(d?.min ?? -Infinity, options.range?.[0] ?? -Infinity);
   const upper = Math.min(d?.max ?? Infinity, options.range?.[1] ?? Infinity);
   if (!(lower <= upper)) {
@@ -352,13 +421,17 @@ function searchGrid(spec: QuantityInput, start: number, options: SolveOptions): 
   const maxLevel = uniq.reduce((m, p) => Math.max(m, p.level), 0);
   const rings: [number, number][] = [];
   // Ring k: the contiguous run of points around the centre whose level is <= k.
+  // Rings only grow, so each starts from the last: lo and hi each move at most
+  // points.length times in all, whatever the number of levels.
+  let lo = center;
+  let hi = center;
+  let steps = 0;
   for (let k = 1; k <= Math.max(1, maxLevel); k++) {
-    let lo = center;
-    let hi = center;
-    while (lo > 0 && uniq[lo - 1]!.level <= k) lo--;
-    while (hi < uniq.length - 1 && uniq[hi + 1]!.level <= k) hi++;
+    while (lo > 0 && uniq[lo - 1]!.level <= k) lo--, steps++;
+    while (hi < uniq.length - 1 && uniq[hi + 1]!.level <= k) hi++, steps++;
     const prev = rings[rings.length - 1];
     if (!prev || prev[0] !== lo || prev[1] !== hi) rings.push([lo, hi]);
   }
+  countLoop(steps);
   return { points, center, rings, log };
 }

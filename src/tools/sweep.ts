@@ -3,7 +3,8 @@ import type { AnyFormula, Formula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
 import type { InputSpecs, OutputSpec, QuantityInput } from "../core/spec.js";
 import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
-import { computePoints, type Grid } from "./sweep-points.js";
+import { noteConditions, noteSummary, type NoteSummary } from "./notes.js";
+import { computePoints, scanNotes, type Grid } from "./sweep-points.js";
 import type { QuantityValue } from "./tolerance.js";
 
 /** One swept input: `points` values from `from` to `to`, evenly spaced or geometric. */
@@ -55,6 +56,13 @@ export interface SweepResult {
   };
   readonly computed: Uint8Array;
   readonly notComputed: number;
+  /**
+   * The warnings and cautions raised anywhere on the grid, one entry per
+   * condition: kind, how many computed points raised it, and the worst point
+   * (largest measure; the first point for always-on cautions) with its inputs
+   * and message there. Warnings first, in definition order.
+   */
+  readonly notes: readonly NoteSummary[];
 }
 
 /**
@@ -147,6 +155,7 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
   const holds = relations.map((r) => r.holds) as ((x: unknown) => boolean)[];
   const grid: Grid = { o: x, compute, holds, v0, v1, values, components: componentArrays ?? [], computed };
   const failed = computePoints(formula, grid, [name0, dom0], name1 === undefined ? undefined : [name1, dom1]);
+  const notes = gridNotes(formula, grid, name0, name1, failed);
   return {
     formula: id,
     axes,
@@ -159,7 +168,33 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
     },
     computed,
     notComputed: failed,
+    notes,
   };
+}
+
+/**
+ * The notes of a computed grid: a second pass over the computed points
+ * (scanNotes), run only when the formula has conditions, so the point loops
+ * stay as lean as before (bench/sweep.ts measures them). Messages are built
+ * once per condition, at its worst point.
+ */
+function gridNotes(formula: AnyFormula, g: Grid, name0: string, name1: string | undefined, failed: number): NoteSummary[] {
+  const { conditions, kinds } = noteConditions(formula);
+  const { o, v0, v1, values, components, computed } = g;
+  if (conditions.length === 0 || failed === computed.length) return [];
+  const scan = scanNotes(formula, g, name0, name1, conditions);
+  const n1 = name1 === undefined ? 1 : v1.length;
+  const out: NoteSummary[] = [];
+  for (let c = 0; c < conditions.length; c++) {
+    if (scan.counts[c] === 0) continue;
+    const k = scan.index[c]!;
+    const inputs: Record<string, number> = { [name0]: v0[(k / n1) | 0]! };
+    if (name1 !== undefined) inputs[name1] = v1[k % n1]!;
+    Object.assign(o, inputs);
+    const value = components.length === 0 ? values[k]! : components.map((arr) => arr[k]!);
+    out.push(noteSummary(conditions[c]!, kinds[c]!, scan.counts[c]!, k, scan.measure[c]!, inputs, o, value));
+  }
+  return out;
 }
 
 interface AxisPlan {
@@ -191,21 +226,43 @@ function axisPlan(id: string, name: string, spec: QuantityInput, a: SweepAxisSpe
   return { name, spec, from, to, points, scale };
 }
 
+/**
+ * The axis values. Every value lies between `from` and `to` and is finite for
+ * any finite ends: linear values step from `from` (by half-steps when
+ * `to - from` overflows), log values are exp of evenly spaced logs,
+ * all kept within the ends.
+ */
 function fillAxis(p: AxisPlan, values: Float64Array): SweepAxis {
   const { from, to, scale } = p;
   const last = p.points - 1;
   // Branches hoisted out of the loops: this runs once per grid value. A multiply
-  // per value, not a divide: the step's rounding error is far below the spacing,
-  // and both ends are set exactly below.
+  // per value, not a divide: its rounding error is far below the spacing, and
+  // both ends are set exactly below.
   if (scale === "log") {
     // Log spacing by exp of interpolated logs (sign carried separately).
     const sign = Math.sign(from);
     const la = Math.log(Math.abs(from));
-    const step = (Math.log(Math.abs(to)) - la) / last;
-    for (let i = 1; i < last; i++) values[i] = sign * Math.exp(la + i * step);
+    const lb = Math.log(Math.abs(to));
+    const small = Math.min(Math.abs(from), Math.abs(to));
+    const large = Math.max(Math.abs(from), Math.abs(to));
+    const step = (lb - la) / last;
+    for (let i = 1; i < last; i++) values[i] = sign * Math.min(large, Math.max(small, Math.exp(la + i * step)));
   } else {
-    const step = (to - from) / last;
-    for (let i = 1; i < last; i++) values[i] = from + i * step;
+    // from + i * step, the spacing users expect (1..10 in 10 points gives
+    // whole numbers); when to - from overflows (ends of opposite sign near the
+    // largest double), half-steps added twice: from + i h is between from and
+    // the midpoint and adding i h again reaches at most to. The clamp catches
+    // the one-ulp rounding past an end.
+    const lo = Math.min(from, to);
+    const hi = Math.max(from, to);
+    const span = to - from;
+    if (span - span === 0) {
+      const step = span / last;
+      for (let i = 1; i < last; i++) values[i] = Math.min(hi, Math.max(lo, from + i * step));
+    } else {
+      const half = (to / 2 - from / 2) / last;
+      for (let i = 1; i < last; i++) values[i] = Math.min(hi, Math.max(lo, from + i * half + i * half));
+    }
   }
   values[0] = from;
   if (last > 0) values[last] = to;

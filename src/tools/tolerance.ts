@@ -3,6 +3,7 @@ import type { AnyFormula, Formula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
 import type { InputSpecs, Note, OutputSpec, QuantityInput } from "../core/spec.js";
 import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
+import { NoteCollector, type NoteSummary } from "./notes.js";
 import { createRandom } from "./random.js";
 
 /** A value in SI, or a unit string ("0.2 mm"). */
@@ -23,11 +24,15 @@ export type ToleranceSpec =
 export type ToleranceValue = QuantityValue | readonly QuantityValue[] | ToleranceSpec;
 
 export interface ToleranceOptions {
-  /** Monte Carlo samples (default 10000, at most 1e6; 0 skips the Monte Carlo). */
+  /** Monte Carlo samples: a whole number from 0 to 1e6 (default 10000; 0 skips the Monte Carlo). */
   readonly samples?: number;
-  /** Seed of the generator (default 1). Same seed, same samples. */
+  /** Seed of the generator, a whole number (default 1). Same seed, same samples. */
   readonly seed?: number;
-  /** Up to this many toleranced inputs every corner of the box is evaluated (default 12). */
+  /**
+   * Up to this many toleranced inputs every corner of the box is evaluated: a
+   * whole number from 0 to 16 (default 12; 2^16 corners at most); above it only
+   * the two corners the slopes point to.
+   */
   readonly maxCornerInputs?: number;
 }
 
@@ -84,9 +89,21 @@ export interface ToleranceResult {
   readonly sensitivities: readonly Sensitivity[];
   /** Remarks on the method: non-monotonic inputs, clipped bands, rejected corners. */
   readonly remarks: readonly string[];
-  /** Warnings and cautions at nominal and at any evaluated corner (deduplicated by code). */
+  /**
+   * Warnings and cautions over the sampled range, one per code: the text at
+   * nominal when the note applies there, else the text at its worst sample.
+   */
   readonly warnings: readonly Note[];
   readonly cautions: readonly Note[];
+  /**
+   * Every note raised over the sampled range with its count and worst sample.
+   * Samples are numbered in the order evaluated: 0 is the nominal, then the
+   * worst-case corners, then the band scans along each input (17 points per
+   * input), then the Monte Carlo samples (rejected ones keep their number).
+   */
+  readonly notes: readonly NoteSummary[];
+  /** How many samples were checked for notes (computed points only). */
+  readonly notesOver: number;
 }
 
 interface Varied {
@@ -157,22 +174,36 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
     varied.push(readTolerance(id, name, spec, raw, remarks));
   }
   const fixed = convertInputs(formula, plain);
-  const samples = Math.floor(options.samples ?? 10000);
-  if (!(samples >= 0 && samples <= 1e6)) {
-    throw new FormulaError("invalid_argument", { formula: id, input: "samples", value: options.samples, detail: "samples must be from 0 to 1000000" });
+  if (typeof options !== "object" || options === null || Array.isArray(options)) {
+    throw new FormulaError("invalid_argument", { formula: id, input: "options", detail: "options is an object { samples, seed, maxCornerInputs }" });
   }
-  const seed = options.seed ?? 1;
-  if (!Number.isInteger(seed)) throw new FormulaError("invalid_argument", { formula: id, input: "seed", value: seed, detail: "seed must be a whole number" });
-  const maxCorner = Math.min(16, Math.max(0, Math.floor(options.maxCornerInputs ?? 12)));
+  const whole = (name: "samples" | "seed" | "maxCornerInputs", fallback: number, min: number, max: number): number => {
+    const v = options[name] ?? fallback;
+    if (typeof v !== "number" || !Number.isInteger(v) || v < min || v > max) {
+      const limits = Number.isFinite(min) ? ` from ${min} to ${max}` : "";
+      throw new FormulaError("invalid_argument", { formula: id, input: name, value: typeof v === "number" ? v : undefined, detail: `${name} must be a whole number${limits}` });
+    }
+    return v;
+  };
+  const samples = whole("samples", 10000, 0, 1e6);
+  const seed = whole("seed", 1, -Infinity, Infinity);
+  const maxCorner = whole("maxCornerInputs", 12, 0, 16);
 
   // Nominal: the full checks, so a bad nominal input fails as in evaluate.
   const nominalInputs: Record<string, unknown> = { ...fixed };
   for (const v of varied) nominalInputs[v.name] = v.nominal;
   const prepared = formula.prepare(nominalInputs);
   const nominal = formula.run(prepared) as number;
-  const notes = formula.notes(prepared, nominal);
-  const warnings = new Map(notes.warnings.map((n) => [n.code, n]));
-  const cautions = new Map(notes.cautions.map((n) => [n.code, n]));
+  const atNominal = formula.notes(prepared, nominal);
+  const collector = new NoteCollector(formula, varied.map((v) => v.name));
+  let sampleIndex = 0;
+  let notesOver = 0;
+  const collect = (xs: Record<string, unknown>, value: number): void => {
+    collector.add(sampleIndex, xs, value);
+    notesOver++;
+  };
+  collect(prepared as Record<string, unknown>, nominal);
+  sampleIndex++;
 
   const probes: Record<string, number> = {};
   for (const v of varied) probes[v.name] = v.nominal;
@@ -196,15 +227,9 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
     if (d === undefined) remarks.push(`the slope with respect to ${v.name} could not be computed at nominal (a relation or the domain ends there); it is left out of the RSS`);
     return d ?? 0;
   });
-  let variance = 0;
-  let bandSquare = 0;
-  const contributions = varied.map((v, i) => {
-    const c = derivatives[i]! * v.sd;
-    variance += c * c;
-    const h = derivatives[i]! * (v.hi - v.lo) / 2;
-    bandSquare += h * h;
-    return c * c;
-  });
+  // Scaled sums of squares: slope * sd squared overflows from about 1e154.
+  const rssSd = scaledNorm(id, "the RSS standard deviation", derivatives, varied.map((v) => v.sd));
+  const rssBand = scaledNorm(id, "the RSS band", derivatives, varied.map((v) => v.hi / 2 - v.lo / 2));
   const sensitivities: Sensitivity[] = varied
     .map((v, i) => {
       const inUnit = siUnit(v.spec.dimension);
@@ -213,7 +238,7 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
         derivative: derivatives[i]!,
         derivativeUnit: `${outUnit || "1"}${inUnit ? `/${inUnit}` : ""}`,
         sd: v.sd,
-        share: variance > 0 ? contributions[i]! / variance : 0,
+        share: rssSd.shares[i]!,
       };
     })
     .sort((a, c) => c.share - a.share);
@@ -223,21 +248,18 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
   let max = nominal;
   let evaluated = 0;
   let rejected = 0;
-  const collectNotes = (value: number): void => {
-    const n = formula.notes(x as never, value as never);
-    for (const w of n.warnings) if (!warnings.has(w.code)) warnings.set(w.code, w);
-    for (const c of n.cautions) if (!cautions.has(c.code)) cautions.set(c.code, c);
-  };
   const visit = (): void => {
     const r = b.scalar();
     evaluated++;
     if (r !== r) {
       rejected++;
+      sampleIndex++;
       return;
     }
     if (r < min) min = r;
     if (r > max) max = r;
-    collectNotes(r);
+    collect(x, r);
+    sampleIndex++;
   };
   const endValue = (v: Varied, high: boolean): number => {
     const e = high ? v.hi : v.lo;
@@ -280,11 +302,13 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
     let dir = 0;
     let monotonic = true;
     let prev = NaN;
-    for (let k = 0; k <= steps; k++) {
-      let t = v.lo + ((v.hi - v.lo) * k) / steps;
+    for (let k = 0; k <= steps; k++, sampleIndex++) {
+      // A weighted mean of the band ends: hi - lo overflows for huge bands.
+      let t = v.lo * (1 - k / steps) + v.hi * (k / steps);
       if (v.spec.domain?.integer) t = Math.round(t);
       const r = at(v.name, t);
       if (r !== r) continue;
+      collect(x, r);
       if (r < min) min = r;
       if (r > max) max = r;
       if (prev === prev) {
@@ -309,35 +333,41 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
     const values = new Float64Array(samples);
     let accepted = 0;
     const n = varied.length;
-    for (let s = 0; s < samples; s++) {
+    for (let s = 0; s < samples; s++, sampleIndex++) {
       let ok = true;
       for (let i = 0; i < n; i++) {
         const v = varied[i]!;
-        let t = v.kind === "normal" ? v.nominal + v.sd * rng.normal() : v.lo + (v.hi - v.lo) * rng.next();
+        let t: number;
+        if (v.kind === "normal") t = v.nominal + v.sd * rng.normal();
+        else {
+          // A weighted mean of the band ends: hi - lo overflows for huge bands.
+          const u = rng.next();
+          t = v.lo * (1 - u) + v.hi * u;
+        }
         if (v.spec.domain?.integer) t = Math.round(t);
-        if (!inDomain(t, v.spec.domain)) ok = false;
+        // A normal sample can step past the largest double: not a value, rejected.
+        if (t - t !== 0 || !inDomain(t, v.spec.domain)) ok = false;
         x[v.name] = t;
       }
       if (!ok) continue;
       const r = b.scalar();
-      if (r === r) values[accepted++] = r;
+      if (r === r) {
+        values[accepted++] = r;
+        collect(x, r);
+      }
     }
     resetNominal();
     if (accepted === 0) {
       throw new FormulaError("invalid_argument", { formula: id, detail: "every Monte Carlo sample broke a relation or an input's domain; narrow the tolerances" });
     }
     const acc = values.subarray(0, accepted).sort();
-    let sum = 0;
-    for (let i = 0; i < accepted; i++) sum += acc[i]!;
-    const mean = sum / accepted;
-    let ss = 0;
-    for (let i = 0; i < accepted; i++) ss += (acc[i]! - mean) ** 2;
-    const sd = accepted > 1 ? Math.sqrt(ss / (accepted - 1)) : 0;
+    const { mean, sd } = scaledMoments(id, acc);
     const pct = (p: number): number => {
       const pos = (p / 100) * (accepted - 1);
       const i = Math.floor(pos);
       const f = pos - i;
-      return i + 1 < accepted ? acc[i]! * (1 - f) + acc[i + 1]! * f : acc[i]!;
+      // Between its neighbours (the clamp catches a one-ulp rounding past them).
+      return i + 1 < accepted ? Math.min(acc[i + 1]!, Math.max(acc[i]!, acc[i]! * (1 - f) + acc[i + 1]! * f)) : acc[i]!;
     };
     monteCarlo = {
       generator: "xoshiro128** seeded by splitmix32; bands uniform, normal inputs by Box-Muller",
@@ -357,14 +387,69 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
     }
   }
 
+  const notes = collector.summaries(x);
+  resetNominal();
+  // At nominal its own text; a code raised only elsewhere, the text at its worst sample.
+  const merge = (here: readonly Note[], kind: "warning" | "caution"): Note[] => {
+    const out = [...here];
+    for (const s of notes) if (s.kind === kind && !out.some((n) => n.code === s.code)) out.push({ code: s.code, message: s.worst.message });
+    return out;
+  };
   return {
     formula: id, unit: outUnit, nominal,
     worstCase: { min, max, method, evaluated, rejected },
-    rss: { sd: Math.sqrt(variance), plusMinus: Math.sqrt(bandSquare) },
+    rss: { sd: rssSd.norm, plusMinus: rssBand.norm },
     ...(monteCarlo ? { monteCarlo } : {}),
     sensitivities, remarks,
-    warnings: [...warnings.values()], cautions: [...cautions.values()],
+    warnings: merge(atNominal.warnings, "warning"), cautions: merge(atNominal.cautions, "caution"),
+    notes, notesOver,
   };
+}
+
+/**
+ * sqrt(sum (a_i b_i)^2) and each term's share of the sum, without forming a
+ * square that overflows or underflows: a is divided by its largest magnitude,
+ * the products by theirs, so every square lies in [0, 1] before summing.
+ * A norm past the largest double is out_of_range (naming `what`).
+ */
+function scaledNorm(id: string, what: string, a: readonly number[], b: readonly number[]): { norm: number; shares: number[] } {
+  const n = a.length;
+  let ma = 0;
+  for (let i = 0; i < n; i++) ma = Math.max(ma, Math.abs(a[i]!));
+  if (ma === 0) return { norm: 0, shares: new Array<number>(n).fill(0) };
+  const c = a.map((ai, i) => (Math.abs(ai) / ma) * Math.abs(b[i]!));
+  let mc = 0;
+  for (const ci of c) mc = Math.max(mc, ci);
+  if (mc === 0) return { norm: 0, shares: new Array<number>(n).fill(0) };
+  let q = 0;
+  for (const ci of c) q += (ci / mc) ** 2;
+  const norm = ma * (mc * Math.sqrt(q));
+  if (norm - norm !== 0) {
+    throw new FormulaError("out_of_range", { formula: id, detail: `${what} is beyond the double range` });
+  }
+  return { norm, shares: c.map((ci) => (ci / mc) ** 2 / q) };
+}
+
+/**
+ * Mean and sample standard deviation of sorted finite values, scaled by the
+ * largest magnitude so neither the sum nor the squares overflow: every scaled
+ * value lies in [-1, 1], deviations in [-2, 2]. A standard deviation past the
+ * largest double (values spread over both signs near it) is out_of_range.
+ */
+function scaledMoments(id: string, acc: Float64Array): { mean: number; sd: number } {
+  const n = acc.length;
+  const m = Math.max(Math.abs(acc[0]!), Math.abs(acc[n - 1]!));
+  if (m === 0) return { mean: 0, sd: 0 };
+  let sum = 0;
+  for (let i = 0; i < n; i++) sum += acc[i]! / m;
+  // The scaled mean lies in [-1, 1]; clamp it within the data as the true mean is.
+  const scaledMean = sum / n;
+  const mean = Math.min(acc[n - 1]!, Math.max(acc[0]!, scaledMean * m));
+  let ss = 0;
+  for (let i = 0; i < n; i++) ss += (acc[i]! / m - scaledMean) ** 2;
+  const sd = n > 1 ? m * Math.sqrt(ss / (n - 1)) : 0;
+  if (sd - sd !== 0) throw new FormulaError("out_of_range", { formula: id, detail: "the Monte Carlo standard deviation is beyond the double range" });
+  return { mean, sd };
 }
 
 function readTolerance(id: string, name: string, spec: QuantityInput, raw: Record<string, unknown>, remarks: string[]): Varied {
@@ -393,6 +478,7 @@ function readTolerance(id: string, name: string, spec: QuantityInput, raw: Recor
     lo = nominal - h;
     hi = nominal + h;
     sd = h / Math.sqrt(3);
+    if (h - h !== 0 || lo - lo !== 0 || hi - hi !== 0) throw bad("the band reaches beyond the double range (about 1.8e308)");
   } else if (raw.distribution === "normal" && keys === "distribution,mean,sd") {
     kind = "normal";
     nominal = q("mean", raw.mean);
@@ -400,12 +486,14 @@ function readTolerance(id: string, name: string, spec: QuantityInput, raw: Recor
     if (!(sd >= 0)) throw bad("sd must be >= 0");
     lo = nominal - 3 * sd;
     hi = nominal + 3 * sd;
+    if (lo - lo !== 0 || hi - hi !== 0) throw bad("mean +- 3 sd reaches beyond the double range (about 1.8e308)");
   } else if (raw.distribution === "uniform" && keys === "distribution,max,min") {
     lo = q("min", raw.min);
     hi = q("max", raw.max);
     if (!(lo <= hi)) throw bad("min must not exceed max");
-    nominal = (lo + hi) / 2;
-    sd = (hi - lo) / Math.sqrt(12);
+    // Halves first: lo + hi and hi - lo overflow for ends near the largest double.
+    nominal = lo / 2 + hi / 2;
+    sd = (hi / 2 - lo / 2) / Math.sqrt(3);
   } else {
     throw bad('a tolerance is { nominal, plusMinus }, { nominal, percent }, { distribution: "normal", mean, sd } or { distribution: "uniform", min, max }');
   }
@@ -429,7 +517,7 @@ function readTolerance(id: string, name: string, spec: QuantityInput, raw: Recor
  */
 function derivative(f: (t: number) => number, v: Varied, _id: string): number | undefined {
   const n = v.nominal;
-  const scale = Math.max(Math.abs(n), (v.hi - v.lo) / 2, 1e-300);
+  const scale = Math.max(Math.abs(n), v.hi / 2 - v.lo / 2, 1e-300);
   let h = 1e-3 * scale;
   const d = v.spec.domain;
   if (d?.min !== undefined) h = Math.min(h, 0.5 * (n - d.min) || h);
@@ -440,7 +528,13 @@ function derivative(f: (t: number) => number, v: Varied, _id: string): number | 
     let ok = true;
     for (let j = 0; j < levels; j++) {
       const hj = h / 2 ** j;
-      const r = (f(n + hj) - f(n - hj)) / (2 * hj);
+      // Near the largest double the probes themselves overflow: no slope from them.
+      if (n + hj - (n + hj) !== 0 || n - hj - (n - hj) !== 0) {
+        ok = false;
+        break;
+      }
+      // Halves before the difference: f(n + h) - f(n - h) overflows for outputs near the largest double.
+      const r = (0.5 * f(n + hj) - 0.5 * f(n - hj)) / hj;
       if (!Number.isFinite(r)) {
         ok = false;
         break;
@@ -451,8 +545,10 @@ function derivative(f: (t: number) => number, v: Varied, _id: string): number | 
     // Neville tableau: after k passes t[j] holds the O(h^(2k+2)) estimate.
     for (let k = 1; k < levels; k++) {
       const w = 4 ** k;
-      for (let j = 0; j < levels - k; j++) t[j] = (w * t[j + 1]! - t[j]!) / (w - 1);
+      // t1 + (t1 - t0) / (w - 1), not (w t1 - t0) / (w - 1): w t1 overflows first.
+      for (let j = 0; j < levels - k; j++) t[j] = t[j + 1]! + (t[j + 1]! - t[j]!) / (w - 1);
     }
+    if (t[0]! - t[0]! !== 0) continue;
     return t[0]!;
   }
   return undefined;

@@ -135,6 +135,37 @@ describe("the emquant command", () => {
     expect(chart.data.values).toHaveLength(11);
   });
 
+  it("keeps CSV and chart output data only and prints the grid's notes to stderr, with counts and the worst point", () => {
+    // gap / sqrt(area) from 1 % to 20 % on 1 cm^2: fringing at every point above 1 % (common practice threshold).
+    const csv = cli("sweep", "parallelPlateCapacitance", "gap=0.1 mm..2 mm", "area=1 cm^2", "--points", "5", "--csv");
+    expect(csv.out.trim().split("\n")).toHaveLength(6);
+    expect(csv.out).not.toMatch(/fringing/);
+    expect(csv.err).toMatch(/^notes found on the grid:\nwarning \[fringing\]: .* \(at \d of 5 points; (worst|first) at gap = /);
+    const chart = cli("sweep", "parallelPlateCapacitance", "gap=0.1 mm..2 mm", "area=1 cm^2", "--points", "5", "--chart");
+    expect(() => JSON.parse(chart.out)).not.toThrow();
+    expect(chart.err).toMatch(/warning \[fringing\]/);
+    const table = cli("sweep", "parallelPlateCapacitance", "gap=0.1 mm..2 mm", "area=1 cm^2", "--points", "5");
+    expect(table.out).toMatch(/notes found on the grid:\nwarning \[fringing\]: .* \(at \d of 5 points/);
+  });
+
+  it("includes the notes in sweep JSON and tolerance output", () => {
+    const j = JSON.parse(cli("sweep", "parallelPlateCapacitance", "gap=0.1 mm..2 mm", "area=1 cm^2", "--points", "5", "--json").out);
+    expect(j.notes[0]).toMatchObject({ code: "fringing", kind: "warning" });
+    expect(j.notes[0].count).toBeGreaterThan(0);
+    const t = cli("tolerance", "parallelPlateCapacitance", "area=1 cm^2", "gap=2 mm +- 50%", "--samples", "100");
+    expect(t.out).toMatch(/warning \[fringing\]: .* \(at 120 of 120 points; (worst|first) at gap = /);
+    const tj = JSON.parse(cli("tolerance", "parallelPlateCapacitance", "area=1 cm^2", "gap=2 mm +- 50%", "--samples", "100", "--json").out);
+    expect(tj.notes[0]).toMatchObject({ code: "fringing", count: 120 });
+  });
+
+  it("prints no Infinity or NaN for a sweep across the whole double range", () => {
+    for (const mode of [[], ["--csv"], ["--json"]]) {
+      const r = cli("sweep", "parallelPlateCapacitance", "gap=-1.7e308..1.7e308", "area=1e300", "--points", "5", ...mode);
+      expect(r.status).toBe(0);
+      expect(r.out + r.err).not.toMatch(/Infinity|NaN/);
+    }
+  });
+
   it("answers usage errors with status 2 and help with status 0", () => {
     expect(cli().status).toBe(2);
     expect(cli("help").status).toBe(0);

@@ -53,6 +53,19 @@ describe("the HTTP handler example over loopback", () => {
     expect(big.status).toBe(422);
   });
 
+  it("gives every response with a result its notes: evaluate, solve, tolerance and sweep", async () => {
+    // gap / sqrt(area) = 20 % on 1 cm^2 plates: the fringing warning applies (common practice threshold 1 %).
+    const e = await call("POST", "/evaluate", { formula: "parallelPlateCapacitance", inputs: { area: "1 cm^2", gap: "2 mm" } });
+    expect(e.json.warnings[0].code).toBe("fringing");
+    const s = await call("POST", "/solve", { formula: "parallelPlateCapacitance", solveFor: "gap", target: "0.4427 pF", inputs: { area: "1 cm^2" } });
+    expect(s.json.warnings[0].code).toBe("fringing");
+    const t = await call("POST", "/tolerance", { formula: "parallelPlateCapacitance", inputs: { area: "1 cm^2", gap: { nominal: "2 mm", percent: 5 } }, options: { samples: 100 } });
+    expect(t.json.notes[0]).toMatchObject({ code: "fringing", kind: "warning", count: t.json.notesOver });
+    const w = await call("POST", "/sweep", { formula: "parallelPlateCapacitance", vary: { gap: { from: "0.01 mm", to: "2 mm", points: 5 } }, fixed: { area: "1 cm^2" } });
+    expect(w.json.notes[0]).toMatchObject({ code: "fringing", kind: "warning", count: 4 });
+    expect(w.json.notes[0].worst.message).toMatch(/fringing/);
+  });
+
   it("lists formulas and serves one with its input schema", async () => {
     const all = await call("GET", "/formulas");
     expect(all.status).toBe(200);

@@ -69,6 +69,21 @@ describe("the notebook mathjs instance", () => {
     expect(math.evaluate("to(10 G, mT)").toNumber("mT")).toBeCloseTo(1, 12);
   });
 
+  it("shows a result's warnings and cautions with its value, no second call needed", () => {
+    // gap / sqrt(area) = 20 %: fringing applies (common practice threshold 1 %).
+    const c = math.evaluate("parallelPlateCapacitance(1 cm^2, 2 mm)");
+    expect(c.notes.warnings.map((n: Note) => n.code)).toEqual(["fringing"]);
+    expect(c.toString()).toMatch(/^442\.70939094 fF\nwarning \[fringing\]: gap is 20 % of the plate size/);
+    expect(math.format(c)).toBe(c.toString());
+    // A value without notes prints as before; arithmetic on a result gives a plain value.
+    expect(math.evaluate("parallelPlateCapacitance(1 cm^2, 0.1 mm)").toString()).toBe("8.8541878188 pF");
+    expect(math.evaluate("parallelPlateCapacitance(1 cm^2, 2 mm) * 2").toString()).not.toMatch(/fringing/);
+    // A component output (a matrix) prints its cautions too: 1 kA in a 1 mm loop, mu0 I / 2R = 0.63 T at the centre.
+    const b = math.evaluate("loopField(1 kA, 1 mm, 0 m, 0 m)");
+    expect(String(b)).toMatch(/CAUTION \[strong_field\]/);
+    expect(b.notes.cautions[0].code).toBe("strong_field");
+  });
+
   it("is a new instance: the global mathjs keeps its functions and gains no formulas", () => {
     expect(mathjs.evaluate("1 + 1")).toBe(2);
     expect(() => mathjs.evaluate("parallelPlateCapacitance(1 cm^2, 0.1 mm)")).toThrow();
