@@ -119,7 +119,13 @@ export function createHandler(options: HandlerOptions = {}): (req: IncomingMessa
         send(res, 200, formulaCatalog(category));
         return;
       }
-      const id = decodeURIComponent(path.slice("/formulas/".length));
+      let id: string;
+      try {
+        id = decodeURIComponent(path.slice("/formulas/".length));
+      } catch {
+        // A malformed percent-escape ("%E0%A4%A") is the client's mistake, not the server's.
+        throw new HttpError(400, "bad_request", "the formula id in the path has a malformed percent-escape");
+      }
       let entry;
       try {
         entry = catalogEntry(id);

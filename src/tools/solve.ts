@@ -124,6 +124,9 @@ export function solveDetails<I extends InputSpecs, O extends OutputSpec, N exten
   given: Omit<FormulaInputs<I>, N> & { readonly target: FormulaOutput<O> },
   options: SolveOptions = {},
 ): SolveResult {
+  if (typeof given !== "object" || given === null || Array.isArray(given)) {
+    throw new FormulaError("wrong_type", { formula: (formula as unknown as AnyFormula).id, input: "given", value: given, expected: "an object of the other inputs and the target" });
+  }
   const { target, ...others } = given as unknown as Record<string, unknown>;
   return solveSI(formula as unknown as AnyFormula, input, target, others, options);
 }

@@ -19,6 +19,15 @@ describe("the formula registry", () => {
   for (const f of formulas) {
     const d = f.definition;
     describe(f.id, () => {
+      it("fires every warning and caution on a condition, with a measure of how far past it a point is", () => {
+        // An always-on note is an assumption and belongs in the description; bulk
+        // tools rank points by the measure to report the worst one.
+        for (const c of [...(d.validity ?? []), ...(d.cautions ?? [])]) {
+          expect(typeof c.when, `${c.code}: when`).toBe("function");
+          expect(typeof c.measure, `${c.code}: measure`).toBe("function");
+        }
+      });
+
       it("names its category, title, equation, description and a source", () => {
         expect(CATEGORIES.has(d.category)).toBe(true);
         expect(d.title.length).toBeGreaterThan(3);

@@ -145,19 +145,6 @@ export function judge(
 
 // ---- the ledger: every violation, sorted into known classes or not ----
 
-/**
- * A class of failure whose fix lives in a file this suite does not own (or is
- * being made by someone else now). Its cases are still run; its own test
- * fails until the fix is merged. `matches` sees the call kind, the case and
- * the violation text.
- */
-export interface KnownClass {
-  readonly name: string;
-  /** Where the cause is believed to be. */
-  readonly cause: string;
-  readonly matches: (kind: string, input: unknown, violation: string) => boolean;
-}
-
 interface Entry {
   readonly kind: string;
   readonly input: unknown;
@@ -177,24 +164,17 @@ export function show(value: unknown): string {
   return text === undefined ? String(value) : text.length > 600 ? `${text.slice(0, 597)}...` : text;
 }
 
+/** Every violation of a path's cases, with the first 50 kept as reproducers. */
 export class Ledger {
   cases = 0;
-  readonly unknown: Entry[] = [];
-  readonly known = new Map<string, Entry[]>();
-  /** Violations per class name ("" for unknown), all counted though only the first 50 are kept. */
-  readonly counts = new Map<string, number>();
-
-  constructor(readonly classes: readonly KnownClass[]) {
-    for (const c of classes) this.known.set(c.name, []);
-  }
+  violations = 0;
+  readonly entries: Entry[] = [];
 
   record(kind: string, input: unknown, violations: readonly string[]): void {
     this.cases++;
     for (const violation of violations) {
-      const cls = this.classes.find((c) => c.matches(kind, input, violation));
-      const list = cls ? this.known.get(cls.name)! : this.unknown;
-      this.counts.set(cls?.name ?? "", (this.counts.get(cls?.name ?? "") ?? 0) + 1);
-      if (list.length < 50) list.push({ kind, input, violation });
+      this.violations++;
+      if (this.entries.length < 50) this.entries.push({ kind, input, violation });
     }
   }
 

@@ -11,9 +11,8 @@ import { FormulaError } from "../../src/core/errors.js";
 import { numericInputsFor, perFormula } from "./fuzz-cases.js";
 import { countLoop } from "../helpers/loop-count.js";
 import { judge, LOOP_BOUND_PER_EVALUATION, show } from "./fuzz-check.js";
-import { describeKnown, driveSync, expectClean, newDrive } from "./fuzz-drive.js";
+import { driveSync, expectClean, newDrive } from "./fuzz-drive.js";
 import { evaluate } from "../../src/core/evaluate.js";
-import { HANG_REPRODUCERS, knownHang } from "./fuzz-known.js";
 import { CASES } from "./fuzz-runners.js";
 
 const evaluated = newDrive();
@@ -44,30 +43,24 @@ describe("fuzz: evaluate and the typed calls", () => {
   });
 });
 
-// TODO(lead): once the elliptic-integral fix is merged, remove its entry from
-// KNOWN_HANGS (fuzz-known.ts); these reproducers and the skipped fuzz cases then run.
-describe("known hangs: skipped while listed in KNOWN_HANGS, run once removed", () => {
-  it("every reproducer is either recognised as a known hang (and skipped) or runs to a clean verdict", () => {
-    for (const r of HANG_REPRODUCERS) {
-      if (knownHang("evaluate", r)) continue;
-      expect(judge(() => evaluate(r.id, r.inputs), r).violations, r.id).toEqual([]);
-    }
-  });
-
-  it("the hang filter skips only the degenerate cases: the same loops at ordinary distances still run", () => {
-    expect(knownHang("evaluate", { id: "loopField", inputs: { current: 1, radius: 0.1, radialDistance: 0.1, axialDistance: 0.01 } })).toBeUndefined();
-    expect(knownHang("evaluate", { id: "coaxialLoopsMutualInductance", inputs: { radius1: 1, radius2: 1, distance: 0.1 } })).toBeUndefined();
+// These two once never returned: a complete elliptic integral whose complementary
+// parameter underflowed to 0 (a point a vanishing distance from a loop's wire,
+// coincident loops). They must now give a clean verdict like any case.
+describe("the former hangs", () => {
+  it("a field point 1e-200 m from a loop's wire and 1 km loops 1e-321 m apart give finite values", () => {
+    const reproducers = [
+      { id: "loopField", inputs: { current: 1, radius: 0.1, radialDistance: 0.1, axialDistance: 1e-200 } },
+      { id: "coaxialLoopsMutualInductance", inputs: { radius1: 1000, radius2: 1000, distance: 1e-321 } },
+    ];
+    for (const r of reproducers) expect(judge(() => evaluate(r.id, r.inputs), r).violations, r.id).toEqual([]);
   });
 });
-
-describeKnown("evaluate and typed calls", () => [evaluated, typed]);
 
 describe("fuzz: the typed call's fast path agrees with evaluate", () => {
   const RUNS = 10_000;
   it(`on ${RUNS} cases of plain numbers: the same value bit for bit, or the same error code and input`, () => {
     fc.assert(
       fc.property(perFormula((f) => numericInputsFor(f).map((x) => ({ f, x }))), ({ f, x }) => {
-        if (knownHang("typed", { id: f.id, inputs: x })) return;
         const typed = outcome(() => f(x as never));
         const careful = outcome(() => evaluate(f.id, x).value);
         expect(typed, `${f.id} ${show(x)}`).toEqual(careful);
