@@ -1,5 +1,5 @@
 import { MU0 } from "../constants/si.js";
-import { ellipticD, ellipticEMinusOne } from "../math/elliptic.js";
+import { ellipticByComplement, ellipticD, ellipticEMinusOne } from "../math/elliptic.js";
 
 // ---- scaled arithmetic for extreme magnitudes ----
 //
@@ -214,22 +214,30 @@ function nagaokaShape(radius: number, length: number): number {
   return (4 * bracket) / (3 * Math.PI * kc);
 }
 
+/** Scratch for ellipticByComplement's [K, E, D, E - 1]. */
+const ELLIPTIC = /* @__PURE__ */ new Float64Array(4);
+
 /**
  * Mutual inductance of two coaxial circular filaments, radii a and b, axial
- * distance d (Maxwell). With r1 = sqrt((a-b)^2 + d^2), r2 = sqrt((a+b)^2 + d^2)
- * and k1 = (r2 - r1)/(r2 + r1) = 4ab/(r1 + r2)^2 (Landen's modulus of k):
- *   M = mu0 sqrt(ab) [ (2/k - k) K(k) - (2/k) E(k) ] = 2 mu0 sqrt(ab) k1^(3/2) D(k1^2).
- * The textbook form subtracts two nearly equal terms when the loops are far
- * apart (M ~ 1/d^3); the Landen form has no subtraction, and 1 - k1 = 2 r1/(r1 + r2)
- * keeps touching loops accurate.
- *
- * For moderate magnitudes (the callers scale to unit size first).
+ * distance d (Maxwell), in Landen's form M = 2 mu0 sqrt(ab) k1^(3/2) D(k1^2), with
+ * r1 = hypot(a - b, d), r2 = hypot(a + b, d) and k1 = 4ab/(r1 + r2)^2: the
+ * textbook form subtracts two nearly equal terms when the loops are far apart
+ * (M ~ 1/d^3); this one has no subtraction. Evaluated for any magnitudes. Half-lengths keep r1 + r2 finite for
+ * radii near the largest double; k1 = (a/h)(b/h) with h = (r1 + r2)/2 <= 2 max.
+ * The complement of k1^2 is k1'^2 = (1 - k1)(1 + k1) with 1 - k1 = r1/h: for
+ * circles 1e-321 m apart with 1 km radii r1/h underflows, so ln(1/k1') is then
+ * taken from logarithms of r1 and h, which is all D's logarithmic form needs
+ * (D ~ ln(4/k1') - 1, DLMF 19.12). M ~ mu0 a (ln(8a/d) - 2) there, 0.94 H.
  */
 export function maxwellMutual(a: number, b: number, d: number): number {
   const r1 = Math.hypot(a - b, d);
-  const r2 = Math.hypot(a + b, d);
-  const s = r1 + r2;
-  const k1 = ((4 * a) / s) * (b / s);
-  const mc1 = ((2 * r1) / s) * (1 + k1);
-  return 2 * MU0 * Math.sqrt(a) * Math.sqrt(b) * k1 * Math.sqrt(k1) * ellipticD(k1 * k1, mc1);
+  const h = 0.5 * r1 + Math.hypot(0.5 * a + 0.5 * b, 0.5 * d);
+  const k1 = (a / h) * (b / h);
+  const t = r1 / h; // 1 - k1 without cancellation
+  const kc1 = Math.sqrt(t) * Math.sqrt(1 + k1);
+  // Below 2^-1000 t has lost bits (or is 0): take the logarithm from r1 and h instead.
+  const lnInvKc = t < 2 ** -1000 ? 0.5 * (Math.log(h) - Math.log(r1) - Math.log1p(k1)) : undefined;
+  ellipticByComplement(kc1, ELLIPTIC, lnInvKc);
+  // (sqrt(a) sqrt(b) k1) first: when k1^(3/2) alone would underflow, this product has not yet.
+  return 2 * MU0 * (Math.sqrt(a) * Math.sqrt(b) * k1) * Math.sqrt(k1) * ELLIPTIC[2]!;
 }

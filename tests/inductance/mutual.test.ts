@@ -88,6 +88,15 @@ describe("coaxialCoilsMutualInductance", () => {
     }
   });
 
+  it("of two coincident coils a few subnormal steps apart still equals the Nagaoka self-inductance", () => {
+    // Once a NaN: a Gauss node of a subnormal piece rounded onto the filament singularity.
+    const self = solenoidInductance({ turns: 10, radius: m(1), length: m(1e-5) });
+    for (const d of [5e-324, 1e-320, 1e-310, 1e-300]) {
+      const M = coaxialCoilsMutualInductance({ turns1: 10, radius1: m(1), length1: m(1e-5), turns2: 10, radius2: m(1), length2: m(1e-5), distance: m(d) });
+      expectClose(M, { input: { d }, expected: self, tolerance: 1e-12, source: "Nagaoka's closed form (solenoidInductance, checked against its own decimal oracle)" });
+    }
+  });
+
   it("is reciprocal and scales with N1 N2 and with all lengths", () => {
     fc.assert(
       fc.property(
