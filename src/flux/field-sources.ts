@@ -179,7 +179,7 @@ export const loopField = /* @__PURE__ */ defineFormula({
  * two cosines and a dozen products; measured 2.5 ulp at worst by
  * tests/flux/extremes-accuracy.test.ts for lengths from 1e-300 m to 1e300 m).
  *
- * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013), Problem 5.11 (from memory).
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013), sec. 5.2, the Biot-Savart law applied to a winding of coaxial loops (from memory).
  *
  * @example
  * solenoidAxialField({ current: quantity(1, "A"), turns: 1000, radius: quantity(1, "cm"), length: quantity(10, "cm"), axialPosition: quantity(0, "m") }); // ≈ 1.23e-2 T
@@ -207,7 +207,7 @@ export const solenoidAxialField = /* @__PURE__ */ defineFormula({
     },
   ],
   cautions: [STRONG_FIELD],
-  source: { ...GRIFFITHS, locator: "Problem 5.11 (from memory)" },
+  source: { ...GRIFFITHS, locator: "sec. 5.2, Biot-Savart law, integrated over a winding of coaxial loops (from memory)" },
   compute: (x) => {
     const R = x.radius;
     const l = x.length;
@@ -236,7 +236,7 @@ export const solenoidAxialField = /* @__PURE__ */ defineFormula({
  * Validity: thin coils (winding cross-section small against R). The field is uniform
  * to fourth order about the centre.
  *
- * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013), Problem 5.46 (from memory).
+ * Reference: D. J. Griffiths, Introduction to Electrodynamics, 4th ed. (2013), sec. 5.2, the on-axis field of a loop summed for two coils a radius apart (from memory).
  *
  * @example
  * helmholtzCenterField({ current: quantity(1, "A"), turns: 100, radius: quantity(0.1, "m") }); // ≈ 8.99e-4 T
@@ -254,7 +254,7 @@ export const helmholtzCenterField = /* @__PURE__ */ defineFormula({
   ],
   output: { dimension: "FluxDensity", description: "Flux density at the centre, along the axis" },
   cautions: [STRONG_FIELD],
-  source: { ...GRIFFITHS, locator: "Problem 5.46 (from memory)" },
+  source: { ...GRIFFITHS, locator: "sec. 5.2, on-axis loop field summed for two coils a radius apart (from memory)" },
   compute: (x) =>
     tame(x.turns) && tame(x.current) && tame(x.radius)
       ? (HELMHOLTZ_MU0 * x.turns * x.current) / x.radius
