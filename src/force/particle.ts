@@ -4,7 +4,7 @@ import { NON_NEGATIVE, POSITIVE } from "../core/spec.js";
 import { dot, norm, type V3 } from "../math/vec3.js";
 import { crossPlus, scaledVector, timesPow2 } from "./cross.js";
 import { strongFieldCaution } from "../core/hazards.js";
-import { scaledProduct } from "../capacitance/shared.js";
+import { scaledProduct } from "../math/scaled.js";
 import { beamCaution, CHARGE, PARTICLE_MASS, lorentzFactor } from "./shared.js";
 
 const C = SPEED_OF_LIGHT;

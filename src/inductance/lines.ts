@@ -1,7 +1,8 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { POSITIVE } from "../core/spec.js";
-import { acoshRatio, exponentOf, ldexp, logRatio, moderate, ratio, scaledProduct } from "./shared.js";
+import { acoshOfRatio, cappedRatio, logOfRatio } from "../math/ratios.js";
+import { exponentOf, ldexp, moderate, scaledProduct } from "../math/scaled.js";
 
 const MU0_OVER_2PI = MU0 / (2 * Math.PI);
 const MU0_OVER_PI = MU0 / Math.PI;
@@ -25,7 +26,7 @@ const LN8_MINUS_7_4 = 0.3294415416798359;
  */
 export function wirePartialSelf(l: number, r: number): number {
   const t = l / r;
-  const asinh = t > 1e8 ? Math.LN2 + logRatio(l, r) : Math.asinh(t);
+  const asinh = t > 1e8 ? Math.LN2 + logOfRatio(l, r) : Math.asinh(t);
   let middle: number;
   if (moderate(l) && moderate(r)) middle = l / (Math.hypot(l, r) + r);
   else {
@@ -35,7 +36,7 @@ export function wirePartialSelf(l: number, r: number): number {
     middle = ls / (Math.hypot(ls, rs) + rs);
   }
   const bracket = asinh - middle + 0.25;
-  return moderate(l) ? MU0_OVER_2PI * l * bracket : scaledProduct(MU0_OVER_2PI, l, bracket);
+  return moderate(l) ? MU0_OVER_2PI * l * bracket : scaledProduct([MU0_OVER_2PI, l, bracket]);
 }
 
 /**
@@ -73,8 +74,8 @@ export const coaxialInductance = /* @__PURE__ */ defineFormula({
   // logRatio keeps b close to a accurate and never forms an overflowing b/a;
   // the logarithm is in [1e-16, 1500], so only the length can need scaling.
   compute: (x) => {
-    const ln = logRatio(x.outerRadius, x.innerRadius);
-    return moderate(x.length) ? MU0_OVER_2PI * x.length * ln : scaledProduct(MU0_OVER_2PI, x.length, ln);
+    const ln = logOfRatio(x.outerRadius, x.innerRadius);
+    return moderate(x.length) ? MU0_OVER_2PI * x.length * ln : scaledProduct([MU0_OVER_2PI, x.length, ln]);
   },
 });
 
@@ -116,7 +117,7 @@ export const twoWireInductance = /* @__PURE__ */ defineFormula({
     {
       code: "end_effects",
       when: (x) => x.length < 10 * x.separation,
-      measure: (x) => ratio(10 * x.separation, x.length),
+      measure: (x) => cappedRatio(10 * x.separation, x.length),
       message: (x) =>
         `length is only ${(x.length / x.separation).toPrecision(3)} separations: the per-length formula neglects end effects of order separation/length`,
     },
@@ -125,8 +126,8 @@ export const twoWireInductance = /* @__PURE__ */ defineFormula({
   // acoshRatio: acosh(1 + s) from the exact difference near touching, ln terms
   // (no D^2) far apart; in [1e-8, 1500], so only the length can need scaling.
   compute: (x) => {
-    const ach = acoshRatio(x.separation, 2 * x.wireRadius);
-    return moderate(x.length) ? MU0_OVER_PI * x.length * ach : scaledProduct(MU0_OVER_PI, x.length, ach);
+    const ach = acoshOfRatio(x.separation, 2 * x.wireRadius);
+    return moderate(x.length) ? MU0_OVER_PI * x.length * ach : scaledProduct([MU0_OVER_PI, x.length, ach]);
   },
 });
 
@@ -170,7 +171,7 @@ export const straightWireInductance = /* @__PURE__ */ defineFormula({
     {
       code: "short_wire",
       when: (x) => x.length < 10 * x.radius,
-      measure: (x) => ratio(10 * x.radius, x.length),
+      measure: (x) => cappedRatio(10 * x.radius, x.length),
       message: (x) =>
         `length is ${(x.length / x.radius).toPrecision(3)} radii: the formula takes the radius as the wire's own mean distance and the internal term l/4, both derived for a long wire`,
     },
@@ -221,7 +222,7 @@ export const loopInductance = /* @__PURE__ */ defineFormula({
   ],
   source: { ...GROVER, locator: "circular ring of round wire (from memory)" },
   compute: (x) => {
-    const bracket = logRatio(x.loopRadius, x.wireRadius) + LN8_MINUS_7_4; // ln(8R/a) - 7/4, in [0.33, 1500]
-    return moderate(x.loopRadius) ? MU0 * x.loopRadius * bracket : scaledProduct(MU0, x.loopRadius, bracket);
+    const bracket = logOfRatio(x.loopRadius, x.wireRadius) + LN8_MINUS_7_4; // ln(8R/a) - 7/4, in [0.33, 1500]
+    return moderate(x.loopRadius) ? MU0 * x.loopRadius * bracket : scaledProduct([MU0, x.loopRadius, bracket]);
   },
 });

@@ -1,7 +1,7 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { NON_NEGATIVE, POSITIVE, TURNS } from "../core/spec.js";
-import { Scaled, exponentOf, ldexp, moderate } from "./shared.js";
+import { Scaled, exponentOf, ldexp, moderate } from "../math/scaled.js";
 
 const MOHAN = {
   authors: "S. S. Mohan, M. del Mar Hershenson, S. P. Boyd, T. H. Lee",

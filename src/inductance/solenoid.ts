@@ -1,7 +1,9 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { POSITIVE, TURNS } from "../core/spec.js";
-import { Scaled, moderate, ratio, nagaoka, nagaokaScaled, scaledProduct, shortCoilFactor } from "./shared.js";
+import { cappedRatio } from "../math/ratios.js";
+import { Scaled, moderate, scaledProduct } from "../math/scaled.js";
+import { nagaoka, nagaokaScaled, shortCoilFactor } from "./shared.js";
 
 const NAGAOKA_SOURCE = {
   authors: "H. Nagaoka",
@@ -102,7 +104,7 @@ export const solenoidInductance = /* @__PURE__ */ defineFormula({
     const l = x.length;
     if (l < r) {
       const F = shortCoilFactor(r, l); // in [0.79, 1500]
-      return moderate(N) && moderate(r) ? MU0 * N * N * r * F : scaledProduct(MU0, N, N, r, F);
+      return moderate(N) && moderate(r) ? MU0 * N * N * r * F : scaledProduct([MU0, N, N, r, F]);
     }
     const K = nagaoka(r, l);
     if (moderate(N) && moderate(r) && moderate(l)) return MU0 * Math.PI * N * N * r * (r / l) * K;
@@ -202,7 +204,7 @@ export const wheelerSolenoidInductance = /* @__PURE__ */ defineFormula({
     {
       code: "short_coil",
       when: (x) => x.length <= 0.8 * x.radius,
-      measure: (x) => ratio(0.8 * x.radius, x.length),
+      measure: (x) => cappedRatio(0.8 * x.radius, x.length),
       message: (x) =>
         `length/radius = ${(x.length / x.radius).toPrecision(3)} is below 0.8: Wheeler's stated 1 % accuracy no longer applies; use solenoidInductance`,
     },
@@ -276,5 +278,5 @@ export const multilayerCoilInductance = /* @__PURE__ */ defineFormula({
 /** The largest of Wheeler's terms 6a, 9b, 10c over the smallest (ratios, so no term overflows). */
 function imbalance(x: { meanRadius: number; length: number; depth: number }): number {
   const t = [6 * (x.meanRadius / x.depth), 9 * (x.length / x.depth), 10];
-  return ratio(Math.max(...t), Math.min(...t));
+  return cappedRatio(Math.max(...t), Math.min(...t));
 }

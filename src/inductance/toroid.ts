@@ -1,7 +1,8 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { POSITIVE, RELATIVE_PERMEABILITY, TURNS } from "../core/spec.js";
-import { Scaled, exponentOf, ldexp, logRatio, moderate, scaledProduct } from "./shared.js";
+import { logOfRatio } from "../math/ratios.js";
+import { Scaled, exponentOf, ldexp, moderate, scaledProduct } from "../math/scaled.js";
 
 /** The core's permeability, as both toroid formulas take it. */
 const CORE_PERMEABILITY = {
@@ -58,11 +59,11 @@ export const toroidInductance = /* @__PURE__ */ defineFormula({
   // logRatio keeps thin cores (b close to a) accurate; the plain product is
   // safe while every factor is moderate, otherwise it is scaled.
   compute: (x) => {
-    const ln = logRatio(x.outerRadius, x.innerRadius); // in [1e-16, 1500]: always moderate
+    const ln = logOfRatio(x.outerRadius, x.innerRadius); // in [1e-16, 1500]: always moderate
     if (moderate(x.relativePermeability) && moderate(x.turns) && moderate(x.height)) {
       return MU0_OVER_2PI * x.relativePermeability * x.turns * x.turns * x.height * ln;
     }
-    return scaledProduct(MU0_OVER_2PI, x.relativePermeability, x.turns, x.turns, x.height, ln);
+    return scaledProduct([MU0_OVER_2PI, x.relativePermeability, x.turns, x.turns, x.height, ln]);
   },
 });
 
