@@ -191,15 +191,16 @@ function scaledProductSlow(factors: readonly number[], divisors: readonly number
  * (a * b * c) / d for finite a, b, c and nonzero finite d: `scaledProduct` of
  * three factors and one divisor, in a function small enough for the engine to
  * inline into the capacitance formulas' hot path (measured: several times
- * faster typed calls). Within 2 ulp (one rounding per operation), subnormal
- * and out-of-range results as `scaledProduct`.
+ * faster typed calls). The plain path serves positive operands whose every
+ * step is a normal double; zeros, signed operands and extreme magnitudes take
+ * the scaled path (correct, only slower). Within 2 ulp (one rounding per
+ * operation); subnormal and out-of-range results as `scaledProduct`.
  */
 export function mulDiv(a: number, b: number, c: number, d: number): number {
   const ab = a * b;
   const abc = ab * c;
   const r = abc / d;
-  const m = Math.abs(r);
-  if (Math.abs(ab) >= MIN_NORMAL && Math.abs(abc) >= MIN_NORMAL && m >= MIN_NORMAL && m <= Number.MAX_VALUE) return r;
+  if (ab >= MIN_NORMAL && abc >= MIN_NORMAL && r >= MIN_NORMAL && r <= Number.MAX_VALUE) return r;
   return scaledProductSlow([a, b, c], [d]);
 }
 

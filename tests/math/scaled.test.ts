@@ -7,7 +7,7 @@
 // (the oracle evaluates the operation itself: x * y, x / y, sqrt x, x^y, ln(b/a),
 // acosh(u/v) at 60 digits from the exact binary values, never the library's code).
 import fc from "fast-check";
-import { describe, expect, it } from "vitest";
+import { afterAll, describe, expect, it } from "vitest";
 import { acoshOfRatio, cappedRatio, logOfRatio } from "../../src/math/ratios.js";
 import { exponentOf, ldexp, moderate, mulDiv, pow, Scaled, scaledProduct, twoProduct } from "../../src/math/scaled.js";
 import { loopCount, resetLoopCount } from "../helpers/loop-count.js";
@@ -35,6 +35,17 @@ function ulps(got: number, want: Dec): number {
   const unit = want.abs().lt(MIN_NORMAL) ? exact(MIN_SUB) : want.abs().times(EPS);
   return exact(got).minus(want).abs().div(unit).toNumber();
 }
+
+/** Worst error per function (in ulps or eps as each check states), printed at the end for the record. */
+const worst = new Map<string, number>();
+/** Record `err` as a candidate worst case for `id`, and return it. */
+function note(id: string, err: number): number {
+  worst.set(id, Math.max(worst.get(id) ?? 0, err));
+  return err;
+}
+afterAll(() => {
+  console.log([...worst].map(([k, v]) => `${k}: ${v.toFixed(2)}`).join("\n"));
+});
 
 /** A positive double 10^p, p spread over the whole range (subnormals included). */
 const anyMagnitude = fc.double({ min: -323, max: 308, noNaN: true }).map((p) => 10 ** p).filter((v) => v > 0 && Number.isFinite(v));
@@ -73,10 +84,10 @@ describe("scaled values", () => {
     fc.assert(
       fc.property(anyScaled, anyScaled, (a, b) => {
         const [va, vb] = [value(a), value(b)];
-        expect(relEps(value(a.times(b)), va.times(vb))).toBeLessThanOrEqual(0.5);
-        expect(relEps(value(a.div(b)), va.div(vb))).toBeLessThanOrEqual(0.5);
-        expect(relEps(value(a.plus(b)), va.plus(vb))).toBeLessThanOrEqual(0.5);
-        expect(relEps(value(a.sqrt()), va.sqrt())).toBeLessThanOrEqual(0.5);
+        expect(note("times (eps)", relEps(value(a.times(b)), va.times(vb)))).toBeLessThanOrEqual(0.5);
+        expect(note("div (eps)", relEps(value(a.div(b)), va.div(vb)))).toBeLessThanOrEqual(0.5);
+        expect(note("plus (eps)", relEps(value(a.plus(b)), va.plus(vb)))).toBeLessThanOrEqual(0.5);
+        expect(note("sqrt (eps)", relEps(value(a.sqrt()), va.sqrt()))).toBeLessThanOrEqual(0.5);
       }),
     );
   });
@@ -96,7 +107,7 @@ describe("scaled values", () => {
         const want = value(a).ln();
         const got = a.log();
         if (want.isZero()) expect(got).toBe(0);
-        else expect(relEps(new D(got), want)).toBeLessThanOrEqual(2);
+        else expect(note("log (eps)", relEps(new D(got), want))).toBeLessThanOrEqual(2);
       }),
     );
   });
@@ -178,7 +189,7 @@ describe("scaled products and quotients", () => {
           return;
         }
         const bound = (factors.length + divisors.length) / 2 + (mag.lt(MIN_NORMAL) ? 0.5 : 0);
-        expect(ulps(got, want), `${factors} / ${divisors}: got ${got}`).toBeLessThanOrEqual(bound);
+        expect(note("scaledProduct (ulp)", ulps(got, want)), `${factors} / ${divisors}: got ${got}`).toBeLessThanOrEqual(bound);
       }),
       { numRuns: 500 },
     );
@@ -193,7 +204,7 @@ describe("scaled products and quotients", () => {
           expect(want.gt(exact(Number.MAX_VALUE).times(1 - 1e-14)) || want.lt(exact(MIN_SUB).times(1 + 1e-14))).toBe(true);
           return;
         }
-        expect(ulps(got, want), `${a} ${b} ${c} / ${d}: got ${got}`).toBeLessThanOrEqual(want.lt(MIN_NORMAL) ? 1 : 2);
+        expect(note("mulDiv (ulp)", ulps(got, want)), `${a} ${b} ${c} / ${d}: got ${got}`).toBeLessThanOrEqual(want.lt(MIN_NORMAL) ? 1 : 2);
       }),
       { numRuns: 500 },
     );
@@ -214,7 +225,7 @@ describe("scaled powers", () => {
       fc.property(anyMagnitude, fc.double({ min: -2000, max: 2000, noNaN: true }), (x, y) => {
         // x^y = exp(y ln x), at 80 digits: |y ln x| < 2000 * 745 keeps 70 correct digits.
         const want = exact(x, 80).ln().times(exact(y, 80)).exp();
-        expect(relEps(value(pow(x, y)), want), `${x}^${y}`).toBeLessThanOrEqual(3);
+        expect(note("pow, |y| <= 2000 (eps)", relEps(value(pow(x, y)), want)), `${x}^${y}`).toBeLessThanOrEqual(3);
       }),
       { numRuns: 300 },
     );
@@ -282,7 +293,7 @@ describe("logarithms and acosh of ratios", () => {
     fc.assert(
       fc.property(pair, ([a, b]) => {
         const want = exact(b).div(exact(a)).ln();
-        expect(ulps(logOfRatio(b, a), want), `ln(${b} / ${a})`).toBeLessThanOrEqual(2);
+        expect(note("logOfRatio (ulp)", ulps(logOfRatio(b, a), want)), `ln(${b} / ${a})`).toBeLessThanOrEqual(2);
       }),
       { numRuns: 500 },
     );
@@ -295,7 +306,7 @@ describe("logarithms and acosh of ratios", () => {
         const [v, u] = a < b ? [a, b] : [b, a];
         const w = exact(u).div(exact(v));
         const want = w.plus(w.times(w).minus(1).sqrt()).ln(); // acosh w = ln(w + sqrt(w^2 - 1))
-        expect(ulps(acoshOfRatio(u, v), want), `acosh(${u} / ${v})`).toBeLessThanOrEqual(3);
+        expect(note("acoshOfRatio (ulp)", ulps(acoshOfRatio(u, v), want)), `acosh(${u} / ${v})`).toBeLessThanOrEqual(3);
       }),
       { numRuns: 500 },
     );
