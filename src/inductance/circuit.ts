@@ -57,7 +57,7 @@ const COUPLED_PAIR = [
  *
  * Linear inductor (constant L); for a saturating core integrate i dPsi instead.
  * Scaled for extreme magnitudes: every representable result to a few ulp,
- * `out_of_range` beyond the double range or below the smallest normal double.
+ * `out_of_range` beyond the double range or below the smallest subnormal (2^-1074; a subnormal result is returned).
  * A `stored_energy` caution from 20 J (the hazardous energy level). Whatever
  * the energy, interrupting the current produces a voltage L dI/dt that can arc
  * and destroy semiconductors (said in the description, since it always holds).
@@ -187,7 +187,7 @@ function seriesOpposing(x: { mutualInductance: number; inductance1: number; indu
  * ch. 13 (coupled inductors) (from memory); derived from the two mesh equations.
  * Scaled (exact mantissa products) for extreme magnitudes: every representable
  * result to a few ulp, `out_of_range` beyond the double range or below the
- * smallest normal double. If M exceeds sqrt(L1 L2) within the coupling
+ * smallest subnormal (2^-1074; a subnormal result is returned). If M exceeds sqrt(L1 L2) within the coupling
  * relation's rounding tolerance, the pair is taken as perfectly coupled with a
  * `coupling_clamped` warning.
  *

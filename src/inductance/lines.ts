@@ -49,7 +49,7 @@ export function wirePartialSelf(l: number, r: number): number {
  * (current on the facing surfaces). At low frequency a solid inner conductor
  * adds mu0 l/(8 pi). Computed with log1p((b - a)/a) for thin gaps and ln b - ln a
  * where b/a overflows; every representable result to a few ulp, `out_of_range`
- * beyond the double range or below the smallest normal double.
+ * beyond the double range or below the smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (Pearson, 2013),
  * ch. 7 (from memory).
@@ -91,7 +91,7 @@ export const coaxialInductance = /* @__PURE__ */ defineFormula({
  * the line is shorter than 10 separations). acosh(1 + s), s = (D - 2a)/(2a), is
  * built from s so nearly touching wires keep full precision; every representable
  * result to a few ulp, `out_of_range` beyond the double range or below the
- * smallest normal double.
+ * smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * Reference: S. Ramo, J. R. Whinnery, T. Van Duzer, Fields and Waves in
  * Communication Electronics, 3rd ed. (1994), table of transmission-line parameters
@@ -143,7 +143,7 @@ export const twoWireInductance = /* @__PURE__ */ defineFormula({
  * is rewritten as -l^2/(sqrt(l^2 + r^2) + r), which does not cancel for l << r.
  * Scaled for extreme magnitudes (l/r up to 1e600 and beyond): every
  * representable result to a few ulp, `out_of_range` beyond the double range or
- * below the smallest normal double.
+ * below the smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * Validity: uniform current (skin depth well above r); the radius enters as the
  * mutual-inductance distance, which assumes a long wire (warning for l < 10 r).
@@ -190,7 +190,7 @@ export const straightWireInductance = /* @__PURE__ */ defineFormula({
  * Validity: thin wire; terms of order (a/R)^2 ln(8R/a) are neglected (warning
  * when a > R/10). Computed as ln(R/a) + (ln 8 - 7/4), two positive terms (no
  * 8R to overflow); every representable result to a few ulp, `out_of_range`
- * beyond the double range or below the smallest normal double.
+ * beyond the double range or below the smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * Reference: Grover (1946), circular rings of round wire; E. B. Rosa and
  * F. W. Grover, Bull. Bureau of Standards 8 (1912), formulas for circular rings

@@ -34,7 +34,8 @@ const WHEELER_MULTI = 0.8e-6 / INCH;
  *
  * Exact for a uniform current sheet. Computed without cancellation for very
  * long and very short coils (see `nagaoka` in shared.ts); a coefficient below
- * the smallest normal double (length/radius below about 1e-310) is `out_of_range`.
+ * the normal range comes back subnormal, and below 2^-1074 (length/radius below
+ * about 2e-326) it is `out_of_range`.
  *
  * Reference: Nagaoka (1909); Grover, Inductance Calculations (1946), single-layer
  * coils (locators from memory).
@@ -120,7 +121,7 @@ export const solenoidInductance = /* @__PURE__ */ defineFormula({
  * Overestimates a real coil by the factor 1/K (Nagaoka): about 0.85 r/l
  * relative for long coils; a warning gives the error when above 1 %. Scaled
  * for extreme magnitudes: every representable result to a few ulp,
- * `out_of_range` beyond the double range or below the smallest normal double.
+ * `out_of_range` beyond the double range or below the smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * Reference: any electromagnetics text, e.g. D. J. Griffiths, Introduction to
  * Electrodynamics, 4th ed. (Pearson, 2013), ch. 7 (from memory).

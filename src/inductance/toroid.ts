@@ -32,7 +32,7 @@ const MU0_OVER_2PI = MU0 / (2 * Math.PI);
  * thin cores, and the product is scaled for extreme magnitudes: every
  * representable result is returned to a few ulp (measured in
  * tests/inductance/extremes-accuracy.test.ts), results beyond the double range
- * or below the smallest normal double are `out_of_range`.
+ * or below the smallest subnormal (2^-1074; a subnormal result is returned) are `out_of_range`.
  *
  * Reference: any electromagnetics text, e.g. D. J. Griffiths, Introduction to
  * Electrodynamics, 4th ed. (Pearson, 2013), ch. 7 (from memory).
@@ -79,7 +79,7 @@ export const toroidInductance = /* @__PURE__ */ defineFormula({
  * r^2 / (R + sqrt((R - r)(R + r))): the textbook difference R - sqrt(R^2 - r^2)
  * loses digits for thin sections (r << R). Scaled for extreme magnitudes: every
  * representable result to a few ulp, `out_of_range` beyond the double range or
- * below the smallest normal double.
+ * below the smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * Reference: F. W. Grover, Inductance Calculations (1946), toroidal coils
  * (from memory); the integral is elementary.
