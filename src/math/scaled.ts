@@ -106,7 +106,7 @@ export class Scaled {
     if (this.m === 0) return s;
     const [big, small] = this.e >= s.e ? [this, s] : [s, this];
     const shift = small.e - big.e; // <= 0
-    // Below 2^-60 the smaller addend is under a quarter of the larger's ulp: it cannot change the sum.
+    // Below 2^-60 the smaller addend is under 2^-8 of the larger's ulp (2^-52 of m >= 1): it cannot change the sum.
     return shift < -60 ? big : Scaled.of(big.m + small.m * 2 ** shift, big.e);
   }
 
