@@ -3,7 +3,7 @@
  * The typed call checks every input's type, finiteness and domain, the
  * relations and the result's finiteness; the ratio shows what that costs.
  */
-import { mulDiv } from "../src/capacitance/shared.js";
+import { mulDiv } from "../src/math/scaled.js";
 import { EPSILON0, MU0 } from "../src/constants/si.js";
 import { coaxialCapacitance, longSolenoidInductance, parallelPlateCapacitance, solenoidInductance } from "../src/index.js";
 import type { Area, Length } from "../src/units/types.js";

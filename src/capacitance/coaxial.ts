@@ -2,7 +2,9 @@ import { EPSILON0 } from "../constants/si.js";
 import { formatPercent } from "../core/format.js";
 import { defineFormula } from "../core/formula.js";
 import { POSITIVE } from "../core/spec.js";
-import { logOfRatio, mulDiv, RELATIVE_PERMITTIVITY } from "./shared.js";
+import { logOfRatio } from "../math/ratios.js";
+import { mulDiv } from "../math/scaled.js";
+import { RELATIVE_PERMITTIVITY } from "./shared.js";
 
 const TWO_PI_EPSILON0 = 2 * Math.PI * EPSILON0;
 

@@ -2,7 +2,8 @@ import { EPSILON0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { formatPercent } from "../core/format.js";
 import { POSITIVE } from "../core/spec.js";
-import { mulDiv, RELATIVE_PERMITTIVITY } from "./shared.js";
+import { mulDiv } from "../math/scaled.js";
+import { RELATIVE_PERMITTIVITY } from "./shared.js";
 
 /**
  * Capacitance of two parallel plates with the field confined between them.

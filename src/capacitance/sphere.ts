@@ -1,7 +1,8 @@
 import { EPSILON0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { POSITIVE } from "../core/spec.js";
-import { mulDiv, RELATIVE_PERMITTIVITY } from "./shared.js";
+import { mulDiv } from "../math/scaled.js";
+import { RELATIVE_PERMITTIVITY } from "./shared.js";
 
 const FOUR_PI_EPSILON0 = 4 * Math.PI * EPSILON0;
 

@@ -2,7 +2,7 @@ import { formatNumber } from "../core/format.js";
 import { defineFormula } from "../core/formula.js";
 import { GOVERN, HAZARDOUS_ENERGY, voltageCautions } from "../core/hazards.js";
 import { POSITIVE } from "../core/spec.js";
-import { mulDiv } from "./shared.js";
+import { mulDiv } from "../math/scaled.js";
 
 // ---- hazard rules shared by the two formulas ----
 
@@ -60,8 +60,8 @@ const SOURCES = [
  * codes and licensed practice govern.
  *
  * Method: mulDiv forms C V^2 / 2 with no intermediate overflow or underflow;
- * within 1.5 ulp of the exact value of the double inputs; a result below the
- * smallest normal double is out_of_range.
+ * within 1.5 ulp of the exact value of the double inputs; a subnormal result
+ * within one of its ulps, one below 2^-1074 out_of_range (src/math/scaled.ts).
  *
  * Reference: C. K. Alexander, M. N. O. Sadiku, Fundamentals of Electric
  * Circuits, 5th ed. (2013), sec. 6.2 (energy stored in a capacitor; section from memory).
@@ -110,8 +110,8 @@ export const capacitorEnergy = /* @__PURE__ */ defineFormula({
  * 1500 V d.c. (IEC 61140 / IEC 60449 bands), and above the discharge limits of
  * IEC 60335-1 clause 8.1.4. Local codes and licensed practice govern.
  *
- * Method: one product through mulDiv (half an ulp; a result below the
- * smallest normal double is out_of_range, never a silent zero).
+ * Method: one product through mulDiv (half an ulp; a subnormal result within
+ * one of its ulps, one below 2^-1074 out_of_range, never a silent zero).
  *
  * Reference: C. K. Alexander, M. N. O. Sadiku, Fundamentals of Electric
  * Circuits, 5th ed. (2013), sec. 6.2 (q = C v; section from memory).

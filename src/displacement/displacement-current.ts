@@ -3,7 +3,7 @@ import { defineFormula } from "../core/formula.js";
 import { formatNumber } from "../core/format.js";
 import { GOVERN } from "../core/hazards.js";
 import { AT_LEAST_ONE, NON_NEGATIVE, POSITIVE } from "../core/spec.js";
-import { scaledProduct } from "../capacitance/shared.js";
+import { scaledProduct } from "../math/scaled.js";
 
 const TWO_PI = 2 * Math.PI;
 const MU0_OVER_2PI = MU0 / (2 * Math.PI);
@@ -117,7 +117,7 @@ export const capacitorDisplacementCurrent = /* @__PURE__ */ defineFormula({
   ],
   output: { dimension: "Current", description: "Displacement current (= conduction current in the leads)" },
   source: { ...GRIFFITHS, locator: "section 7.3.2, charging capacitor (from memory)" },
-  // scaledProduct: one correctly rounded product, but an underflowed one is out_of_range, not 0.
+  // scaledProduct: one correctly rounded product, but one below 2^-1074 is out_of_range, not 0.
   compute: (x) => scaledProduct([x.capacitance, x.voltageRate], []),
 });
 
@@ -311,6 +311,6 @@ export const parasiticCouplingCurrent = /* @__PURE__ */ defineFormula({
     { authors: "IEC", title: "IEC 60990, Methods of measurement of touch current and protective conductor current" },
     { authors: "IEC", title: "IEC 62368-1, Audio/video, information and communication technology equipment - Part 1: Safety requirements", locator: "ES1 touch-current limit 0.5 mA (from memory)" },
   ],
-  // scaledProduct: an underflowed product is out_of_range, not a silent 0.
+  // scaledProduct: a product below 2^-1074 is out_of_range, not a silent 0.
   compute: (x) => scaledProduct([x.capacitance, x.voltageSlewRate], []),
 });

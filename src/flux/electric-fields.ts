@@ -1,16 +1,16 @@
 import { EPSILON0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { POSITIVE } from "../core/spec.js";
-import { quotient, tame } from "./scaled.js";
+import { moderate, scaledProduct } from "../math/scaled.js";
 import { BREAKDOWN_CAUTION, MEDIUM_PERMITTIVITY } from "./shared.js";
 
 const GRIFFITHS = { authors: "D. J. Griffiths", year: 2013, title: "Introduction to Electrodynamics, 4th ed. (Pearson; reissued by Cambridge University Press, 2017)" } as const;
 const FOUR_PI_EPS0 = 4 * Math.PI * EPSILON0; // one rounding (4 pi is exact in binary scaling)
 const TWO_PI_EPS0 = 2 * Math.PI * EPSILON0;
 
-/** Q / (4 pi eps0 epsr r^2): plain when all three are tame (r^2 never formed alone); scaled otherwise. */
+/** Q / (4 pi eps0 epsr r^2): plain when all three are moderate (r^2 never formed alone); scaled otherwise. */
 function coulomb(q: number, epsr: number, r: number): number {
-  return tame(q) && tame(epsr) && tame(r) ? q / (FOUR_PI_EPS0 * epsr * r * r) : quotient([q], [FOUR_PI_EPS0, epsr, r, r]);
+  return moderate(q) && moderate(epsr) && moderate(r) ? q / (FOUR_PI_EPS0 * epsr * r * r) : scaledProduct([q], [FOUR_PI_EPS0, epsr, r, r]);
 }
 
 /**
@@ -71,9 +71,9 @@ export const lineChargeField = /* @__PURE__ */ defineFormula({
   cautions: [BREAKDOWN_CAUTION],
   source: { ...GRIFFITHS, locator: "sec. 2.2, field of a long line charge (Gauss's law; section from memory)" },
   compute: (x) =>
-    tame(x.chargePerLength) && tame(x.relativePermittivity) && tame(x.distance)
+    moderate(x.chargePerLength) && moderate(x.relativePermittivity) && moderate(x.distance)
       ? x.chargePerLength / (TWO_PI_EPS0 * x.relativePermittivity * x.distance)
-      : quotient([x.chargePerLength], [TWO_PI_EPS0, x.relativePermittivity, x.distance]),
+      : scaledProduct([x.chargePerLength], [TWO_PI_EPS0, x.relativePermittivity, x.distance]),
 });
 
 /**

@@ -3,8 +3,8 @@ import { defineFormula } from "../core/formula.js";
 import { strongFieldCaution } from "../core/hazards.js";
 import { NON_NEGATIVE, POSITIVE, TURNS } from "../core/spec.js";
 import { loopKernel, SERIES_LIMIT } from "./loop-series.js";
-import { add, div, mul, product, quotient, scaled, tame, toNumber, type Scaled } from "./scaled.js";
-import { ratio } from "./shared.js";
+import { cappedRatio } from "../math/ratios.js";
+import { Scaled, moderate, scaledProduct } from "../math/scaled.js";
 
 /**
  * The one strong-field rule (src/core/hazards.ts): ICNIRP 2010 power-frequency
@@ -46,9 +46,9 @@ export const wireField = /* @__PURE__ */ defineFormula({
   output: { dimension: "FluxDensity", description: "Flux density (circling the wire; sign follows the current)" },
   cautions: [STRONG_FIELD],
   source: { ...GRIFFITHS, locator: "Example 5.5, B = mu0 I / (2 pi s) (from memory)" },
-  // Plain when both inputs are tame (3 roundings); scaled otherwise (2.2e-308 m gives 9e300 T, a double).
+  // Plain when both inputs are moderate (3 roundings); scaled otherwise (2.2e-308 m gives 9e300 T, a double).
   compute: (x) =>
-    tame(x.current) && tame(x.distance) ? (MU0 * x.current) / (TWO_PI * x.distance) : quotient([MU0, x.current], [TWO_PI, x.distance]),
+    moderate(x.current) && moderate(x.distance) ? (MU0 * x.current) / (TWO_PI * x.distance) : scaledProduct([MU0, x.current], [TWO_PI, x.distance]),
 });
 
 /**
@@ -202,7 +202,7 @@ export const solenoidAxialField = /* @__PURE__ */ defineFormula({
     {
       code: "coarse_pitch",
       when: (x) => x.length / x.turns > x.radius,
-      measure: (x) => ratio(x.length / x.turns, x.radius), // pitch / radius, past 1 when warned
+      measure: (x) => cappedRatio(x.length / x.turns, x.radius), // pitch / radius, past 1 when warned
       message: "the turn pitch exceeds the radius: the current-sheet model misses the per-turn ripple (about exp(-2 pi R / pitch)); sum loopAxialField over the turns instead",
     },
   ],
@@ -212,7 +212,7 @@ export const solenoidAxialField = /* @__PURE__ */ defineFormula({
     const R = x.radius;
     const l = x.length;
     const z = Math.abs(x.axialPosition); // B is even in z
-    if (tame(x.turns) && tame(x.current) && moderate(R) && moderate(l) && (z === 0 || moderate(z))) {
+    if (moderate(x.turns) && moderate(x.current) && nearUnit(R) && nearUnit(l) && (z === 0 || nearUnit(z))) {
       const u1 = z + l / 2;
       const u2 = z - l / 2;
       const h1 = Math.hypot(u1, R);
@@ -256,9 +256,9 @@ export const helmholtzCenterField = /* @__PURE__ */ defineFormula({
   cautions: [STRONG_FIELD],
   source: { ...GRIFFITHS, locator: "sec. 5.2, on-axis loop field summed for two coils a radius apart (from memory)" },
   compute: (x) =>
-    tame(x.turns) && tame(x.current) && tame(x.radius)
+    moderate(x.turns) && moderate(x.current) && moderate(x.radius)
       ? (HELMHOLTZ_MU0 * x.turns * x.current) / x.radius
-      : quotient([HELMHOLTZ_MU0, x.turns, x.current], [x.radius]),
+      : scaledProduct([HELMHOLTZ_MU0, x.turns, x.current], [x.radius]),
 });
 
 /**
@@ -288,13 +288,13 @@ export const toroidField = /* @__PURE__ */ defineFormula({
   output: { dimension: "FluxDensity", description: "Flux density inside the winding (circumferential)" },
   source: { ...GRIFFITHS, locator: "Example 5.10 (from memory)" },
   compute: (x) =>
-    tame(x.turns) && tame(x.current) && tame(x.radius)
+    moderate(x.turns) && moderate(x.current) && moderate(x.radius)
       ? (MU0 * x.turns * x.current) / (TWO_PI * x.radius)
-      : quotient([MU0, x.turns, x.current], [TWO_PI, x.radius]),
+      : scaledProduct([MU0, x.turns, x.current], [TWO_PI, x.radius]),
 });
 
 // Lengths within 2^-60..2^60 m: the plain solenoid expression then keeps every step a normal double.
-function moderate(v: number): boolean {
+function nearUnit(v: number): boolean {
   return v >= 2 ** -60 && v <= 2 ** 60;
 }
 
@@ -316,23 +316,23 @@ function solenoidScaled(current: number, turns: number, R: number, l: number, z:
     u1Scale = 1;
   }
   const s1 = hypotScaled(u1, R, u1Scale);
-  const prefix = product(MU0, turns, Math.abs(current));
+  const prefix = Scaled.of(MU0).times(turns).times(current);
   let b: Scaled;
   if (u2 <= 0) {
-    const lS = scaled(l);
-    let sum = div(s1.u, mul(s1.h, lS));
+    const lS = Scaled.of(l);
+    let sum = s1.u.div(s1.h.times(lS));
     if (u2 < 0) {
       const s2 = hypotScaled(-u2, R, 0);
-      sum = add(sum, div(s2.u, mul(s2.h, lS)));
+      sum = sum.plus(s2.u.div(s2.h.times(lS)));
     }
-    b = mul(prefix, { m: sum.m, e: sum.e - 1 });
+    b = prefix.times(Scaled.of(sum.m, sum.e - 1));
   } else {
     const s2 = hypotScaled(u2, R, 0);
-    const cosSum = add(div(s1.u, s1.h), div(s2.u, s2.h));
-    const num = mul(prefix, product(R, R, z));
-    b = div(num, mul(mul(s1.h, s1.h), mul(mul(s2.h, s2.h), cosSum)));
+    const cosSum = s1.u.div(s1.h).plus(s2.u.div(s2.h));
+    const num = prefix.times(Scaled.of(R).times(R).times(z));
+    b = num.div(s1.h.times(s1.h).times(s2.h.times(s2.h).times(cosSum)));
   }
-  return toNumber(b, Math.sign(current));
+  return b.toNumber(Math.sign(current));
 }
 
 /**
@@ -341,15 +341,12 @@ function solenoidScaled(current: number, turns: number, R: number, l: number, z:
  * 2^1020 or negligible against the other leg, so halving changes no digit that matters.
  */
 function hypotScaled(u: number, R: number, k: number): { u: Scaled; h: Scaled } {
-  const uS = scaled(u);
-  const us: Scaled = { m: uS.m, e: uS.e + k };
+  const us = Scaled.of(u, k);
   if (k === 0) {
     const h = Math.hypot(u, R);
-    if (h <= Number.MAX_VALUE) return { u: us, h: scaled(h) };
-    const hh = scaled(Math.hypot(u / 2, R / 2));
-    return { u: us, h: { m: hh.m, e: hh.e + 1 } };
+    if (h <= Number.MAX_VALUE) return { u: us, h: Scaled.of(h) };
+    return { u: us, h: Scaled.of(Math.hypot(u / 2, R / 2), 1) };
   }
   // u is already halved: halve R to match.
-  const hh = scaled(Math.hypot(u, R / 2));
-  return { u: us, h: { m: hh.m, e: hh.e + 1 } };
+  return { u: us, h: Scaled.of(Math.hypot(u, R / 2), 1) };
 }

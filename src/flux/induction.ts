@@ -2,8 +2,8 @@ import { defineFormula } from "../core/formula.js";
 import { voltageCautions } from "../core/hazards.js";
 import { NON_NEGATIVE, POSITIVE, TURNS } from "../core/spec.js";
 import { formatNumber } from "../core/format.js";
-import { quotient, tame } from "./scaled.js";
-import { ratio } from "./shared.js";
+import { cappedRatio } from "../math/ratios.js";
+import { moderate, scaledProduct } from "../math/scaled.js";
 
 /** sqrt(2) pi = 4.44288..., the "4.44" of the transformer equation (0.5 ulp: 4.442882938158366 is its nearest double). */
 const SQRT2_PI = 4.442882938158366;
@@ -45,7 +45,7 @@ export const magneticFlux = /* @__PURE__ */ defineFormula({
   // The plain product rounds twice; scaled where it could overflow or underflow on the way.
   compute: (x) => {
     const c = Math.cos(x.angle);
-    return tame(x.fluxDensity) && tame(x.area) && tame(c) ? x.fluxDensity * x.area * c : quotient([x.fluxDensity, x.area, c]);
+    return moderate(x.fluxDensity) && moderate(x.area) && moderate(c) ? x.fluxDensity * x.area * c : scaledProduct([x.fluxDensity, x.area, c]);
   },
 });
 
@@ -83,11 +83,11 @@ export const transformerEmf = /* @__PURE__ */ defineFormula({
   // The result is r.m.s.: compared with the a.c. r.m.s. bands as it stands.
   cautions: voltageCautions("ac"),
   source: TRANSFORMER_SOURCE,
-  // Five positive factors: plain when all are tame (4 roundings), scaled otherwise.
+  // Five positive factors: plain when all are moderate (4 roundings), scaled otherwise.
   compute: (x) =>
-    tame(x.frequency) && tame(x.turns) && tame(x.area) && tame(x.peakFluxDensity)
+    moderate(x.frequency) && moderate(x.turns) && moderate(x.area) && moderate(x.peakFluxDensity)
       ? SQRT2_PI * x.frequency * x.turns * x.area * x.peakFluxDensity
-      : quotient([SQRT2_PI, x.frequency, x.turns, x.area, x.peakFluxDensity]),
+      : scaledProduct([SQRT2_PI, x.frequency, x.turns, x.area, x.peakFluxDensity]),
 });
 
 /**
@@ -132,18 +132,18 @@ export const transformerPeakFluxDensity = /* @__PURE__ */ defineFormula({
     {
       code: "saturation",
       when: (x, b) => x.saturationFluxDensity > 0 && (b as number) >= x.saturationFluxDensity,
-      measure: (x, b) => ratio(b as number, x.saturationFluxDensity),
+      measure: (x, b) => cappedRatio(b as number, x.saturationFluxDensity),
       message: (x, b) =>
         `peak flux density ${formatNumber(b as number, 3)} T reaches the given saturation flux density ${formatNumber(x.saturationFluxDensity, 3)} T: ` +
         "the core saturates, magnetising current and core temperature rise steeply; add turns or core area",
     },
   ],
   source: TRANSFORMER_SOURCE,
-  // One quotient of five values: plain when all are tame, scaled otherwise.
+  // One quotient of five values: plain when all are moderate, scaled otherwise.
   compute: (x) =>
-    tame(x.voltage) && tame(x.frequency) && tame(x.turns) && tame(x.area)
+    moderate(x.voltage) && moderate(x.frequency) && moderate(x.turns) && moderate(x.area)
       ? x.voltage / (SQRT2_PI * x.frequency * x.turns * x.area)
-      : quotient([x.voltage], [SQRT2_PI, x.frequency, x.turns, x.area]),
+      : scaledProduct([x.voltage], [SQRT2_PI, x.frequency, x.turns, x.area]),
 });
 
 /**
@@ -177,7 +177,7 @@ export const motionalEmf = /* @__PURE__ */ defineFormula({
   cautions: voltageCautions("dc"),
   source: { ...GRIFFITHS, locator: "sec. 7.1.3, motional emf (section from memory)" },
   compute: (x) =>
-    tame(x.fluxDensity) && tame(x.length) && tame(x.speed)
+    moderate(x.fluxDensity) && moderate(x.length) && moderate(x.speed)
       ? x.fluxDensity * x.length * x.speed
-      : quotient([x.fluxDensity, x.length, x.speed]),
+      : scaledProduct([x.fluxDensity, x.length, x.speed]),
 });

@@ -3,15 +3,15 @@ import { defineFormula } from "../core/formula.js";
 import { formatNumber } from "../core/format.js";
 import { GOVERN } from "../core/hazards.js";
 import { NON_NEGATIVE, POSITIVE, RELATIVE_PERMEABILITY } from "../core/spec.js";
-import { div, mul, pow, scaled, sqrt, tame, toNumber } from "./scaled.js";
-import { ratio } from "./shared.js";
+import { cappedRatio } from "../math/ratios.js";
+import { Scaled, moderate, pow } from "../math/scaled.js";
 
 const PI_MU0 = Math.PI * MU0; // two roundings: within 1 ulp of pi mu0
 /** 100 omega eps0 per hertz: conduction current must exceed displacement current a hundredfold. */
 const GOOD_CONDUCTOR_PER_HZ = 100 * 2 * Math.PI * EPSILON0;
 /** Loss density above which a core runs hot, W/m^3 (500 mW/cm^3; common practice). */
 const HOT_CORE_DENSITY = 500e3;
-const ONE = { m: 1, e: 0 } as const;
+const ONE = /* @__PURE__ */ Scaled.of(1);
 
 /**
  * Skin depth of a good conductor.
@@ -52,7 +52,7 @@ export const skinDepth = /* @__PURE__ */ defineFormula({
       code: "not_a_good_conductor",
       // Conduction current must dominate displacement current: sigma / (omega eps0) >> 1.
       when: (x) => x.conductivity < GOOD_CONDUCTOR_PER_HZ * x.frequency,
-      measure: (x) => ratio(GOOD_CONDUCTOR_PER_HZ * x.frequency, x.conductivity),
+      measure: (x) => cappedRatio(GOOD_CONDUCTOR_PER_HZ * x.frequency, x.conductivity),
       message: "conductivity is below 100 times omega * eps0: displacement current is not negligible and the good-conductor skin depth no longer applies",
     },
   ],
@@ -60,13 +60,13 @@ export const skinDepth = /* @__PURE__ */ defineFormula({
     { authors: "J. D. Jackson", year: 1999, title: "Classical Electrodynamics, 3rd ed.", locator: "sec. 5.18, eq. (5.165) (from memory)" },
     { authors: "IEC", year: 1925, title: "IEC 60028: International standard of resistance for copper", locator: "annealed copper 58.0 MS/m at 20 degC (year from memory)" },
   ],
-  // Product of positive factors then one sqrt: no cancellation. Plain when every factor is tame;
+  // Product of positive factors then one sqrt: no cancellation. Plain when every factor is moderate;
   // otherwise the product is held as mantissa and exponent (1e20 S/m at 1e300 Hz gives 5e-168 m,
   // although the product itself overflows).
   compute: (x) =>
-    tame(x.frequency) && tame(x.relativePermeability) && tame(x.conductivity)
+    moderate(x.frequency) && moderate(x.relativePermeability) && moderate(x.conductivity)
       ? 1 / Math.sqrt(PI_MU0 * x.frequency * x.relativePermeability * x.conductivity)
-      : toNumber(div(ONE, sqrt(mul(mul(scaled(PI_MU0), scaled(x.frequency)), mul(scaled(x.relativePermeability), scaled(x.conductivity)))))),
+      : ONE.div(Scaled.of(PI_MU0).times(x.frequency).times(Scaled.of(x.relativePermeability).times(x.conductivity)).sqrt()).toNumber(),
 });
 
 /**
@@ -117,7 +117,7 @@ export const coreLoss = /* @__PURE__ */ defineFormula({
       code: "unusual_exponents",
       when: (x) => x.frequencyExponent < 1 || x.frequencyExponent > 3 || x.fluxExponent < 1.5 || x.fluxExponent > 3.5,
       // How far outside its usual range the worse exponent lies, as a ratio (> 1 when warned).
-      measure: (x) => Math.max(ratio(1, x.frequencyExponent), x.frequencyExponent / 3, ratio(1.5, x.fluxExponent), x.fluxExponent / 3.5),
+      measure: (x) => Math.max(cappedRatio(1, x.frequencyExponent), x.frequencyExponent / 3, cappedRatio(1.5, x.fluxExponent), x.fluxExponent / 3.5),
       message: "exponents outside the usual ranges (alpha 1 to 3, beta 1.5 to 3.5; common practice): check the coefficients' units (f in Hz, B in T, k in W/m^3)",
     },
   ],
@@ -125,10 +125,10 @@ export const coreLoss = /* @__PURE__ */ defineFormula({
     {
       code: "hot_core",
       // ~100-300 kW/m^3 (100-300 mW/cm^3) is a usual ferrite design range for a ~40 K rise (common practice).
-      when: (x, p) => ratio(p as number, x.volume) > HOT_CORE_DENSITY,
-      measure: (x, p) => ratio(p as number, x.volume),
+      when: (x, p) => cappedRatio(p as number, x.volume) > HOT_CORE_DENSITY,
+      measure: (x, p) => cappedRatio(p as number, x.volume),
       message: (x, p) =>
-        `loss density ${formatNumber(ratio(p as number, x.volume) / 1e3, 3)} kW/m^3 (mW/cm^3) is above about 500 kW/m^3, where a core in still air ` +
+        `loss density ${formatNumber(cappedRatio(p as number, x.volume) / 1e3, 3)} kW/m^3 (mW/cm^3) is above about 500 kW/m^3, where a core in still air ` +
         "runs well beyond a 40 K rise (common practice): burn risk, ferrite losses rise again above their minimum temperature, possible thermal runaway; " +
         `check the temperature rise. ${GOVERN}`,
     },
@@ -138,15 +138,15 @@ export const coreLoss = /* @__PURE__ */ defineFormula({
     { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed.", locator: "core loss (chapter not checked; from memory)" },
   ],
   // Math.pow is within an ulp for positive bases. Plain when both powers and the other factors are
-  // tame; otherwise each power is held as mantissa and exponent (see scaled.ts `pow`), so a
+  // moderate; otherwise each power is held as mantissa and exponent (see src/math/scaled.ts `pow`), so a
   // B^beta that alone underflows still gives its representable product.
   compute: (x) => {
     if (x.peakFluxDensity === 0) return 0;
     const fa = Math.pow(x.frequency, x.frequencyExponent);
     const bb = Math.pow(x.peakFluxDensity, x.fluxExponent);
-    // fa, bb > 0 excludes a power that underflowed to zero (tame counts an exact zero as tame).
-    if (tame(x.coefficient) && fa > 0 && tame(fa) && bb > 0 && tame(bb) && tame(x.volume)) return x.coefficient * fa * bb * x.volume;
-    const p = mul(mul(scaled(x.coefficient), pow(x.frequency, x.frequencyExponent)), mul(pow(x.peakFluxDensity, x.fluxExponent), scaled(x.volume)));
-    return toNumber(p);
+    // fa, bb > 0 excludes a power that underflowed to zero (moderate counts an exact zero as moderate).
+    if (moderate(x.coefficient) && fa > 0 && moderate(fa) && bb > 0 && moderate(bb) && moderate(x.volume)) return x.coefficient * fa * bb * x.volume;
+    const p = Scaled.of(x.coefficient).times(pow(x.frequency, x.frequencyExponent)).times(pow(x.peakFluxDensity, x.fluxExponent).times(x.volume));
+    return p.toNumber();
   },
 });

@@ -2,8 +2,8 @@ import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { formatNumber } from "../core/format.js";
 import { AT_LEAST_ONE, NON_NEGATIVE, POSITIVE, RELATIVE_PERMEABILITY, TURNS } from "../core/spec.js";
-import { add, div, mul, product, quotient, scaled, sqrt, tame, toNumber, type Scaled } from "./scaled.js";
-import { logOfRatio, ratio } from "./shared.js";
+import { cappedRatio, logOfRatio } from "../math/ratios.js";
+import { Scaled, moderate, scaledProduct } from "../math/scaled.js";
 
 const MCLYMAN = { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed." } as const;
 const CORE_PERMEABILITY = { ...RELATIVE_PERMEABILITY, description: "Relative permeability of the core material (1 for air)" } as const;
@@ -26,10 +26,10 @@ const FRINGING_WARNING = {
   code: "fringing",
   when: (x: { readonly gapLength: number; readonly area: number }) => fringingMatters(x.gapLength, x.area),
   // gap / width: past the threshold above 0.01.
-  measure: (x: { readonly gapLength: number; readonly area: number }) => ratio(x.gapLength, Math.sqrt(x.area)),
+  measure: (x: { readonly gapLength: number; readonly area: number }) => cappedRatio(x.gapLength, Math.sqrt(x.area)),
   message: (x: { readonly gapLength: number; readonly area: number }) =>
     // sqrt(area) / 100 is at least 2e-164: never zero.
-    `the gap is ${formatNumber(ratio(x.gapLength, Math.sqrt(x.area) / 100), 2)} % of the core's width (sqrt of its area); fringing flux ` +
+    `the gap is ${formatNumber(cappedRatio(x.gapLength, Math.sqrt(x.area) / 100), 2)} % of the core's width (sqrt of its area); fringing flux ` +
     "around a gap longer than about 1 % of the width raises the inductance by roughly 5 % or more, which this result neglects: apply gapFringingFactor",
 };
 
@@ -42,7 +42,7 @@ const FRINGING_WARNING = {
 const NOT_A_CORE_WARNING = {
   code: "not_a_magnetic_core",
   when: (x: { readonly relativePermeability: number }) => x.relativePermeability < 1,
-  measure: (x: { readonly relativePermeability: number }) => ratio(1, x.relativePermeability),
+  measure: (x: { readonly relativePermeability: number }) => cappedRatio(1, x.relativePermeability),
   message: (x: { readonly relativePermeability: number }) =>
     `relative permeability ${formatNumber(x.relativePermeability, 6)} is below 1 (diamagnetic): such a material does not guide flux along a core path, ` +
     "so this magnetic-circuit result holds only for an evenly wound toroid",
@@ -54,8 +54,8 @@ const NOT_A_CORE_WARNING = {
  * the quotient, one in the sum (positive terms: no cancellation).
  */
 function gapPlusCore(g: number, l: number, mur: number): Scaled {
-  const q = div(scaled(l), scaled(mur));
-  return g === 0 ? q : add(scaled(g), q);
+  const q = Scaled.of(l).div(mur);
+  return g === 0 ? q : Scaled.of(g).plus(q);
 }
 
 /**
@@ -88,9 +88,9 @@ export const reluctance = /* @__PURE__ */ defineFormula({
   output: { dimension: "Reluctance", description: "Reluctance (ampere-turns per weber)" },
   source: { ...MCLYMAN, locator: "magnetic circuits, reluctance (chapter not checked; from memory)" },
   compute: (x) =>
-    tame(x.length) && tame(x.relativePermeability) && tame(x.area)
+    moderate(x.length) && moderate(x.relativePermeability) && moderate(x.area)
       ? x.length / (MU0 * x.relativePermeability * x.area)
-      : quotient([x.length], [MU0, x.relativePermeability, x.area]),
+      : scaledProduct([x.length], [MU0, x.relativePermeability, x.area]),
 });
 
 /**
@@ -134,11 +134,11 @@ export const gappedCoreInductance = /* @__PURE__ */ defineFormula({
   validity: [{ ...FRINGING_WARNING, when: (x) => x.fringingFactor === 1 && fringingMatters(x.gapLength, x.area) }, NOT_A_CORE_WARNING],
   source: { ...MCLYMAN, locator: "ch. 8 (from memory), inductance of a gapped core, L = 0.4 pi N^2 A_c 1e-8 / (l_g + MPL / mu_m) in cgs units" },
   // l / mur goes smoothly to 0 as mur grows: no 1 - 1/mur style cancellation. Plain when every
-  // input is tame; otherwise scaled (N^2 and l / mur can leave the double range on their own).
+  // input is moderate; otherwise scaled (N^2 and l / mur can leave the double range on their own).
   compute: (x) =>
-    tame(x.fringingFactor) && tame(x.turns) && tame(x.area) && tame(x.gapLength) && tame(x.pathLength) && tame(x.relativePermeability)
+    moderate(x.fringingFactor) && moderate(x.turns) && moderate(x.area) && moderate(x.gapLength) && moderate(x.pathLength) && moderate(x.relativePermeability)
       ? (x.fringingFactor * MU0 * x.turns * x.turns * x.area) / (x.gapLength + x.pathLength / x.relativePermeability)
-      : toNumber(div(product(x.fringingFactor, MU0, x.turns, x.turns, x.area), gapPlusCore(x.gapLength, x.pathLength, x.relativePermeability))),
+      : Scaled.of(x.fringingFactor).times(MU0).times(x.turns).times(x.turns).times(x.area).div(gapPlusCore(x.gapLength, x.pathLength, x.relativePermeability)).toNumber(),
 });
 
 /**
@@ -185,7 +185,7 @@ export const coreFluxDensity = /* @__PURE__ */ defineFormula({
     {
       code: "saturation",
       when: (x, b) => x.saturationFluxDensity > 0 && Math.abs(b as number) >= x.saturationFluxDensity,
-      measure: (x, b) => ratio(Math.abs(b as number), x.saturationFluxDensity),
+      measure: (x, b) => cappedRatio(Math.abs(b as number), x.saturationFluxDensity),
       message: (x, b) =>
         `flux density ${formatNumber(Math.abs(b as number), 3)} T reaches the given saturation flux density ${formatNumber(x.saturationFluxDensity, 3)} T: ` +
         "permeability collapses and the current rises steeply; enlarge the gap, the area or reduce the turns",
@@ -195,12 +195,12 @@ export const coreFluxDensity = /* @__PURE__ */ defineFormula({
   ],
   source: { ...MCLYMAN, locator: "ch. 8 (from memory), B = 0.4 pi N I 1e-4 / (l_g + MPL / mu_m) in cgs units" },
   compute: (x) => {
-    if (tame(x.turns) && tame(x.current) && tame(x.gapLength) && tame(x.pathLength) && tame(x.relativePermeability)) {
+    if (moderate(x.turns) && moderate(x.current) && moderate(x.gapLength) && moderate(x.pathLength) && moderate(x.relativePermeability)) {
       return (MU0 * x.turns * x.current) / (x.gapLength + x.pathLength / x.relativePermeability);
     }
     if (x.current === 0) return 0;
-    const b = div(product(MU0, x.turns, Math.abs(x.current)), gapPlusCore(x.gapLength, x.pathLength, x.relativePermeability));
-    return toNumber(b, Math.sign(x.current));
+    const b = Scaled.of(MU0).times(x.turns).times(x.current).div(gapPlusCore(x.gapLength, x.pathLength, x.relativePermeability));
+    return b.toNumber(Math.sign(x.current));
   },
 });
 
@@ -238,7 +238,7 @@ export const gapFringingFactor = /* @__PURE__ */ defineFormula({
       code: "large_gap",
       when: (x, f) => x.gapLength > 0.1 * Math.sqrt(x.area) || (f as number) > 1.5,
       // The worse of the two ratios to their thresholds (> 1 when warned).
-      measure: (x, f) => Math.max(ratio(x.gapLength, 0.1 * Math.sqrt(x.area)), (f as number) / 1.5),
+      measure: (x, f) => Math.max(cappedRatio(x.gapLength, 0.1 * Math.sqrt(x.area)), (f as number) / 1.5),
       message: (_x, f) =>
         `fringing factor ${formatNumber(f as number, 3)} with a gap above 10 % of the pole width or F above 1.5: ` +
         "the empirical correction is rough here; check by measurement or a field solution (common practice)",
@@ -253,10 +253,10 @@ export const gapFringingFactor = /* @__PURE__ */ defineFormula({
     // 2G overflows only for G above half the largest double; then ln(G / (g/2)), with g/2 exact for
     // g >= 2^-1021, or ln(G/g) + ln 2 where G/g is astronomically large (no cancellation).
     const ln = 2 * G <= Number.MAX_VALUE ? logOfRatio(2 * G, g) : g >= 2 ** -1021 ? logOfRatio(G, g / 2) : logOfRatio(G, g) + Math.LN2;
-    if (tame(g) && tame(x.area)) return 1 + (g / Math.sqrt(x.area)) * ln;
-    const addend = div(mul(scaled(g), scaled(ln)), sqrt(scaled(x.area)));
+    if (moderate(g) && moderate(x.area)) return 1 + (g / Math.sqrt(x.area)) * ln;
+    const addend = Scaled.of(g).times(ln).div(Scaled.of(x.area).sqrt());
     // Below 2^-60 the addend cannot move 1 (it may even underflow the doubles): F is 1.
-    return addend.e < -60 ? 1 : 1 + toNumber(addend);
+    return addend.e < -60 ? 1 : 1 + addend.toNumber();
   },
 });
 
@@ -289,9 +289,9 @@ export const inductanceFactor = /* @__PURE__ */ defineFormula({
   validity: [FRINGING_WARNING, NOT_A_CORE_WARNING],
   source: [IEC_60205, { ...MCLYMAN, locator: "ch. 8 (from memory)" }],
   compute: (x) =>
-    tame(x.area) && tame(x.gapLength) && tame(x.pathLength) && tame(x.relativePermeability)
+    moderate(x.area) && moderate(x.gapLength) && moderate(x.pathLength) && moderate(x.relativePermeability)
       ? (MU0 * x.area) / (x.gapLength + x.pathLength / x.relativePermeability)
-      : toNumber(div(product(MU0, x.area), gapPlusCore(x.gapLength, x.pathLength, x.relativePermeability))),
+      : Scaled.of(MU0).times(x.area).div(gapPlusCore(x.gapLength, x.pathLength, x.relativePermeability)).toNumber(),
 });
 
 /**
@@ -319,5 +319,5 @@ export const inductanceFromFactor = /* @__PURE__ */ defineFormula({
   output: { dimension: "Inductance", description: "Inductance of the winding" },
   source: [IEC_60205, { ...MCLYMAN, locator: "ch. 8 (from memory)" }],
   compute: (x) =>
-    tame(x.inductanceFactor) && tame(x.turns) ? x.inductanceFactor * x.turns * x.turns : quotient([x.inductanceFactor, x.turns, x.turns]),
+    moderate(x.inductanceFactor) && moderate(x.turns) ? x.inductanceFactor * x.turns * x.turns : scaledProduct([x.inductanceFactor, x.turns, x.turns]),
 });

@@ -26,24 +26,3 @@ export const BREAKDOWN_CAUTION = {
     `field ${formatNumber(magnitude(value), 3)} V/m reaches the ~3 MV/m breakdown strength of dry air at sea level (uniform field; common practice): ` +
     `expect corona or arcing in air, and treat the source as high voltage. ${GOVERN}`,
 } as const;
-
-/**
- * a / b for positive a, b, limited to the largest double: a condition's
- * measure ("how far past the threshold") must stay finite for bulk tools to
- * compare points, also where the ratio itself would overflow.
- */
-export function ratio(a: number, b: number): number {
-  return Math.min(a / b, Number.MAX_VALUE);
-}
-
-/**
- * ln(b / a) for 0 < a < b (both finite), to a few ulp. Near one (b <= 2a) the
- * difference b - a is exact (Sterbenz), so log1p((b - a) / a) keeps the digits
- * that forming b / a first would round away; where b / a overflows, ln b - ln a
- * has no cancellation (the difference exceeds 700).
- */
-export function logOfRatio(b: number, a: number): number {
-  if (b <= 2 * a) return Math.log1p((b - a) / a);
-  const r = b / a;
-  return r <= Number.MAX_VALUE ? Math.log(r) : Math.log(b) - Math.log(a);
-}

@@ -16,6 +16,9 @@
 // largest one of their component (by 2^-1000 and more) are lost to underflow,
 // which stays below that bound relative to the largest term.
 
+// exponentOf (exact, from the bits) and ldexp (x 2^k in three exact steps) are the library's scaled-arithmetic helpers.
+import { exponentOf, ldexp as timesPow2 } from "../math/scaled.js";
+
 /** The value of component i is `mantissa[i] * 2^exponent[i]`; mantissas are at most about 16. */
 export interface Scaled3 {
   readonly mantissa: [number, number, number];
@@ -23,20 +26,6 @@ export interface Scaled3 {
 }
 
 const SPLIT = 134217729; // 2^27 + 1
-
-/** Exponent e with x / 2^e in [1, 2) for x > 0 (log2 may round up at the top of a binade; then [0.5, 1)). */
-function exponentOf(x: number): number {
-  return Math.floor(Math.log2(x));
-}
-
-/** x * 2^k, exact whenever the result is normal, for any integer k in [-2200, 2200]. */
-export function timesPow2(x: number, k: number): number {
-  // Three steps of at most 2^±734 each: every power is representable.
-  const k1 = Math.trunc(k / 3);
-  const k2 = Math.trunc((k - k1) / 2);
-  const k3 = k - k1 - k2;
-  return x * 2 ** k1 * 2 ** k2 * 2 ** k3;
-}
 
 // Error-free sum: a + b = s + e exactly (Knuth's TwoSum).
 function twoSum(a: number, b: number, out: number[], i: number): number {

@@ -5,7 +5,7 @@ import { norm } from "../math/vec3.js";
 import { crossPlus, scaledVector } from "./cross.js";
 import { strongFieldCaution, GOVERN } from "../core/hazards.js";
 import { formatNumber } from "../core/format.js";
-import { scaledProduct } from "../capacitance/shared.js";
+import { scaledProduct } from "../math/scaled.js";
 import { CHARGE, faultCurrentCaution } from "./shared.js";
 
 const MU0_OVER_2PI = MU0 / (2 * Math.PI);

@@ -2,9 +2,9 @@ import { SPEED_OF_LIGHT } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { NON_NEGATIVE, POSITIVE } from "../core/spec.js";
 import { dot, norm, type V3 } from "../math/vec3.js";
-import { crossPlus, scaledVector, timesPow2 } from "./cross.js";
+import { crossPlus, scaledVector } from "./cross.js";
 import { strongFieldCaution } from "../core/hazards.js";
-import { scaledProduct } from "../capacitance/shared.js";
+import { ldexp, scaledProduct } from "../math/scaled.js";
 import { beamCaution, CHARGE, PARTICLE_MASS, lorentzFactor } from "./shared.js";
 
 const C = SPEED_OF_LIGHT;
@@ -238,7 +238,7 @@ export const driftVelocity = /* @__PURE__ */ defineFormula({
   compute: (x) => {
     const B = x.fluxDensity;
     const eb = Math.floor(Math.log2(Math.max(Math.abs(B[0]), Math.abs(B[1]), Math.abs(B[2]))));
-    const b0 = timesPow2(B[0], -eb), b1 = timesPow2(B[1], -eb), b2 = timesPow2(B[2], -eb);
+    const b0 = ldexp(B[0], -eb), b1 = ldexp(B[1], -eb), b2 = ldexp(B[2], -eb);
     const b2sum = b0 * b0 + b1 * b1 + b2 * b2; // in [0.25, 12): a sum of squares of scaled components
     const s = crossPlus(x.electricField, B);
     const shift = -2 * eb;

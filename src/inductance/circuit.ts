@@ -2,7 +2,7 @@ import { defineFormula } from "../core/formula.js";
 import { formatNumber } from "../core/format.js";
 import { GOVERN, HAZARDOUS_ENERGY } from "../core/hazards.js";
 import { NON_NEGATIVE, POSITIVE } from "../core/spec.js";
-import { Scaled, moderate, scaledProduct } from "./shared.js";
+import { Scaled, moderate, scaledProduct, twoProduct } from "../math/scaled.js";
 
 const CIRCUITS = { authors: "C. K. Alexander, M. N. O. Sadiku", year: 2013, title: "Fundamentals of Electric Circuits, 5th ed." } as const;
 
@@ -57,7 +57,7 @@ const COUPLED_PAIR = [
  *
  * Linear inductor (constant L); for a saturating core integrate i dPsi instead.
  * Scaled for extreme magnitudes: every representable result to a few ulp,
- * `out_of_range` beyond the double range or below the smallest normal double.
+ * `out_of_range` beyond the double range or below the smallest subnormal (2^-1074; a subnormal result is returned).
  * A `stored_energy` caution from 20 J (the hazardous energy level). Whatever
  * the energy, interrupting the current produces a voltage L dI/dt that can arc
  * and destroy semiconductors (said in the description, since it always holds).
@@ -88,22 +88,9 @@ export const inductorEnergy = /* @__PURE__ */ defineFormula({
   // I^2 could overflow (or L I^2 underflow) in an intermediate step: scaled outside moderate magnitudes.
   compute: (x) => {
     const i = Math.abs(x.current);
-    return moderate(x.inductance) && moderate(i) ? 0.5 * x.inductance * i * i : scaledProduct(0.5, x.inductance, i, i);
+    return moderate(x.inductance) && moderate(i) ? 0.5 * x.inductance * i * i : scaledProduct([0.5, x.inductance, i, i]);
   },
 });
-
-/** a b as an unevaluated sum hi + lo, exactly (Dekker's product with Veltkamp's split). */
-function twoProduct(a: number, b: number): [number, number] {
-  const p = a * b;
-  const SPLIT = 134217729; // 2^27 + 1
-  const ca = SPLIT * a;
-  const ahi = ca - (ca - a);
-  const alo = a - ahi;
-  const cb = SPLIT * b;
-  const bhi = cb - (cb - b);
-  const blo = b - bhi;
-  return [p, ahi * bhi - p + ahi * blo + alo * bhi + alo * blo];
-}
 
 /** L1 L2 - M^2 to about one ulp even when M is close to sqrt(L1 L2); moderate magnitudes. */
 function detInductance(l1: number, l2: number, mutual: number): number {
@@ -200,7 +187,7 @@ function seriesOpposing(x: { mutualInductance: number; inductance1: number; indu
  * ch. 13 (coupled inductors) (from memory); derived from the two mesh equations.
  * Scaled (exact mantissa products) for extreme magnitudes: every representable
  * result to a few ulp, `out_of_range` beyond the double range or below the
- * smallest normal double. If M exceeds sqrt(L1 L2) within the coupling
+ * smallest subnormal (2^-1074; a subnormal result is returned). If M exceeds sqrt(L1 L2) within the coupling
  * relation's rounding tolerance, the pair is taken as perfectly coupled with a
  * `coupling_clamped` warning.
  *

@@ -1,7 +1,8 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { POSITIVE } from "../core/spec.js";
-import { acoshRatio, exponentOf, ldexp, logRatio, moderate, ratio, scaledProduct } from "./shared.js";
+import { acoshOfRatio, cappedRatio, logOfRatio } from "../math/ratios.js";
+import { exponentOf, ldexp, moderate, scaledProduct } from "../math/scaled.js";
 
 const MU0_OVER_2PI = MU0 / (2 * Math.PI);
 const MU0_OVER_PI = MU0 / Math.PI;
@@ -25,7 +26,7 @@ const LN8_MINUS_7_4 = 0.3294415416798359;
  */
 export function wirePartialSelf(l: number, r: number): number {
   const t = l / r;
-  const asinh = t > 1e8 ? Math.LN2 + logRatio(l, r) : Math.asinh(t);
+  const asinh = t > 1e8 ? Math.LN2 + logOfRatio(l, r) : Math.asinh(t);
   let middle: number;
   if (moderate(l) && moderate(r)) middle = l / (Math.hypot(l, r) + r);
   else {
@@ -35,7 +36,7 @@ export function wirePartialSelf(l: number, r: number): number {
     middle = ls / (Math.hypot(ls, rs) + rs);
   }
   const bracket = asinh - middle + 0.25;
-  return moderate(l) ? MU0_OVER_2PI * l * bracket : scaledProduct(MU0_OVER_2PI, l, bracket);
+  return moderate(l) ? MU0_OVER_2PI * l * bracket : scaledProduct([MU0_OVER_2PI, l, bracket]);
 }
 
 /**
@@ -48,7 +49,7 @@ export function wirePartialSelf(l: number, r: number): number {
  * (current on the facing surfaces). At low frequency a solid inner conductor
  * adds mu0 l/(8 pi). Computed with log1p((b - a)/a) for thin gaps and ln b - ln a
  * where b/a overflows; every representable result to a few ulp, `out_of_range`
- * beyond the double range or below the smallest normal double.
+ * beyond the double range or below the smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * Reference: Griffiths, Introduction to Electrodynamics, 4th ed. (Pearson, 2013),
  * ch. 7 (from memory).
@@ -73,8 +74,8 @@ export const coaxialInductance = /* @__PURE__ */ defineFormula({
   // logRatio keeps b close to a accurate and never forms an overflowing b/a;
   // the logarithm is in [1e-16, 1500], so only the length can need scaling.
   compute: (x) => {
-    const ln = logRatio(x.outerRadius, x.innerRadius);
-    return moderate(x.length) ? MU0_OVER_2PI * x.length * ln : scaledProduct(MU0_OVER_2PI, x.length, ln);
+    const ln = logOfRatio(x.outerRadius, x.innerRadius);
+    return moderate(x.length) ? MU0_OVER_2PI * x.length * ln : scaledProduct([MU0_OVER_2PI, x.length, ln]);
   },
 });
 
@@ -90,7 +91,7 @@ export const coaxialInductance = /* @__PURE__ */ defineFormula({
  * the line is shorter than 10 separations). acosh(1 + s), s = (D - 2a)/(2a), is
  * built from s so nearly touching wires keep full precision; every representable
  * result to a few ulp, `out_of_range` beyond the double range or below the
- * smallest normal double.
+ * smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * Reference: S. Ramo, J. R. Whinnery, T. Van Duzer, Fields and Waves in
  * Communication Electronics, 3rd ed. (1994), table of transmission-line parameters
@@ -116,7 +117,7 @@ export const twoWireInductance = /* @__PURE__ */ defineFormula({
     {
       code: "end_effects",
       when: (x) => x.length < 10 * x.separation,
-      measure: (x) => ratio(10 * x.separation, x.length),
+      measure: (x) => cappedRatio(10 * x.separation, x.length),
       message: (x) =>
         `length is only ${(x.length / x.separation).toPrecision(3)} separations: the per-length formula neglects end effects of order separation/length`,
     },
@@ -125,8 +126,8 @@ export const twoWireInductance = /* @__PURE__ */ defineFormula({
   // acoshRatio: acosh(1 + s) from the exact difference near touching, ln terms
   // (no D^2) far apart; in [1e-8, 1500], so only the length can need scaling.
   compute: (x) => {
-    const ach = acoshRatio(x.separation, 2 * x.wireRadius);
-    return moderate(x.length) ? MU0_OVER_PI * x.length * ach : scaledProduct(MU0_OVER_PI, x.length, ach);
+    const ach = acoshOfRatio(x.separation, 2 * x.wireRadius);
+    return moderate(x.length) ? MU0_OVER_PI * x.length * ach : scaledProduct([MU0_OVER_PI, x.length, ach]);
   },
 });
 
@@ -142,7 +143,7 @@ export const twoWireInductance = /* @__PURE__ */ defineFormula({
  * is rewritten as -l^2/(sqrt(l^2 + r^2) + r), which does not cancel for l << r.
  * Scaled for extreme magnitudes (l/r up to 1e600 and beyond): every
  * representable result to a few ulp, `out_of_range` beyond the double range or
- * below the smallest normal double.
+ * below the smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * Validity: uniform current (skin depth well above r); the radius enters as the
  * mutual-inductance distance, which assumes a long wire (warning for l < 10 r).
@@ -170,7 +171,7 @@ export const straightWireInductance = /* @__PURE__ */ defineFormula({
     {
       code: "short_wire",
       when: (x) => x.length < 10 * x.radius,
-      measure: (x) => ratio(10 * x.radius, x.length),
+      measure: (x) => cappedRatio(10 * x.radius, x.length),
       message: (x) =>
         `length is ${(x.length / x.radius).toPrecision(3)} radii: the formula takes the radius as the wire's own mean distance and the internal term l/4, both derived for a long wire`,
     },
@@ -189,7 +190,7 @@ export const straightWireInductance = /* @__PURE__ */ defineFormula({
  * Validity: thin wire; terms of order (a/R)^2 ln(8R/a) are neglected (warning
  * when a > R/10). Computed as ln(R/a) + (ln 8 - 7/4), two positive terms (no
  * 8R to overflow); every representable result to a few ulp, `out_of_range`
- * beyond the double range or below the smallest normal double.
+ * beyond the double range or below the smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * Reference: Grover (1946), circular rings of round wire; E. B. Rosa and
  * F. W. Grover, Bull. Bureau of Standards 8 (1912), formulas for circular rings
@@ -221,7 +222,7 @@ export const loopInductance = /* @__PURE__ */ defineFormula({
   ],
   source: { ...GROVER, locator: "circular ring of round wire (from memory)" },
   compute: (x) => {
-    const bracket = logRatio(x.loopRadius, x.wireRadius) + LN8_MINUS_7_4; // ln(8R/a) - 7/4, in [0.33, 1500]
-    return moderate(x.loopRadius) ? MU0 * x.loopRadius * bracket : scaledProduct(MU0, x.loopRadius, bracket);
+    const bracket = logOfRatio(x.loopRadius, x.wireRadius) + LN8_MINUS_7_4; // ln(8R/a) - 7/4, in [0.33, 1500]
+    return moderate(x.loopRadius) ? MU0 * x.loopRadius * bracket : scaledProduct([MU0, x.loopRadius, bracket]);
   },
 });

@@ -3,7 +3,9 @@ import { defineFormula } from "../core/formula.js";
 import { COUNT, NON_NEGATIVE, POSITIVE } from "../core/spec.js";
 import { countLoop } from "../math/loop-count.js";
 import { gaussLegendre } from "../math/quadrature.js";
-import { Scaled, maxwellMutual, moderate, ratio } from "./shared.js";
+import { cappedRatio } from "../math/ratios.js";
+import { Scaled, moderate } from "../math/scaled.js";
+import { maxwellMutual } from "./shared.js";
 
 const MAXWELL = {
   authors: "J. C. Maxwell",
@@ -49,7 +51,7 @@ export const coaxialLoopsMutualInductance = /* @__PURE__ */ defineFormula({
     {
       code: "thin_filaments",
       when: (x) => Math.hypot(x.radius1 - x.radius2, x.distance) < 0.01 * Math.min(x.radius1, x.radius2),
-      measure: (x) => ratio(0.01 * Math.min(x.radius1, x.radius2), Math.hypot(x.radius1 - x.radius2, x.distance)),
+      measure: (x) => cappedRatio(0.01 * Math.min(x.radius1, x.radius2), Math.hypot(x.radius1 - x.radius2, x.distance)),
       message: "the circles are within 1 % of a radius of each other: real wires of comparable radius are not filaments there; use the wires' geometric mean distance",
     },
   ],

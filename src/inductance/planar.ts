@@ -1,7 +1,7 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { NON_NEGATIVE, POSITIVE, TURNS } from "../core/spec.js";
-import { Scaled, exponentOf, ldexp, moderate } from "./shared.js";
+import { Scaled, exponentOf, ldexp, moderate } from "../math/scaled.js";
 
 const MOHAN = {
   authors: "S. S. Mohan, M. del Mar Hershenson, S. P. Boyd, T. H. Lee",
@@ -77,7 +77,7 @@ function spiral(k: number, n: number, dout: number, din: number, g: (rho: number
  * Reference: Mohan, Hershenson, Boyd & Lee, IEEE JSSC 34(10) (1999), current-sheet
  * approximation and its coefficient table (coefficients from memory). Scaled for
  * extreme magnitudes: every representable result to a few ulp, `out_of_range`
- * beyond the double range or below the smallest normal double.
+ * beyond the double range or below the smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * @example
  * planarSpiralInductance({ turns: 5, outerDiameter: quantity(400, "um"), innerDiameter: quantity(200, "um"), shape: "square" }); // ≈ 11.4 nH
@@ -120,7 +120,7 @@ export const planarSpiralInductance = /* @__PURE__ */ defineFormula({
  * Reference: Mohan, Hershenson, Boyd & Lee, IEEE JSSC 34(10) (1999), modified
  * Wheeler formula and its coefficient table (coefficients from memory). Scaled for
  * extreme magnitudes: every representable result to a few ulp, `out_of_range`
- * beyond the double range or below the smallest normal double.
+ * beyond the double range or below the smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * @example
  * modifiedWheelerSpiralInductance({ turns: 5, outerDiameter: quantity(400, "um"), innerDiameter: quantity(200, "um"), shape: "square" }); // ≈ 11.5 nH

@@ -1,7 +1,9 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { POSITIVE, TURNS } from "../core/spec.js";
-import { Scaled, moderate, ratio, nagaoka, nagaokaScaled, scaledProduct, shortCoilFactor } from "./shared.js";
+import { cappedRatio } from "../math/ratios.js";
+import { Scaled, moderate, scaledProduct } from "../math/scaled.js";
+import { nagaoka, nagaokaScaled, shortCoilFactor } from "./shared.js";
 
 const NAGAOKA_SOURCE = {
   authors: "H. Nagaoka",
@@ -32,7 +34,8 @@ const WHEELER_MULTI = 0.8e-6 / INCH;
  *
  * Exact for a uniform current sheet. Computed without cancellation for very
  * long and very short coils (see `nagaoka` in shared.ts); a coefficient below
- * the smallest normal double (length/radius below about 1e-310) is `out_of_range`.
+ * the normal range comes back subnormal, and below 2^-1074 (length/radius below
+ * about 2e-326) it is `out_of_range`.
  *
  * Reference: Nagaoka (1909); Grover, Inductance Calculations (1946), single-layer
  * coils (locators from memory).
@@ -102,7 +105,7 @@ export const solenoidInductance = /* @__PURE__ */ defineFormula({
     const l = x.length;
     if (l < r) {
       const F = shortCoilFactor(r, l); // in [0.79, 1500]
-      return moderate(N) && moderate(r) ? MU0 * N * N * r * F : scaledProduct(MU0, N, N, r, F);
+      return moderate(N) && moderate(r) ? MU0 * N * N * r * F : scaledProduct([MU0, N, N, r, F]);
     }
     const K = nagaoka(r, l);
     if (moderate(N) && moderate(r) && moderate(l)) return MU0 * Math.PI * N * N * r * (r / l) * K;
@@ -118,7 +121,7 @@ export const solenoidInductance = /* @__PURE__ */ defineFormula({
  * Overestimates a real coil by the factor 1/K (Nagaoka): about 0.85 r/l
  * relative for long coils; a warning gives the error when above 1 %. Scaled
  * for extreme magnitudes: every representable result to a few ulp,
- * `out_of_range` beyond the double range or below the smallest normal double.
+ * `out_of_range` beyond the double range or below the smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * Reference: any electromagnetics text, e.g. D. J. Griffiths, Introduction to
  * Electrodynamics, 4th ed. (Pearson, 2013), ch. 7 (from memory).
@@ -202,7 +205,7 @@ export const wheelerSolenoidInductance = /* @__PURE__ */ defineFormula({
     {
       code: "short_coil",
       when: (x) => x.length <= 0.8 * x.radius,
-      measure: (x) => ratio(0.8 * x.radius, x.length),
+      measure: (x) => cappedRatio(0.8 * x.radius, x.length),
       message: (x) =>
         `length/radius = ${(x.length / x.radius).toPrecision(3)} is below 0.8: Wheeler's stated 1 % accuracy no longer applies; use solenoidInductance`,
     },
@@ -276,5 +279,5 @@ export const multilayerCoilInductance = /* @__PURE__ */ defineFormula({
 /** The largest of Wheeler's terms 6a, 9b, 10c over the smallest (ratios, so no term overflows). */
 function imbalance(x: { meanRadius: number; length: number; depth: number }): number {
   const t = [6 * (x.meanRadius / x.depth), 9 * (x.length / x.depth), 10];
-  return ratio(Math.max(...t), Math.min(...t));
+  return cappedRatio(Math.max(...t), Math.min(...t));
 }

@@ -1,7 +1,8 @@
 import { MU0 } from "../constants/si.js";
 import { defineFormula } from "../core/formula.js";
 import { POSITIVE, RELATIVE_PERMEABILITY, TURNS } from "../core/spec.js";
-import { Scaled, exponentOf, ldexp, logRatio, moderate, scaledProduct } from "./shared.js";
+import { logOfRatio } from "../math/ratios.js";
+import { Scaled, exponentOf, ldexp, moderate, scaledProduct } from "../math/scaled.js";
 
 /** The core's permeability, as both toroid formulas take it. */
 const CORE_PERMEABILITY = {
@@ -31,7 +32,7 @@ const MU0_OVER_2PI = MU0 / (2 * Math.PI);
  * thin cores, and the product is scaled for extreme magnitudes: every
  * representable result is returned to a few ulp (measured in
  * tests/inductance/extremes-accuracy.test.ts), results beyond the double range
- * or below the smallest normal double are `out_of_range`.
+ * or below the smallest subnormal (2^-1074; a subnormal result is returned) are `out_of_range`.
  *
  * Reference: any electromagnetics text, e.g. D. J. Griffiths, Introduction to
  * Electrodynamics, 4th ed. (Pearson, 2013), ch. 7 (from memory).
@@ -58,11 +59,11 @@ export const toroidInductance = /* @__PURE__ */ defineFormula({
   // logRatio keeps thin cores (b close to a) accurate; the plain product is
   // safe while every factor is moderate, otherwise it is scaled.
   compute: (x) => {
-    const ln = logRatio(x.outerRadius, x.innerRadius); // in [1e-16, 1500]: always moderate
+    const ln = logOfRatio(x.outerRadius, x.innerRadius); // in [1e-16, 1500]: always moderate
     if (moderate(x.relativePermeability) && moderate(x.turns) && moderate(x.height)) {
       return MU0_OVER_2PI * x.relativePermeability * x.turns * x.turns * x.height * ln;
     }
-    return scaledProduct(MU0_OVER_2PI, x.relativePermeability, x.turns, x.turns, x.height, ln);
+    return scaledProduct([MU0_OVER_2PI, x.relativePermeability, x.turns, x.turns, x.height, ln]);
   },
 });
 
@@ -78,7 +79,7 @@ export const toroidInductance = /* @__PURE__ */ defineFormula({
  * r^2 / (R + sqrt((R - r)(R + r))): the textbook difference R - sqrt(R^2 - r^2)
  * loses digits for thin sections (r << R). Scaled for extreme magnitudes: every
  * representable result to a few ulp, `out_of_range` beyond the double range or
- * below the smallest normal double.
+ * below the smallest subnormal (2^-1074; a subnormal result is returned).
  *
  * Reference: F. W. Grover, Inductance Calculations (1946), toroidal coils
  * (from memory); the integral is elementary.

@@ -1,9 +1,10 @@
 // Every closed form against the decimal.js oracle (50 digits, exact decimal
 // values of the double inputs, CODATA 2022 eps0): within a few ulp over the
 // whole domain, including near-degenerate geometry and magnitudes from 1e-300
-// to 1e300. Where the exact result lies outside the normal double range the
-// formula must say out_of_range instead of returning a wrong number (these
-// formulas refuse subnormal results rather than return them with lost digits).
+// to 1e300. Where the exact result lies beyond the largest double or below the
+// smallest subnormal the formula must say out_of_range instead of returning a
+// wrong number; a subnormal result comes back within one of its ulps (the
+// library's range policy, src/math/scaled.ts; see agreesWithOracle).
 //
 // Bounds per formula (in units of eps = 2^-52, relative): the products go
 // through mulDiv (at most 4 roundings) and the constants 2 pi eps0, 4 pi eps0
