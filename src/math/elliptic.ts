@@ -21,6 +21,7 @@
  * ellipticByComplement (and ln(1/k') when k' underflows too).
  */
 import { countLoop } from "./loop-count.js";
+import { ldexp } from "./scaled.js";
 
 const TOL_F = Math.pow(3 * Number.EPSILON, -1 / 6);
 const TOL_D = Math.pow(Number.EPSILON / 4, -1 / 6);
@@ -47,13 +48,6 @@ const SINGULAR_RATIO = 2 ** -120;
 export const LOG_FORM_LIMIT = 2 ** -24;
 
 const LN4 = 2 * Math.LN2;
-
-/** x 2^k for integer |k| <= 2200, exact unless the result itself under- or overflows. */
-function ldexp(x: number, k: number): number {
-  const a = Math.trunc(k / 3);
-  const b = Math.trunc((k - a) / 2);
-  return x * 2 ** a * 2 ** b * 2 ** (k - a - b);
-}
 
 /** j with 4^-j x near 1 for finite x > 0 (Math.log2 may be off by one next to a power of two: harmless). */
 function halfExponent(x: number): number {
