@@ -254,12 +254,15 @@ function generatedScan(formula: AnyFormula, nc: number, name0: string, name1: st
     const n1 = ${name1 === undefined ? "1" : "v1.length"};
     ${count(conditions.length, (c) => `const w${c} = conditions[${c}].when, m${c} = conditions[${c}].measure; let n${c} = 0, i${c} = -1, b${c} = -Infinity;`)}
     const point = ${nc === 0 ? "null" : `new Array(${nc}).fill(0)`};
-    for (let k = 0; k < computed.length; k++) {
-      if (computed[k] !== 1) continue;
-      o.${name0} = v0[(k / n1) | 0];
-      ${name1 === undefined ? "" : `o.${name1} = v1[k % n1];`}
-      ${nc === 0 ? "const v = values[k];" : `${count(nc, (c) => `point[${c}] = comps[${c}][k];`, " ")} const v = point;`}
-      ${count(conditions.length, check)}
+    // Row by row, as the point loops run: no division per point.
+    for (let i = 0, k = 0; i < v0.length; i++) {
+      o.${name0} = v0[i];
+      for (let j = 0; j < n1; j++, k++) {
+        if (computed[k] !== 1) continue;
+        ${name1 === undefined ? "" : `o.${name1} = v1[j];`}
+        ${nc === 0 ? "const v = values[k];" : `${count(nc, (c) => `point[${c}] = comps[${c}][k];`, " ")} const v = point;`}
+        ${count(conditions.length, check)}
+      }
     }
     ${count(conditions.length, (c) => `out.counts[${c}] = n${c}; out.index[${c}] = i${c}; out.measure[${c}] = b${c};`)}`;
   let made: Scan | null;
