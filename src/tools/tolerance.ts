@@ -4,7 +4,7 @@ import { getFormula } from "../core/registry.js";
 import type { InputSpecs, Note, OutputSpec, QuantityInput } from "../core/spec.js";
 import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
 import { NoteCollector, type NoteSummary } from "./notes.js";
-import { createRandom } from "./random.js";
+import { createRandom, type Random } from "./random.js";
 
 /** A value in SI, or a unit string ("0.2 mm"). */
 export type QuantityValue = number | string;
@@ -106,7 +106,7 @@ export interface ToleranceResult {
   readonly notesOver: number;
 }
 
-interface Varied {
+export interface Varied {
   readonly name: string;
   readonly spec: QuantityInput;
   readonly nominal: number;
@@ -337,14 +337,7 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
       let ok = true;
       for (let i = 0; i < n; i++) {
         const v = varied[i]!;
-        let t: number;
-        if (v.kind === "normal") t = v.nominal + v.sd * rng.normal();
-        else {
-          // A weighted mean of the band ends: hi - lo overflows for huge bands.
-          const u = rng.next();
-          t = v.lo * (1 - u) + v.hi * u;
-        }
-        if (v.spec.domain?.integer) t = Math.round(t);
+        const t = drawSample(v, rng);
         // A normal sample can step past the largest double: not a value, rejected.
         if (t - t !== 0 || !inDomain(t, v.spec.domain)) ok = false;
         x[v.name] = t;
@@ -436,7 +429,7 @@ function scaledNorm(id: string, what: string, a: readonly number[], b: readonly 
  * value lies in [-1, 1], deviations in [-2, 2]. A standard deviation past the
  * largest double (values spread over both signs near it) is out_of_range.
  */
-function scaledMoments(id: string, acc: Float64Array): { mean: number; sd: number } {
+export function scaledMoments(id: string, acc: Float64Array): { mean: number; sd: number } {
   const n = acc.length;
   const m = Math.max(Math.abs(acc[0]!), Math.abs(acc[n - 1]!));
   if (m === 0) return { mean: 0, sd: 0 };
@@ -452,7 +445,7 @@ function scaledMoments(id: string, acc: Float64Array): { mean: number; sd: numbe
   return { mean, sd };
 }
 
-function readTolerance(id: string, name: string, spec: QuantityInput, raw: Record<string, unknown>, remarks: string[]): Varied {
+export function readTolerance(id: string, name: string, spec: QuantityInput, raw: Record<string, unknown>, remarks: string[]): Varied {
   const q = (field: string, v: unknown): number => {
     if (v === undefined) throw new FormulaError("invalid_argument", { formula: id, input: name, detail: `the tolerance needs "${field}"` });
     return readQuantity(id, name, spec.dimension, v);
@@ -515,7 +508,19 @@ function readTolerance(id: string, name: string, spec: QuantityInput, raw: Recor
  * input's scale (its nominal or band) and shrinks to stay inside the domain.
  * Undefined when f cannot be computed on both sides.
  */
-function derivative(f: (t: number) => number, v: Varied, _id: string): number | undefined {
+/** One Monte Carlo draw of a toleranced input (whole numbers rounded); the caller checks the domain. */
+export function drawSample(v: Varied, rng: Random): number {
+  let t: number;
+  if (v.kind === "normal") t = v.nominal + v.sd * rng.normal();
+  else {
+    // A weighted mean of the band ends: hi - lo overflows for huge bands.
+    const u = rng.next();
+    t = v.lo * (1 - u) + v.hi * u;
+  }
+  return v.spec.domain?.integer ? Math.round(t) : t;
+}
+
+export function derivative(f: (t: number) => number, v: Varied, _id: string): number | undefined {
   const n = v.nominal;
   const scale = Math.max(Math.abs(n), v.hi / 2 - v.lo / 2, 1e-300);
   let h = 1e-3 * scale;

@@ -1,0 +1,8 @@
+// Designs: chained calculations with checks, tolerance through the chain and a calculation report.
+export { design, DesignBuilder } from "./spec.js";
+export type { DesignSpec, DesignStepSpec, DesignBinding, DesignInputValue, Ref } from "./spec.js";
+export { compileDesign, DESIGN_LIMITS } from "./compile.js";
+export { EXPRESSION_LIMITS } from "./expression.js";
+export { evaluateDesign, designTolerance, solveDesign, DESIGN_TOOL_LIMITS } from "./tools.js";
+export type { DesignToleranceOptions, DesignToleranceResult, DesignQuantitySpread, DesignSolveRequest, DesignSolveResult } from "./tools.js";
+export type { DesignResult, DesignStepResult, DesignDerivedResult, DesignCheckResult, DesignInputResult, DesignNote } from "./run.js";

@@ -1,0 +1,110 @@
+import type { Formula } from "../core/formula.js";
+import type { FormulaInputs, FormulaOutput, InputSpecs, OutputSpec } from "../core/spec.js";
+import type { ToleranceSpec } from "../tools/tolerance.js";
+import type { DimensionName } from "../units/dimensions.js";
+import type { DimensionTypes } from "../units/types.js";
+
+// A design as data (JSON for files and backends) and the typed builder that
+// writes the same data from TypeScript, where a binding of the wrong
+// dimension does not compile.
+
+/** A design input: a number in SI, a unit string ("0.5 mm"), or a tolerance ({ nominal: "0.5 mm", percent: 5 }). */
+export type DesignInputValue = number | string | ToleranceSpec;
+
+/**
+ * A step input's binding: a number in SI, or a text that is a unit string
+ * ("0.5 mm"), a design name ("gapLength"), an expression of names and
+ * quantities ("2 * gapLength + 0.1 mm"), or a choice word for a choice input.
+ * Vector inputs take a 3-array of such.
+ */
+export type DesignBinding = number | string | readonly (number | string)[];
+
+export interface DesignStepSpec {
+  /** Registry id of the formula. */
+  readonly formula: string;
+  /** Bindings by formula input name; inputs with defaults may be left out. */
+  readonly inputs?: Readonly<Record<string, DesignBinding>>;
+}
+
+/** A design: named inputs, steps, derived quantities and checks. Names are plain words shared by all four. */
+export interface DesignSpec {
+  readonly title?: string;
+  readonly inputs?: Readonly<Record<string, DesignInputValue>>;
+  /** Steps by name; each name holds its formula's result. Order does not matter. */
+  readonly steps?: Readonly<Record<string, DesignStepSpec>>;
+  /** Derived quantities: expressions of names and quantities (+ - * / ^ sqrt, parentheses). */
+  readonly derived?: Readonly<Record<string, string>>;
+  /** Checks such as "peakFluxDensity < 0.3 T" or "temperatureRise <= 40 K". */
+  readonly checks?: readonly string[];
+}
+
+// ---- typed builder ----
+
+declare const QUANTITY: unique symbol;
+/** A reference to a named design value of quantity type Q. */
+export interface Ref<Q> {
+  readonly name: string;
+  readonly [QUANTITY]?: Q;
+}
+
+const REF = Symbol.for("emquant.designRef");
+
+function isRef(v: unknown): v is Ref<unknown> {
+  return typeof v === "object" && v !== null && (v as Record<symbol, unknown>)[REF] === true;
+}
+
+type Refs<Env> = { readonly [K in keyof Env]: Ref<Env[K]> };
+/** A typed step binding: a quantity of the input's type or a reference to one. */
+type Bindings<I extends InputSpecs> = { readonly [K in keyof FormulaInputs<I>]: FormulaInputs<I>[K] | Ref<NonNullable<FormulaInputs<I>[K]>> };
+type TypedTolerance<Q> =
+  | { readonly nominal: Q; readonly plusMinus: Q }
+  | { readonly nominal: Q; readonly percent: number }
+  | { readonly distribution: "normal"; readonly mean: Q; readonly sd: Q }
+  | { readonly distribution: "uniform"; readonly min: Q; readonly max: Q };
+
+/**
+ * Builds a design in TypeScript. Each `input`, `step` and `derived` adds a
+ * name with its quantity type; a step's bindings take quantities or
+ * references (`r.gapLength`) of exactly the formula input's type.
+ * `spec` is the same JSON a design file holds.
+ */
+export class DesignBuilder<Env = object> {
+  private constructor(readonly spec: DesignSpec) {}
+
+  static start(title: string): DesignBuilder<object> {
+    return new DesignBuilder({ title, inputs: {}, steps: {}, derived: {}, checks: [] });
+  }
+
+  input<N extends string, Q extends number>(name: N, value: Q | TypedTolerance<Q> | string): DesignBuilder<Env & { readonly [K in N]: Q }> {
+    return new DesignBuilder({ ...this.spec, inputs: { ...this.spec.inputs, [name]: value as DesignInputValue } });
+  }
+
+  step<N extends string, I extends InputSpecs, O extends OutputSpec>(
+    name: N,
+    formula: Formula<I, O>,
+    bind: (refs: Refs<Env>) => Bindings<I>,
+  ): DesignBuilder<Env & { readonly [K in N]: FormulaOutput<O> }> {
+    const refs = new Proxy({}, { get: (_t, key) => (typeof key === "string" ? { name: key, [REF]: true } : undefined) }) as Refs<Env>;
+    const given = bind(refs) as Record<string, unknown>;
+    const inputs: Record<string, DesignBinding> = {};
+    for (const [k, v] of Object.entries(given)) {
+      if (v === undefined) continue;
+      inputs[k] = isRef(v) ? v.name : Array.isArray(v) ? v.map((c) => (isRef(c) ? c.name : c)) : (v as number | string);
+    }
+    return new DesignBuilder({ ...this.spec, steps: { ...this.spec.steps, [name]: { formula: formula.id, inputs } } });
+  }
+
+  /** A derived quantity of the stated dimension (checked when the design is compiled). */
+  derived<N extends string, D extends DimensionName>(name: N, _dimension: D, expression: string): DesignBuilder<Env & { readonly [K in N]: DimensionTypes[D] }> {
+    return new DesignBuilder({ ...this.spec, derived: { ...this.spec.derived, [name]: expression } }) as never;
+  }
+
+  check(rule: string): DesignBuilder<Env> {
+    return new DesignBuilder({ ...this.spec, checks: [...(this.spec.checks ?? []), rule] });
+  }
+}
+
+/** Start a typed design. */
+export function design(title: string): DesignBuilder<object> {
+  return DesignBuilder.start(title);
+}
