@@ -9,11 +9,14 @@ import { sweepRequest, sweepToCsv, sweepToVegaLite } from "../tools/sweep.js";
 import { toleranceRequest } from "../tools/tolerance.js";
 import { DIMENSIONS } from "../units/dimensions.js";
 import { formatBoth, formatQuantity } from "../units/display.js";
+import { type DesignFiles, designCommand } from "./design.js";
 
 /** Where the command line writes. */
 export interface CliIO {
   out(text: string): void;
   err(text: string): void;
+  /** File access for `design` (main.ts passes node:fs); without it the command refuses. */
+  files?: DesignFiles;
 }
 
 const USAGE = `emquant: electromagnetics formulas with units
@@ -29,6 +32,9 @@ Usage:
                                               or "uniform(0.09 mm, 0.11 mm)"
   emquant sweep <formula> name=from..to [name=from..to] name=value ...
                                               a table over one or two inputs
+  emquant design <file.json> [--tolerance] [--report out.html] [--md out.md]
+                                              evaluate a design file (steps, derived quantities,
+                                              checks); exit status 3 when a check fails
   emquant help
 
 Options:
@@ -40,6 +46,10 @@ Options:
   --log             geometric spacing for sweeps
   --csv             sweep as CSV (the notes found on the grid go to stderr)
   --chart           sweep as a Vega-Lite chart specification (JSON; notes to stderr)
+  --tolerance       design: also run tolerance through the chain (uses --samples, --seed)
+  --report FILE     design: write the calculation report as HTML
+  --md FILE         design: write the calculation report as Markdown
+  --date YYYY-MM-DD design: the date printed on the report (default today)
 
 Values are numbers in SI units or numbers with a unit ("0.2 mm", "4.7 uF").
 Warnings and cautions are printed with every result; sweeps and tolerance
@@ -51,8 +61,8 @@ interface Parsed {
   flags: Map<string, string | true>;
 }
 
-const VALUE_FLAGS = new Set(["samples", "seed", "points", "range"]);
-const BOOL_FLAGS = new Set(["json", "log", "csv", "chart", "help"]);
+const VALUE_FLAGS = new Set(["samples", "seed", "points", "range", "report", "md", "date"]);
+const BOOL_FLAGS = new Set(["json", "log", "csv", "chart", "help", "tolerance"]);
 
 class UsageError extends Error {}
 
@@ -187,6 +197,20 @@ export function runCli(argv: readonly string[], io: CliIO): number {
         return toleranceCommand(p, io, json);
       case "sweep":
         return sweepCommand(p, io, json);
+      case "design": {
+        need(p, 1, "a design file");
+        if (!io.files) throw new UsageError("design needs file access");
+        const date = p.flags.get("date");
+        if (date !== undefined && (typeof date !== "string" || !/^\d{4}-\d{2}-\d{2}$/.test(date))) throw new UsageError("--date needs YYYY-MM-DD");
+        return designCommand(
+          {
+            file: p.positional[0]!, json, tolerance: p.flags.has("tolerance"), samples: intFlag(p, "samples"), seed: intFlag(p, "seed"),
+            report: p.flags.get("report") as string | undefined, markdown: p.flags.get("md") as string | undefined, date: date as string | undefined,
+          },
+          io.files,
+          (t) => io.out(t),
+        );
+      }
       default:
         throw new UsageError(`unknown command "${command}"; try "emquant help"`);
     }

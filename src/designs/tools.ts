@@ -1,3 +1,4 @@
+import { readQuantity } from "../core/convert.js";
 import { type Exponents, nameExponents } from "../units/dimensions.js";
 import { parseQuantity } from "../units/parse.js";
 import { sameDimension } from "./expression.js";
@@ -345,4 +346,69 @@ function readTargetUnit(text: string, exps: Exponents): number {
     throw new FormulaError("wrong_dimension", { formula: "design", input: "target", value: text, expected: nameExponents(exps), received: nameExponents(q.exps) });
   }
   return q.si;
+}
+
+export interface DesignSweepRequest {
+  /** The design input to vary. */
+  readonly input: string;
+  /** Ends of the range: numbers in SI or unit strings. */
+  readonly from: number | string;
+  readonly to: number | string;
+  /** Number of points, 2..10000. */
+  readonly points: number;
+  /** "linear" (default) or "log" (geometric; needs positive ends). */
+  readonly scale?: "linear" | "log";
+}
+
+export interface DesignSweepResult {
+  readonly input: string;
+  readonly unit: string;
+  readonly values: readonly number[];
+  /** Every step and derived quantity along the sweep; null where the chain did not compute. */
+  readonly outputs: readonly { readonly name: string; readonly unit: string; readonly values: readonly (number | null)[] }[];
+  /** Each check as a pass/fail mask along the sweep (false where the chain did not compute). */
+  readonly checks: readonly { readonly rule: string; readonly pass: readonly boolean[] }[];
+  /** Per point: the error code that stopped the chain, or null. */
+  readonly errors: readonly (string | null)[];
+}
+
+/** Sweep one design input and record every step output and every check along the way. */
+export function sweepDesign(d: DesignLike, request: DesignSweepRequest): DesignSweepResult {
+  if (typeof request !== "object" || request === null) throw new FormulaError("wrong_type", { formula: "design", input: "request", value: request, expected: "{ input, from, to, points }" });
+  const c = compiled(d);
+  const inp = c.inputs.find((i) => i.name === request.input);
+  if (!inp) throw new FormulaError("unknown_input", { formula: "design", input: String(request.input), detail: "not a design input" });
+  const points = option("points", request.points, 0, 2, DESIGN_TOOL_LIMITS.sweepPoints);
+  const scale = request.scale ?? "linear";
+  if (scale !== "linear" && scale !== "log") throw new FormulaError("invalid_argument", { formula: "design", input: "scale", value: scale, detail: 'scale is "linear" or "log"' });
+  const from = readQuantity("design", "from", inp.dimension, request.from);
+  const to = readQuantity("design", "to", inp.dimension, request.to);
+  if (scale === "log" && !(from > 0 && to > 0)) throw new FormulaError("invalid_argument", { formula: "design", input: "from", detail: "a log sweep needs positive ends" });
+  const values: number[] = [];
+  for (let k = 0; k < points; k++) {
+    const u = k / (points - 1);
+    // Weighted means of the ends (to - from overflows for ends near the largest double).
+    let t = scale === "log" ? Math.exp(Math.log(from) * (1 - u) + Math.log(to) * u) : from * (1 - u) + to * u;
+    if (inp.spec.domain?.integer) t = Math.round(t);
+    values.push(t);
+  }
+  const base = nominalValues(c);
+  const outputs = c.nodes.map((n) => ({ name: n.name, unit: unitOf(n.exps), values: [] as (number | null)[] }));
+  const checks = c.checks.map((k) => ({ rule: k.text, pass: [] as boolean[] }));
+  const errors: (string | null)[] = [];
+  for (const t of values) {
+    let r: Values | undefined;
+    let code: string | null = null;
+    try {
+      r = runValues(c, new Map(base).set(inp.name, t));
+    } catch (e) {
+      if (!(e instanceof FormulaError)) throw e;
+      code = e.code;
+    }
+    errors.push(code);
+    outputs.forEach((o) => o.values.push(r ? r.get(o.name)! : null));
+    const ks = r ? checkValues(c, r) : undefined;
+    checks.forEach((k, i) => k.pass.push(ks ? ks[i]!.pass : false));
+  }
+  return { input: inp.name, unit: unitOf(inp.dimension), values, outputs, checks, errors };
 }
