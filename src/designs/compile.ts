@@ -157,12 +157,15 @@ export function compileDesign(spec: DesignSpec): CompiledDesign {
     derived.set(name, { name, text: raw, expr, reads: namesIn(expr) });
   }
 
-  // Each design input's home: the first formula input it is bound to alone.
-  const homes = new Map<string, QuantityInput>();
+  // Each design input's home: a formula input it is bound to alone (its dimension, domain and
+  // whole-number rule). With a unit, the first such input of the unit's dimension; a bare number, the first.
+  const homes = new Map<string, QuantityInput[]>();
   for (const s of steps.values()) {
     for (const b of s.bindings) {
-      if (b.kind !== "expr" || b.expr.k !== "name" || kinds.get(b.expr.name) !== "input" || homes.has(b.expr.name)) continue;
-      homes.set(b.expr.name, (s.formula.definition.inputs as Record<string, QuantityInput>)[b.input]!);
+      if (b.kind !== "expr" || b.expr.k !== "name" || kinds.get(b.expr.name) !== "input") continue;
+      const list = homes.get(b.expr.name) ?? [];
+      list.push((s.formula.definition.inputs as Record<string, QuantityInput>)[b.input]!);
+      homes.set(b.expr.name, list);
     }
   }
   const remarks: string[] = [];
@@ -237,8 +240,10 @@ function bindingExpr(b: unknown, where: string, isName: (w: string) => boolean, 
   return parseExpression(b, where, isName);
 }
 
-function readInput(name: string, raw: unknown, home: QuantityInput | undefined, remarks: string[]): CompiledInput {
-  const spec = home ?? { dimension: dimensionOfRaw(name, raw), description: name };
+function readInput(name: string, raw: unknown, homes: readonly QuantityInput[] | undefined, remarks: string[]): CompiledInput {
+  const own = dimensionOfRaw(name, raw);
+  const home = own === undefined ? homes?.[0] : homes?.find((h) => h.dimension === own);
+  const spec = home ?? { dimension: own ?? "Dimensionless", description: name };
   const dimension = spec.dimension;
   if (isPlainObject(raw)) {
     const varied = readTolerance("design", name, spec, raw, remarks);
@@ -248,12 +253,12 @@ function readInput(name: string, raw: unknown, home: QuantityInput | undefined, 
   return { name, spec, dimension, nominal };
 }
 
-// An input that feeds no formula input alone takes the dimension its unit string names.
-function dimensionOfRaw(name: string, raw: unknown): DimensionName {
+// The dimension a value's unit names; undefined for a bare number (read in its home's unit, as SI).
+function dimensionOfRaw(name: string, raw: unknown): DimensionName | undefined {
   const sample = isPlainObject(raw) ? (raw.nominal ?? raw.mean ?? raw.min) : raw;
-  if (typeof sample !== "string") return "Dimensionless";
+  if (typeof sample !== "string") return undefined;
   const q = parseQuantity(sample, name, "design");
-  if (q.plain) return "Dimensionless";
+  if (q.plain) return undefined;
   for (const [n, d] of Object.entries(DIMENSIONS)) if (sameDimension(d.exps as Exponents, q.exps)) return n as DimensionName;
   throw new FormulaError("invalid_argument", {
     formula: "design", input: name, value: sample,
