@@ -3,6 +3,8 @@ import type { FormulaInputs, FormulaOutput, InputSpecs, OutputSpec } from "../co
 import type { ToleranceSpec } from "../tools/tolerance.js";
 import type { DimensionName } from "../units/dimensions.js";
 import type { DimensionTypes } from "../units/types.js";
+import type { DesignResult } from "./run.js";
+import { evaluateDesign } from "./tools.js";
 
 // A design as data (JSON for files and backends) and the typed builder that
 // writes the same data from TypeScript, where a binding of the wrong
@@ -75,7 +77,7 @@ export class DesignBuilder<Env = object> {
     return new DesignBuilder({ title, inputs: {}, steps: {}, derived: {}, checks: [] });
   }
 
-  input<N extends string, Q extends number>(name: N, value: Q | TypedTolerance<Q> | string): DesignBuilder<Env & { readonly [K in N]: Q }> {
+  input<N extends string, Q extends number>(name: N, value: Q | TypedTolerance<Q>): DesignBuilder<Env & { readonly [K in N]: Q }> {
     return new DesignBuilder({ ...this.spec, inputs: { ...this.spec.inputs, [name]: value as DesignInputValue } });
   }
 
@@ -101,6 +103,15 @@ export class DesignBuilder<Env = object> {
 
   check(rule: string): DesignBuilder<Env> {
     return new DesignBuilder({ ...this.spec, checks: [...(this.spec.checks ?? []), rule] });
+  }
+
+  /** Evaluate the design: the full result, plus every named value with its quantity type. */
+  evaluate(): { readonly result: DesignResult; readonly values: { readonly [K in keyof Env]: Env[K] } } {
+    const result = evaluateDesign(this.spec);
+    const values: Record<string, number> = {};
+    for (const i of result.inputs) values[i.name] = i.value;
+    for (const s of [...result.steps, ...result.derived]) values[s.name] = s.value;
+    return { result, values: values as never };
   }
 }
 

@@ -20,7 +20,8 @@ import { unitOf } from "./units.js";
 type DesignLike = DesignSpec | DesignBuilder<unknown>;
 
 function compiled(d: DesignLike): CompiledDesign {
-  const spec = typeof d === "object" && d !== null && "spec" in d && !Array.isArray(d) && d.constructor?.name === "DesignBuilder" ? (d as DesignBuilder<unknown>).spec : (d as DesignSpec);
+  // A builder carries its JSON in `spec`; a design file has no such key (compile refuses unknown keys).
+  const spec = typeof d === "object" && d !== null && !Array.isArray(d) && Object.hasOwn(d, "spec") ? (d as DesignBuilder<unknown>).spec : (d as DesignSpec);
   return compileDesign(spec);
 }
 
