@@ -1,7 +1,8 @@
 import type { Formula } from "../core/formula.js";
 import type { FormulaInputs, FormulaOutput, InputSpecs, OutputSpec } from "../core/spec.js";
 import type { ToleranceSpec } from "../tools/tolerance.js";
-import type { DimensionName } from "../units/dimensions.js";
+import { FormulaError } from "../core/errors.js";
+import { DIMENSIONS, type DimensionName } from "../units/dimensions.js";
 import type { DimensionTypes } from "../units/types.js";
 import type { DesignResult } from "./run.js";
 import { evaluateDesign } from "./tools.js";
@@ -71,14 +72,32 @@ type TypedTolerance<Q> =
  * `spec` is the same JSON a design file holds.
  */
 export class DesignBuilder<Env = object> {
-  private constructor(readonly spec: DesignSpec) {}
+  private constructor(
+    readonly spec: DesignSpec,
+    // The dimensions derived quantities were declared with; checked against the expressions on evaluate.
+    private readonly declared: Readonly<Record<string, DimensionName>> = {},
+  ) {}
 
   static start(title: string): DesignBuilder<object> {
     return new DesignBuilder({ title, inputs: {}, steps: {}, derived: {}, checks: [] });
   }
 
-  input<N extends string, Q extends number>(name: N, value: Q | TypedTolerance<Q>): DesignBuilder<Env & { readonly [K in N]: Q }> {
-    return new DesignBuilder({ ...this.spec, inputs: { ...this.spec.inputs, [name]: value as DesignInputValue } });
+  /**
+   * A design input of the stated dimension: a quantity, or a tolerance of
+   * quantities. Written to the JSON as SI unit strings, so the dimension
+   * travels with the value.
+   */
+  input<N extends string, D extends DimensionName>(
+    name: N,
+    dimension: D,
+    value: DimensionTypes[D] | TypedTolerance<DimensionTypes[D]>,
+  ): DesignBuilder<Env & { readonly [K in N]: DimensionTypes[D] }> {
+    const unit = DIMENSIONS[dimension].unit;
+    const text = (v: unknown): unknown => (typeof v === "number" && unit ? `${v} ${unit}` : v);
+    const json = typeof value === "object" && value !== null
+      ? Object.fromEntries(Object.entries(value).map(([k, v]) => [k, k === "percent" || k === "distribution" ? v : text(v)]))
+      : text(value);
+    return new DesignBuilder({ ...this.spec, inputs: { ...this.spec.inputs, [name]: json as DesignInputValue } }, this.declared) as never;
   }
 
   step<N extends string, I extends InputSpecs, O extends OutputSpec>(
@@ -93,21 +112,27 @@ export class DesignBuilder<Env = object> {
       if (v === undefined) continue;
       inputs[k] = isRef(v) ? v.name : Array.isArray(v) ? v.map((c) => (isRef(c) ? c.name : c)) : (v as number | string);
     }
-    return new DesignBuilder({ ...this.spec, steps: { ...this.spec.steps, [name]: { formula: formula.id, inputs } } });
+    return new DesignBuilder({ ...this.spec, steps: { ...this.spec.steps, [name]: { formula: formula.id, inputs } } }, this.declared);
   }
 
   /** A derived quantity of the stated dimension (checked when the design is compiled). */
-  derived<N extends string, D extends DimensionName>(name: N, _dimension: D, expression: string): DesignBuilder<Env & { readonly [K in N]: DimensionTypes[D] }> {
-    return new DesignBuilder({ ...this.spec, derived: { ...this.spec.derived, [name]: expression } }) as never;
+  derived<N extends string, D extends DimensionName>(name: N, dimension: D, expression: string): DesignBuilder<Env & { readonly [K in N]: DimensionTypes[D] }> {
+    return new DesignBuilder({ ...this.spec, derived: { ...this.spec.derived, [name]: expression } }, { ...this.declared, [name]: dimension }) as never;
   }
 
   check(rule: string): DesignBuilder<Env> {
-    return new DesignBuilder({ ...this.spec, checks: [...(this.spec.checks ?? []), rule] });
+    return new DesignBuilder({ ...this.spec, checks: [...(this.spec.checks ?? []), rule] }, this.declared);
   }
 
   /** Evaluate the design: the full result, plus every named value with its quantity type. */
   evaluate(): { readonly result: DesignResult; readonly values: { readonly [K in keyof Env]: Env[K] } } {
     const result = evaluateDesign(this.spec);
+    for (const d of result.derived) {
+      const want = this.declared[d.name];
+      if (want !== undefined && DIMENSIONS[want].unit !== d.unit) {
+        throw new FormulaError("wrong_dimension", { formula: "design", input: d.name, expected: want, received: d.unit || "dimensionless", detail: `"${d.expression}"` });
+      }
+    }
     const values: Record<string, number> = {};
     for (const i of result.inputs) values[i.name] = i.value;
     for (const s of [...result.steps, ...result.derived]) values[s.name] = s.value;

@@ -37,10 +37,10 @@ describe("the design JSON Schema", () => {
 describe("the typed builder", () => {
   it("writes the same JSON a design file holds and evaluates to the same values", () => {
     const d = design("typed inductor")
-      .input("pathLength", quantity(69, "mm"))
-      .input("area", quantity(84, "mm^2"))
-      .input("gap", quantity(0.5, "mm"))
-      .input("turns", 20)
+      .input("pathLength", "Length", quantity(69, "mm"))
+      .input("area", "Area", quantity(84, "mm^2"))
+      .input("gap", "Length", quantity(0.5, "mm"))
+      .input("turns", "Dimensionless", 20)
       .step("factor", inductanceFactor, (r) => ({ pathLength: r.pathLength, area: r.area, relativePermeability: 2000, gapLength: r.gap }))
       .step("inductance", inductanceFromFactor, (r) => ({ inductanceFactor: r.factor, turns: r.turns }))
       .derived("perTurnSquared", "Inductance", "inductance / turns^2")
@@ -130,4 +130,23 @@ describe("the design command", () => {
 
 it("VERSION matches package.json", () => {
   expect(VERSION).toBe(JSON.parse(readFileSync(new URL("../../package.json", import.meta.url), "utf8")).version);
+});
+
+it("a derived quantity declared with the wrong dimension in the builder is wrong_dimension on evaluate", () => {
+  const d = design("x").input("a", "Length", quantity(2, "m")).derived("area", "Length", "a * a");
+  let code: string | undefined;
+  try {
+    d.evaluate();
+  } catch (e) {
+    code = (e as { code?: string }).code;
+  }
+  expect(code).toBe("wrong_dimension");
+});
+
+it("the typed example design is the JSON example design", async () => {
+  const { gappedInductor } = await import("../../examples/designs/gapped-inductor.js");
+  const typed = evaluateDesign(gappedInductor);
+  const json = evaluateDesign(load("gapped-inductor"));
+  for (const s of json.steps) expect(typed.steps.find((t) => t.name === s.name)!.value).toBe(s.value);
+  expect(typed.checks.map((k) => k.pass)).toEqual(json.checks.map((k) => k.pass));
 });
