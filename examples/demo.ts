@@ -4,14 +4,16 @@
  * and a voice-coil pinch valve. Every number below is made up for the example;
  * material values are typical catalogue-style figures, not data for a real part.
  *
- * Run: npm run demo   (writes the sweep to out/demo/)
+ * Run: npm run demo   (writes the sweep to out/demo/ and the design reports to out/designs/)
  */
-import { mkdirSync, writeFileSync } from "node:fs";
+import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import {
   capacitorEnergy, coaxialCapacitance, coreFluxDensity, coreLoss, evaluate, gappedCoreInductance,
   inUnit, parasiticCouplingCurrent, quantity, skinDepth, solveDetails, sweep, sweepToCsv,
   sweepToVegaLite, tolerance, wireForce, formatQuantity, type Note,
+  designReportHtml, designReportMarkdown, designTolerance, evaluateDesign, solveDesign, type DesignSpec,
 } from "../src/index.js";
+import { gappedInductor } from "./designs/gapped-inductor.js";
 
 const show = (label: string, value: number, unit: string): void =>
   console.log(`  ${label.padEnd(38)} ${formatQuantity(value, unit)}`);
@@ -107,3 +109,26 @@ const bank = capacitorEnergy.details({ capacitance: quantity(470, "uF"), voltage
 show("the PFC bulk capacitor, 470 uF at 400 V", bank.value, "J");
 notes(bank.warnings, bank.cautions);
 console.log(`\n  hold-up capacitor in nF, via inUnit: ${inUnit(quantity(2200, "uF"), "nF").toFixed(1)} nF`);
+
+// ---------------------------------------------------------------------------
+console.log("\n5. Designs: whole chains with checks, tolerance and a calculation report");
+// Two designs of our own, as JSON files (a backend would receive these) and, for
+// the inductor, as typed TypeScript (examples/designs/gapped-inductor.ts).
+mkdirSync("out/designs", { recursive: true });
+for (const name of ["gapped-inductor", "level-sensor"]) {
+  const spec = JSON.parse(readFileSync(`examples/designs/${name}.json`, "utf8")) as DesignSpec;
+  const result = evaluateDesign(spec);
+  const spread = designTolerance(spec, { samples: 5000 });
+  console.log(`  ${result.title}`);
+  for (const k of result.checks) {
+    const failing = spread.checks.find((c) => c.rule === k.rule)!.failureProbability!;
+    console.log(`    ${k.pass ? "pass" : "FAIL"}  ${k.rule.padEnd(28)} margin ${formatQuantity(k.margin, k.unit)}; fails in ${(failing * 100).toFixed(1)} % of toleranced builds`);
+  }
+  writeFileSync(`out/designs/${name}.html`, designReportHtml(result, { tolerance: spread }));
+  writeFileSync(`out/designs/${name}.md`, designReportMarkdown(result, { tolerance: spread }));
+}
+const typed = gappedInductor.evaluate();
+show("typed design: inductance", typed.values.inductance, "H");
+const turnsFor = solveDesign(gappedInductor, { input: "turns", output: "inductance", target: "60 uH" });
+show(`turns for 60 uH (whole turns: ${turnsFor.value})`, turnsFor.achieved, "H");
+console.log("  reports written to out/designs/*.html and *.md");
