@@ -21,3 +21,4 @@ export * from "./displacement/index.js";
 export * from "./tools/index.js";
 export * from "./notebook/index.js";
 export * from "./designs/index.js";
+export { VERSION } from "./version.js";

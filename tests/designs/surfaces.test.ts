@@ -8,7 +8,7 @@ import {
   design, designReportHtml, designReportMarkdown, designSchema, designTolerance, evaluateDesign,
 } from "../../src/designs/index.js";
 import type { DesignSpec } from "../../src/designs/spec.js";
-import { inductanceFactor, inductanceFromFactor, quantity } from "../../src/index.js";
+import { gappedCoreInductance, inductanceFactor, inductanceFromFactor, quantity } from "../../src/index.js";
 import { VERSION } from "../../src/version.js";
 
 const files = ["gapped-inductor", "level-sensor"];
@@ -149,4 +149,33 @@ it("the typed example design is the JSON example design", async () => {
   const json = evaluateDesign(load("gapped-inductor"));
   for (const s of json.steps) expect(typed.steps.find((t) => t.name === s.name)!.value).toBe(s.value);
   expect(typed.checks.map((k) => k.pass)).toEqual(json.checks.map((k) => k.pass));
+});
+
+describe("the README's design section", () => {
+  const readme = readFileSync(new URL("../../README.md", import.meta.url), "utf8");
+  const section = readme.slice(readme.indexOf("## Designs"), readme.indexOf("## Numerical solvers"));
+
+  it("its JSON design is valid and its check passes", () => {
+    const json = section.slice(section.indexOf("```json") + 7, section.indexOf("```", section.indexOf("```json") + 7));
+    const r = evaluateDesign(JSON.parse(json));
+    expect(r.checks.map((k) => [k.rule, k.pass])).toEqual([["span > 40 pF", true]]);
+  });
+
+  it("its report excerpt is what the level probe's report says", () => {
+    const md = designReportMarkdown(evaluateDesign(load("level-sensor")));
+    const excerpt = section.slice(section.indexOf("## Checks"), section.indexOf("```", section.indexOf("## Checks"))).trim();
+    expect(md).toContain(excerpt);
+  });
+
+  it("its typed example evaluates with the inductance above its check", () => {
+    const d = design("Choke")
+      .input("gap", "Length", { nominal: quantity(0.5, "mm"), percent: 10 })
+      .input("area", "Area", quantity(84, "mm^2"))
+      .step("inductance", gappedCoreInductance, (r) => ({
+        turns: 20, pathLength: quantity(69, "mm"), area: r.area, relativePermeability: 2000, gapLength: r.gap, fringingFactor: 1,
+      }))
+      .check("inductance > 50 uH");
+    expect(section).toContain('.check("inductance > 50 uH");');
+    expect(d.evaluate().result.passed).toBe(true);
+  });
 });
