@@ -14,6 +14,11 @@ import { formatBoth, formatQuantity } from "../units/display.js";
 export interface CliIO {
   out(text: string): void;
   err(text: string): void;
+  /**
+   * Takes the chart a sweep asked for with `--svg FILE` (rendered and written by
+   * runCliWithCharts in chart.ts, which loads vega). Without it, `--svg` is a usage error.
+   */
+  chart?(spec: Record<string, unknown>, path: string): void;
 }
 
 const USAGE = `emquant: electromagnetics formulas with units
@@ -40,6 +45,7 @@ Options:
   --log             geometric spacing for sweeps
   --csv             sweep as CSV (the notes found on the grid go to stderr)
   --chart           sweep as a Vega-Lite chart specification (JSON; notes to stderr)
+  --svg FILE        sweep: also draw the chart to an SVG file (axes in mm, pF, ...)
 
 Values are numbers in SI units or numbers with a unit ("0.2 mm", "4.7 uF").
 Warnings and cautions are printed with every result; sweeps and tolerance
@@ -51,7 +57,7 @@ interface Parsed {
   flags: Map<string, string | true>;
 }
 
-const VALUE_FLAGS = new Set(["samples", "seed", "points", "range"]);
+const VALUE_FLAGS = new Set(["samples", "seed", "points", "range", "svg"]);
 const BOOL_FLAGS = new Set(["json", "log", "csv", "chart", "help"]);
 
 class UsageError extends Error {}
@@ -370,7 +376,10 @@ function sweepCommand(p: Parsed, io: CliIO, json: boolean): number {
     else fixedPairs.push([k, v]);
   }
   if (Object.keys(vary).length === 0) throw new UsageError('give one or two inputs as name=from..to, e.g. gap="0.1 mm..1 mm"');
+  const svg = p.flags.get("svg");
+  if (typeof svg === "string" && !io.chart) throw new UsageError("--svg is available from the emquant command (runCliWithCharts)");
   const r = sweepRequest({ formula: id, vary, fixed: inputsFrom(id, fixedPairs) });
+  if (typeof svg === "string") io.chart!(sweepToVegaLite(r), svg);
   const units = Object.fromEntries(r.axes.map((a) => [a.name, a.unit]));
   const summary = summaryText(r.notes, r.computed.length - r.notComputed, units);
   if (p.flags.has("csv") || p.flags.has("chart")) {

@@ -335,6 +335,7 @@ export function sweepToVegaLite(result: SweepResult): Record<string, unknown> {
   const base = {
     $schema: "https://vega.github.io/schema/vega-lite/v5.json",
     description: `${out.description} (${result.formula})`,
+    title: out.description,
     width: 480,
     height: 300,
     data: { values },
