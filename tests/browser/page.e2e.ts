@@ -112,6 +112,8 @@ describe("the browser page", () => {
     expect(await page.textContent("#plot svg .x-title")).toBe("outerRadius (mm)");
     expect(await page.textContent("#plot svg .y-title")).toBe("coaxialCapacitance (pF)");
     expect(await page.textContent("#sweep-status")).toMatch(/37 of 37 points computed/);
+    // The sweep ran in the page's Web Worker (worker.ts), not on the page's thread.
+    expect(page.workers().map((w) => w.url()).some((u) => /\/assets\/worker-[^/]*\.js$/.test(u))).toBe(true);
     mkdirSync(join(root, "test-output"), { recursive: true });
     await page.screenshot({ path: join(root, "test-output/page.png"), fullPage: true });
     await page.locator("#plot svg").screenshot({ path: join(root, "test-output/plot.png") });

@@ -45,9 +45,12 @@ function markCount(doc: Document, cls: string): number {
 }
 
 describe("sweep charts as SVG", () => {
-  it("draws a one-input sweep with its axes in mm and pF and one point per value", async () => {
+  it("draws a one-input sweep with its axes in mm and pF and one point per value (the README's example)", async () => {
+    const readme = readFileSync(join(root, "README.md"), "utf8");
+    expect(readme).toContain('emquant sweep parallelPlateCapacitance gap="0.1 mm..1 mm" area="1 cm^2" --svg gap.svg');
     const file = join(dir, "gap.svg");
-    const r = await cli("sweep", "parallelPlateCapacitance", "gap=0.1 mm..1 mm", "area=1 cm^2", "--points", "11", "--svg", file);
+    // 11 points is the default.
+    const r = await cli("sweep", "parallelPlateCapacitance", "gap=0.1 mm..1 mm", "area=1 cm^2", "--svg", file);
     expect(r.status).toBe(0);
     expect(r.err).toContain(`chart written to ${file}`);
     // The table is printed as without --svg: a header and 11 rows.
