@@ -358,7 +358,8 @@ export function sweepToVegaLite(result: SweepResult): Record<string, unknown> {
     encoding: {
       x: { field: shown(a0.name), type: "ordinal", title: title(0), axis: { format: ".3~g" } },
       y: { field: shown(a1.name), type: "ordinal", title: title(1), sort: "descending", axis: { format: ".3~g" } },
-      color: { field: shown(out.name), type: "quantitative", title: title(2) },
+      // Legend below the plot, so its title (the unit) is not cut short beside it.
+      color: { field: shown(out.name), type: "quantitative", title: title(2), legend: { orient: "bottom", direction: "horizontal", titleLimit: 480, gradientLength: 240 } },
     },
   };
 }

@@ -56,7 +56,7 @@ describe("the browser page", () => {
     expect(groups).toContain("capacitance");
     expect(groups.length).toBeGreaterThan(3);
     // Prefilled from the spec's example, with a prefixed unit (innerRadius example 4.5e-4 m).
-    expect(await page.inputValue("#in-innerRadius")).toBe("450 um");
+    expect(await page.inputValue("#in-innerRadius")).toMatch(/^450 [uµμ]m$/);
     expect(await page.textContent("#equation")).toMatch(/ln/);
   });
 
@@ -84,6 +84,21 @@ describe("the browser page", () => {
     const cautions = await page.$$eval("#cautions li", (li) => li.map((l) => ({ code: (l as HTMLElement).dataset.code, text: l.textContent ?? "" })));
     expect(cautions.map((c) => c.code)).toContain("stored_energy");
     expect(cautions.every((c) => c.text.includes("licensed practice govern"))).toBe(true);
+  });
+
+  it("reads vector inputs written as [x, y, z] unit and shows each component of a vector result", async () => {
+    // F = q (E + v x B) with q = e = 1.602176634e-19 C (exact in the SI since 2019; CODATA 2022):
+    // E = 1 kV/m along x gives e * 1000 N along x; v = 1e6 m/s along x in B = 1 T along z gives
+    // e * 1e6 * (x cross z = -y) N, so F = [1.602176634e-16, -1.602176634e-13, 0] N.
+    await open("lorentzForce");
+    await fill({ charge: "1.602176634e-19 C", electricField: "[1, 0, 0] kV/m", velocity: "[1e6, 0, 0] m/s", fluxDensity: "[0, 0, 1] T" });
+    await page.click("#compute");
+    await page.waitForSelector("#result[data-value]");
+    const [fx, fy, fz] = JSON.parse((await page.getAttribute("#result", "data-value"))!) as number[];
+    expect(Math.abs(fx! / 1.602176634e-16 - 1)).toBeLessThan(1e-12);
+    expect(Math.abs(fy! / -1.602176634e-13 - 1)).toBeLessThan(1e-12);
+    expect(fz).toBe(0);
+    expect(await page.$$eval("#result > div", (d) => d.length)).toBe(3);
   });
 
   it("names the bad input and marks its field instead of showing a number", async () => {

@@ -76,6 +76,8 @@ describe("sweep charts as SVG", () => {
     const doc = parseSvg(file);
     expect(markCount(doc, "mark-rect")).toBe(12);
     expect(texts(doc)).toContain("gap (mm)");
+    // The colour legend's title carries the unit in full (not cut short).
+    expect(texts(doc)).toContain("parallelPlateCapacitance (pF)");
   });
 
   it("says --svg needs the command's chart writer when runCli is called without one", () => {
