@@ -157,6 +157,12 @@ worker.onmessage = (event: MessageEvent<SweepReply>) => {
   }));
 };
 
+// A worker that failed to load or crashed: say so instead of waiting forever.
+worker.onerror = (event) => {
+  plot.removeAttribute("aria-busy");
+  sweepStatus.textContent = `The sweep worker failed: ${event.message || "could not start"}`;
+};
+
 picker.addEventListener("change", () => select(picker.value));
 sweepInput.addEventListener("change", setSweepRange);
 form.addEventListener("submit", (e) => { e.preventDefault(); compute(); });

@@ -83,9 +83,17 @@ export function plotSweep(d: PlotData): SVGSVGElement {
   const [x0, x1] = range(xs, undefined);
   let [y0, y1] = range(ys, d.computed);
   if (y0 === y1) { y0 -= Math.abs(y0) * 0.1 || 1; y1 += Math.abs(y1) * 0.1 || 1; }
+  // The y range widened to the ticks just outside the data, so both ends of the axis are labelled.
   const yt = linearTicks(y0, y1);
-  y0 = Math.min(y0, yt[0]!);
-  y1 = Math.max(y1, yt[yt.length - 1]!);
+  const yStep = yt.length > 1 ? yt[1]! - yt[0]! : 0;
+  if (yStep > 0) {
+    // Snapped to 0 when rounding leaves a speck (0.1 - 0.1 as 1e-17).
+    const snap = (t: number) => (Math.abs(t) < yStep * 1e-9 ? 0 : t);
+    if (yt[0]! > y0) yt.unshift(snap(yt[0]! - yStep));
+    if (yt[yt.length - 1]! < y1) yt.push(yt[yt.length - 1]! + yStep);
+    y0 = yt[0]!;
+    y1 = yt[yt.length - 1]!;
+  }
   const log = d.log && x0 > 0;
   const xt = log ? logTicks(x0, x1) : linearTicks(x0, x1);
   const pw = W - M.left - M.right;
