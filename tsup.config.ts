@@ -9,5 +9,6 @@ export default defineConfig({
   treeshake: true,
   target: "es2022",
   // Keep dependencies external so consumers' bundlers can tree-shake them.
-  external: ["mathjs", "decimal.js"],
+  // vega and vega-lite: optional, loaded by the CLI only when it draws a chart (src/cli/chart.ts).
+  external: ["mathjs", "decimal.js", "vega", "vega-lite"],
 });

@@ -4,7 +4,8 @@
  * and a voice-coil pinch valve. Every number below is made up for the example;
  * material values are typical catalogue-style figures, not data for a real part.
  *
- * Run: npm run demo   (writes the sweep to out/demo/ and the design reports to out/designs/)
+ * Run: npm run demo   (writes the sweep to out/demo/: CSV, the chart specification and the chart as SVG;
+ * and the design reports to out/designs/)
  */
 import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import {
@@ -14,6 +15,8 @@ import {
   designReportHtml, designReportMarkdown, designTolerance, evaluateDesign, solveDesign, type DesignSpec,
 } from "../src/index.js";
 import { gappedInductor } from "./designs/gapped-inductor.js";
+// The chart renderer of the emquant command (vega and vega-lite, loaded on first use).
+import { vegaLiteToSvg } from "../src/cli/chart.js";
 
 const show = (label: string, value: number, unit: string): void =>
   console.log(`  ${label.padEnd(38)} ${formatQuantity(value, unit)}`);
@@ -88,8 +91,10 @@ const s = sweep(coaxialCapacitance, {
 });
 mkdirSync("out/demo", { recursive: true });
 writeFileSync("out/demo/probe-sweep.csv", sweepToCsv(s));
-writeFileSync("out/demo/probe-sweep.vl.json", JSON.stringify(sweepToVegaLite(s), null, 2));
-console.log(`  sweep of ${s.axes[0]!.values.length} points written to out/demo/probe-sweep.csv and .vl.json`);
+const chart = sweepToVegaLite(s);
+writeFileSync("out/demo/probe-sweep.vl.json", JSON.stringify(chart, null, 2));
+writeFileSync("out/demo/probe-sweep.svg", await vegaLiteToSvg(chart));
+console.log(`  sweep of ${s.axes[0]!.values.length} points written to out/demo/probe-sweep.csv, .vl.json and .svg`);
 
 // ---------------------------------------------------------------------------
 console.log("\n3. Voice-coil pinch valve");

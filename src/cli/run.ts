@@ -17,6 +17,11 @@ export interface CliIO {
   err(text: string): void;
   /** File access for `design` (main.ts passes node:fs); without it the command refuses. */
   files?: DesignFiles;
+  /**
+   * Takes the chart a sweep asked for with `--svg FILE` (rendered and written by
+   * runCliWithCharts in chart.ts, which loads vega). Without it, `--svg` is a usage error.
+   */
+  chart?(spec: Record<string, unknown>, path: string): void;
 }
 
 const USAGE = `emquant: electromagnetics formulas with units
@@ -50,6 +55,7 @@ Options:
   --report FILE     design: write the calculation report as HTML
   --md FILE         design: write the calculation report as Markdown
   --date YYYY-MM-DD design: the date printed on the report (default today)
+  --svg FILE        sweep: also draw the chart to an SVG file (axes in mm, pF, ...)
 
 Values are numbers in SI units or numbers with a unit ("0.2 mm", "4.7 uF").
 Warnings and cautions are printed with every result; sweeps and tolerance
@@ -61,7 +67,7 @@ interface Parsed {
   flags: Map<string, string | true>;
 }
 
-const VALUE_FLAGS = new Set(["samples", "seed", "points", "range", "report", "md", "date"]);
+const VALUE_FLAGS = new Set(["samples", "seed", "points", "range", "report", "md", "date", "svg"]);
 const BOOL_FLAGS = new Set(["json", "log", "csv", "chart", "help", "tolerance"]);
 
 class UsageError extends Error {}
@@ -394,7 +400,10 @@ function sweepCommand(p: Parsed, io: CliIO, json: boolean): number {
     else fixedPairs.push([k, v]);
   }
   if (Object.keys(vary).length === 0) throw new UsageError('give one or two inputs as name=from..to, e.g. gap="0.1 mm..1 mm"');
+  const svg = p.flags.get("svg");
+  if (typeof svg === "string" && !io.chart) throw new UsageError("--svg is available from the emquant command (runCliWithCharts)");
   const r = sweepRequest({ formula: id, vary, fixed: inputsFrom(id, fixedPairs) });
+  if (typeof svg === "string") io.chart!(sweepToVegaLite(r), svg);
   const units = Object.fromEntries(r.axes.map((a) => [a.name, a.unit]));
   const summary = summaryText(r.notes, r.computed.length - r.notComputed, units);
   if (p.flags.has("csv") || p.flags.has("chart")) {

@@ -4,6 +4,7 @@ import { getFormula } from "../core/registry.js";
 import type { InputSpecs, OutputSpec, QuantityInput } from "../core/spec.js";
 import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
 import { noteConditions, noteSummary, type NoteSummary } from "./notes.js";
+import { axisTitle, axisUnit, largestMagnitude } from "./axis-units.js";
 import { computePoints, scanNotes, type Grid } from "./sweep-points.js";
 import type { QuantityValue } from "./tolerance.js";
 
@@ -307,9 +308,12 @@ export function sweepToCsv(result: SweepResult): string {
  * A Vega-Lite v5 specification with the data inline: a line chart for one
  * swept input, a heatmap (rect marks coloured by the output) for two. Points
  * not computed are left out. Log-spaced axes get log scales.
+ *
+ * The inline data stays in SI at full precision; the chart shows each axis in
+ * engineering units with a prefix chosen from the data ("gap (mm)",
+ * "coaxialCapacitance (pF)"), through a calculate transform per field.
  */
 export function sweepToVegaLite(result: SweepResult): Record<string, unknown> {
-  const title = (name: string, unit: string): string => (unit ? `${name} (${unit})` : name);
   const out = result.output;
   const n1 = result.axes.length === 2 ? result.axes[1]!.values.length : 1;
   const values: Record<string, number>[] = [];
@@ -320,19 +324,30 @@ export function sweepToVegaLite(result: SweepResult): Record<string, unknown> {
     row[out.name] = out.values[k]!;
     values.push(row);
   }
+  // One displayed field per SI field: "<name> shown", the SI value over the prefix factor.
+  const fields = [
+    ...result.axes.map((a) => ({ name: a.name, unit: axisUnit(a.unit, largestMagnitude(a.values)) })),
+    { name: out.name, unit: axisUnit(out.unit, largestMagnitude(out.values, result.computed)) },
+  ];
+  const shown = (name: string): string => `${name} shown`;
+  const title = (i: number): string => axisTitle(fields[i]!.name, fields[i]!.unit);
   const a0 = result.axes[0]!;
   const base = {
     $schema: "https://vega.github.io/schema/vega-lite/v5.json",
     description: `${out.description} (${result.formula})`,
+    title: out.description,
+    width: 480,
+    height: 300,
     data: { values },
+    transform: fields.map((f) => ({ calculate: `datum[${JSON.stringify(f.name)}] / ${f.unit.factor}`, as: shown(f.name) })),
   };
   if (result.axes.length === 1) {
     return {
       ...base,
       mark: { type: "line", point: values.length <= 50 },
       encoding: {
-        x: { field: a0.name, type: "quantitative", title: title(a0.name, a0.unit), ...(a0.scale === "log" ? { scale: { type: "log" } } : {}) },
-        y: { field: out.name, type: "quantitative", title: title(out.name, out.unit) },
+        x: { field: shown(a0.name), type: "quantitative", title: title(0), ...(a0.scale === "log" ? { scale: { type: "log" } } : {}) },
+        y: { field: shown(out.name), type: "quantitative", title: title(1) },
       },
     };
   }
@@ -341,9 +356,10 @@ export function sweepToVegaLite(result: SweepResult): Record<string, unknown> {
     ...base,
     mark: "rect",
     encoding: {
-      x: { field: a0.name, type: "ordinal", title: title(a0.name, a0.unit), axis: { format: ".3~g" } },
-      y: { field: a1.name, type: "ordinal", title: title(a1.name, a1.unit), sort: "descending", axis: { format: ".3~g" } },
-      color: { field: out.name, type: "quantitative", title: title(out.name, out.unit) },
+      x: { field: shown(a0.name), type: "ordinal", title: title(0), axis: { format: ".3~g" } },
+      y: { field: shown(a1.name), type: "ordinal", title: title(1), sort: "descending", axis: { format: ".3~g" } },
+      // Legend below the plot, so its title (the unit) is not cut short beside it.
+      color: { field: shown(out.name), type: "quantitative", title: title(2), legend: { orient: "bottom", direction: "horizontal", titleLimit: 480, gradientLength: 240 } },
     },
   };
 }

@@ -58,8 +58,12 @@ describe("sweeps of the parallel-plate capacitor", () => {
     expect(one.$schema).toBe("https://vega.github.io/schema/vega-lite/v5.json");
     expect(one.mark.type).toBe("line");
     expect(one.data.values).toHaveLength(5);
-    expect(one.encoding.x).toMatchObject({ field: "gap", type: "quantitative", title: "gap (m)", scale: { type: "log" } });
-    expect(one.encoding.y.field).toBe("parallelPlateCapacitance");
+    // The data stays in SI; the axes show engineering units chosen from it (0.1-1 mm; 0.885-8.85 pF).
+    expect(one.data.values[0].gap).toBe(1e-4);
+    expect(one.transform).toContainEqual({ calculate: 'datum["gap"] / 0.001', as: "gap shown" });
+    expect(one.transform).toContainEqual({ calculate: 'datum["parallelPlateCapacitance"] / 1e-12', as: "parallelPlateCapacitance shown" });
+    expect(one.encoding.x).toMatchObject({ field: "gap shown", type: "quantitative", title: "gap (mm)", scale: { type: "log" } });
+    expect(one.encoding.y).toMatchObject({ field: "parallelPlateCapacitance shown", title: "parallelPlateCapacitance (pF)" });
     const two = sweepToVegaLite(sweepRequest({
       formula: "parallelPlateCapacitance",
       vary: { gap: { from: "0.1 mm", to: "1 mm", points: 3 }, relativePermittivity: { from: 0, to: 6, points: 3 } },
@@ -68,7 +72,8 @@ describe("sweeps of the parallel-plate capacitor", () => {
     expect(two.mark).toBe("rect");
     expect(two.data.values).toHaveLength(6);
     expect(Object.keys(two.data.values[0]).sort()).toEqual(["gap", "parallelPlateCapacitance", "relativePermittivity"]);
-    expect(two.encoding.color.field).toBe("parallelPlateCapacitance");
+    expect(two.encoding.color.field).toBe("parallelPlateCapacitance shown");
+    expect(two.encoding.y.title).toBe("relativePermittivity");
     expect(JSON.parse(JSON.stringify(two))).toEqual(two);
   });
 
