@@ -1,5 +1,5 @@
 /**
- * The HTTP example driven in process: a request object (a readable stream with
+ * The emquant/http request listener driven in process: a request object (a readable stream with
  * method, url and headers) and a response object that records what the handler
  * writes, so thousands of requests cost no sockets. The handler sees what
  * node:http would give it: the body arrives as Buffer chunks, then "end".
@@ -8,7 +8,7 @@ import { EventEmitter } from "node:events";
 import { Readable } from "node:stream";
 import type { IncomingMessage, ServerResponse } from "node:http";
 import fc from "fast-check";
-import { createHandler } from "../../examples/http-handler.js";
+import { createRequestListener } from "../../src/http/index.js";
 import { resetLoopCount } from "../helpers/loop-count.js";
 import { FORBIDDEN, loopViolations, userStrings, withoutEchoes, type Verdict } from "./fuzz-check.js";
 
@@ -72,7 +72,7 @@ export function httpCase(bodies: Record<(typeof ROUTES)[number] extends `/${infe
   );
 }
 
-const handler = createHandler({ maxBody: 64 * 1024 });
+const handler = createRequestListener({ maxBodyBytes: 64 * 1024 });
 
 /** A response that records the status, headers and body the handler writes. */
 class RecordingResponse extends EventEmitter {
