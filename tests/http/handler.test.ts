@@ -147,12 +147,15 @@ describe("the framework-neutral handler", () => {
   });
 
   it("returns a sweep's vector components with null where a point was not computed", () => {
-    const vector = listFormulas().find((f) => f.definition.output.components && Object.values(f.definition.inputs).some((s) => "dimension" in s && !s.vector));
-    expect(vector).toBeDefined();
-    const f = vector!;
-    const name = Object.entries(f.definition.inputs).find(([, s]) => "dimension" in s && !s.vector && typeof s.example === "number")![0];
-    const example = (f.definition.inputs as Record<string, { example: number }>)[name]!.example;
-    const fixed = Object.fromEntries(Object.entries(f.definition.inputs).filter(([n, s]) => n !== name && s.example !== undefined).map(([n, s]) => [n, s.example]));
+    type Spec = { dimension?: string; vector?: boolean; example?: unknown };
+    const specs = (f: (typeof all)[number]): [string, Spec][] => Object.entries(f.definition.inputs as Record<string, Spec>);
+    const all = listFormulas();
+    // A formula with a vector output and a scalar quantity input to sweep.
+    const f = all.find((g) => g.definition.output.components && specs(g).some(([, s]) => s.dimension && !s.vector && typeof s.example === "number"))!;
+    expect(f).toBeDefined();
+    const [name, spec] = specs(f).find(([, s]) => s.dimension && !s.vector && typeof s.example === "number")!;
+    const example = spec.example as number;
+    const fixed = Object.fromEntries(specs(f).filter(([n, s]) => n !== name && s.example !== undefined).map(([n, s]) => [n, s.example]));
     const r = post("/sweep", { formula: f.id, vary: { [name]: { from: example, to: 2 * example, points: 3 } }, fixed });
     expect(r.status).toBe(200);
     const out = (r.body as { output: { components: Record<string, unknown[]> } }).output;

@@ -3,7 +3,7 @@ import { mkdtempSync, readFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { Validator } from "@seriousme/openapi-schema-validator";
-import Ajv2020 from "ajv/dist/2020.js";
+import { Ajv2020 } from "ajv/dist/2020.js";
 import { describe, expect, it } from "vitest";
 import { listFormulas } from "../../src/core/registry.js";
 import { createHandler, DEFAULT_LIMITS, openApiDocument, type HttpResponse } from "../../src/http/index.js";
@@ -14,7 +14,7 @@ const handle = createHandler();
 // The document's component schemas, compiled by Ajv as JSON Schema 2020-12 (the
 // dialect of OpenAPI 3.1). strict off: OpenAPI keywords (discriminator) and the
 // x- annotations are not JSON Schema vocabulary and are ignored.
-const ajv = new Ajv2020.default({ strict: false, allErrors: true });
+const ajv = new Ajv2020({ strict: false, allErrors: true });
 /** A route's request schema (inline in the path item). */
 function requestSchema(path: string): unknown {
   return (doc as { paths: Record<string, { post: { requestBody: { content: { "application/json": { schema: unknown } } } } }> }).paths[path]!.post.requestBody.content["application/json"].schema;
@@ -36,7 +36,8 @@ const checkRequest = (path: string, body: unknown): string[] => errorsOf(`/reque
 const post = (path: string, body: unknown): HttpResponse => handle({ method: "POST", path, body });
 const examples = (id: string): Record<string, unknown> => {
   const f = listFormulas().find((g) => g.id === id)!;
-  return Object.fromEntries(Object.entries(f.definition.inputs).filter(([, s]) => s.example !== undefined).map(([n, s]) => [n, s.example]));
+  const specs = f.definition.inputs as Record<string, { example?: unknown }>;
+  return Object.fromEntries(Object.entries(specs).filter(([, s]) => s.example !== undefined).map(([n, s]) => [n, s.example]));
 };
 
 describe("the OpenAPI document", () => {
