@@ -16,6 +16,7 @@
 export { createHandler, HTTP_ERROR_CODES } from "./handler.js";
 export type { HandlerOptions, HttpErrorCode, HttpRequest, HttpResponse, JsonValue } from "./handler.js";
 export { createRequestListener } from "./node.js";
+export type { NodeRequestLike, NodeResponseLike } from "./node.js";
 export { DEFAULT_LIMITS, resolveLimits } from "./limits.js";
 export type { HandlerLimits } from "./limits.js";
 export { HTTP_API_VERSION, openApiDocument } from "./openapi.js";

@@ -2,12 +2,32 @@
  * The handler on node:http: a request listener for `http.createServer`
  * (or `https`, or a framework that hands over Node's request and response).
  * It reads the body within the size limit, calls the framework-neutral
- * handler and writes its JSON answer. Types only are imported from Node, so
- * this module loads nothing at run time.
+ * handler and writes its JSON answer. It imports nothing from Node, not even
+ * types: the request and response are described by the few members used, so
+ * the declarations type-check for consumers without @types/node.
  */
-import type { IncomingMessage, ServerResponse } from "node:http";
 import { createHandler, type HandlerOptions, type HttpResponse } from "./handler.js";
 import { resolveLimits } from "./limits.js";
+
+/** What the listener uses of node:http's IncomingMessage. */
+export interface NodeRequestLike {
+  readonly method?: string | undefined;
+  readonly url?: string | undefined;
+  readonly headers: { readonly [name: string]: string | readonly string[] | undefined };
+  on(event: "data", listener: (chunk: Uint8Array) => void): unknown;
+  on(event: "end", listener: () => void): unknown;
+  on(event: "error", listener: (error: Error) => void): unknown;
+  destroy(): unknown;
+}
+
+/** What the listener uses of node:http's ServerResponse. */
+export interface NodeResponseLike {
+  readonly headersSent: boolean;
+  writeHead(status: number, headers: Record<string, string | number>): unknown;
+  end(body: Uint8Array): unknown;
+  on(event: "finish", listener: () => void): unknown;
+  destroy(): unknown;
+}
 
 function errorOf(status: number, code: string, message: string): HttpResponse {
   return { status, headers: { "content-type": "application/json; charset=utf-8" }, body: { error: { code, message, input: null } } };
@@ -18,7 +38,7 @@ function errorOf(status: number, code: string, message: string): HttpResponse {
  * the rest: a declared length over the limit is refused before reading, and a
  * chunked body is counted as it arrives. Resolves to the bytes or to an error answer.
  */
-function readBody(req: IncomingMessage, limit: number): Promise<Uint8Array | HttpResponse> {
+function readBody(req: NodeRequestLike, limit: number): Promise<Uint8Array | HttpResponse> {
   const tooLarge = (): HttpResponse => errorOf(413, "body_too_large", `the request body is over ${limit} bytes`);
   return new Promise((resolve) => {
     const declared = Number(req.headers["content-length"]);
@@ -52,16 +72,16 @@ function readBody(req: IncomingMessage, limit: number): Promise<Uint8Array | Htt
   });
 }
 
-function send(req: IncomingMessage, res: ServerResponse, answer: HttpResponse): void {
-  const text = JSON.stringify(answer.body);
-  const headers: Record<string, string | number> = { ...answer.headers, "content-length": Buffer.byteLength(text) };
+function send(req: NodeRequestLike, res: NodeResponseLike, answer: HttpResponse): void {
+  const bytes = new TextEncoder().encode(JSON.stringify(answer.body));
+  const headers: Record<string, string | number> = { ...answer.headers, "content-length": bytes.length };
   // An oversized body is not read on: close the connection once the answer is out.
   if (answer.status === 413) {
     headers.connection = "close";
     res.on("finish", () => req.destroy());
   }
   res.writeHead(answer.status, headers);
-  res.end(text);
+  res.end(bytes);
 }
 
 /**
@@ -73,7 +93,7 @@ function send(req: IncomingMessage, res: ServerResponse, answer: HttpResponse): 
  * import { createRequestListener } from "emquant/http";
  * createServer(createRequestListener({ maxSweepPoints: 2000 })).listen(8080, "127.0.0.1");
  */
-export function createRequestListener(options: HandlerOptions = {}): (req: IncomingMessage, res: ServerResponse) => void {
+export function createRequestListener(options: HandlerOptions = {}): (req: NodeRequestLike, res: NodeResponseLike) => void {
   const handle = createHandler(options);
   const limit = resolveLimits(options).maxBodyBytes;
   return (req, res) => {

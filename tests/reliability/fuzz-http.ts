@@ -91,8 +91,8 @@ class RecordingResponse extends EventEmitter {
     this.headersSent = true;
     return this;
   }
-  end(text?: string): this {
-    this.body = text ?? "";
+  end(chunk?: string | Uint8Array): this {
+    this.body = typeof chunk === "string" ? chunk : chunk === undefined ? "" : new TextDecoder().decode(chunk);
     this.finish();
     this.emit("finish");
     return this;
