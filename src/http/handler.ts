@@ -35,13 +35,21 @@ export interface HttpRequest {
    * carry a query string, which is read when `query` is absent.
    */
   readonly path: string;
-  /** The query when a framework has already decoded it; otherwise read from `path`. */
-  readonly query?: URLSearchParams | Readonly<Record<string, string | readonly string[] | undefined>>;
+  /**
+   * The query when a framework has already decoded it (a URLSearchParams, or an object of strings);
+   * otherwise it is read from `path`. Typed by shape so the declarations need no DOM or Node types.
+   */
+  readonly query?: QueryParams | Readonly<Record<string, string | readonly string[] | undefined>>;
   /**
    * The body: its raw text (a string, or UTF-8 bytes such as a Buffer), or a value a framework has
    * already parsed from JSON. Absent or empty for GET.
    */
   readonly body?: unknown;
+}
+
+/** What the handler uses of a URLSearchParams. */
+export interface QueryParams {
+  get(name: string): string | null;
 }
 
 /** A JSON value as the handler returns it. */
@@ -99,9 +107,10 @@ function decode(text: string, what: string): string {
 /** The first value of a query parameter, from a query string or a framework's decoded query. */
 function queryValue(request: HttpRequest, search: string, name: string): string | undefined {
   const q = request.query;
-  if (q instanceof URLSearchParams) return q.get(name) ?? undefined;
   if (q !== undefined) {
-    const v = Object.hasOwn(q, name) ? q[name] : undefined;
+    // A URLSearchParams (or anything with its get); else a plain or null-prototype object.
+    if (typeof q.get === "function") return (q as QueryParams).get(name) ?? undefined;
+    const v = Object.hasOwn(q, name) ? (q as Readonly<Record<string, unknown>>)[name] : undefined;
     const first = typeof v === "string" ? v : Array.isArray(v) ? v[0] : undefined;
     return typeof first === "string" ? first : undefined;
   }

@@ -44,6 +44,10 @@ describe("the framework-neutral handler", () => {
     // The same from a framework's decoded query object and from URLSearchParams.
     expect(handle({ method: "GET", path: "/formulas", query: { category: "inductance" } }).body).toEqual(inductance.body);
     expect(handle({ method: "GET", path: "/formulas", query: new URLSearchParams("category=inductance") }).body).toEqual(inductance.body);
+    // A null-prototype object (as some frameworks build) and a repeated parameter (an array: the first counts).
+    const bare = Object.assign(Object.create(null) as Record<string, string>, { category: "inductance" });
+    expect(handle({ method: "GET", path: "/formulas", query: bare }).body).toEqual(inductance.body);
+    expect(handle({ method: "GET", path: "/formulas", query: { category: ["inductance", "flux"] } }).body).toEqual(inductance.body);
     // A percent-escaped space in the query: "magnetic circuit".
     const circuit = handle({ method: "GET", path: "/formulas?category=magnetic%20circuit" });
     expect((circuit.body as unknown[]).length).toBe(listFormulas().filter((f) => f.definition.category === "magnetic circuit").length);
