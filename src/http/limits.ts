@@ -9,7 +9,7 @@ import { SOLVE_LIMITS } from "../tools/solve.js";
 export interface HandlerLimits {
   /** Largest request body in bytes (default 65536). Larger bodies get 413 and are not read further. */
   readonly maxBodyBytes: number;
-  /** Largest Monte Carlo sample count of a tolerance request (default 100000; the library allows 1e6). */
+  /** Largest Monte Carlo sample count of a tolerance request (default 20000, twice the library default; the library allows 1e6). */
   readonly maxSamples: number;
   /** Largest number of inputs whose corners a tolerance request may ask for, 2^n corners (default 12). */
   readonly maxCornerInputs: number;
@@ -24,7 +24,7 @@ export interface HandlerLimits {
 /** The defaults (the worst request at each is timed in bench/http.ts). */
 export const DEFAULT_LIMITS: HandlerLimits = Object.freeze({
   maxBodyBytes: 64 * 1024,
-  maxSamples: 100_000,
+  maxSamples: 20_000,
   maxCornerInputs: 12,
   maxSweepPoints: 10_000,
   maxSolveDecades: 50,

@@ -133,7 +133,7 @@ function jsonViolations(v: unknown, path: string, out: string[], depth = 0): voi
 
 /**
  * Evaluations a request may cause, for its loop bound (see EVALUATIONS in
- * fuzz-runners.ts; the handler itself caps samples at 1e5 and points at 1e4).
+ * fuzz-runners.ts; the handler itself caps samples at 2e4 and points at 1e4).
  */
 function evaluationsFor(url: string): number {
   if (url.startsWith("/solve")) return 100_000;
