@@ -23,6 +23,7 @@ import { catalogEntry, formulaCatalog, inputSchema } from "../tools/catalog.js";
 import { solveRequest } from "../tools/solve.js";
 import { sweepRequest } from "../tools/sweep.js";
 import { toleranceRequest } from "../tools/tolerance.js";
+import type { HttpErrorCode } from "./codes.js";
 import { resolveLimits, type HandlerLimits } from "./limits.js";
 import { openApiDocument } from "./openapi.js";
 
@@ -63,15 +64,21 @@ export interface HttpResponse {
   readonly body: JsonValue;
 }
 
-/** The handler's error codes beside the library's FormulaError codes. */
-export const HTTP_ERROR_CODES = ["not_found", "method_not_allowed", "bad_json", "bad_request", "bad_escape", "body_too_large", "over_limit", "internal"] as const;
-export type HttpErrorCode = (typeof HTTP_ERROR_CODES)[number];
 
 /** A refusal by the handler itself (not by the library): its status, code and the field it is about. */
 class HttpError extends Error {
   constructor(readonly status: number, readonly code: HttpErrorCode, message: string, readonly input?: string, readonly limit?: number) {
     super(message);
   }
+
+  /** 405, with the method the route takes (for the allow header). */
+  static method(method: string, allow: "GET" | "POST"): HttpError {
+    const e = new HttpError(405, "method_not_allowed", `${method || "an empty method"} is not allowed here; use ${allow}`);
+    e.allow = allow;
+    return e;
+  }
+
+  allow: string | undefined;
 }
 
 const JSON_TYPE = "application/json; charset=utf-8";
@@ -129,7 +136,7 @@ function readBody(body: unknown, limits: HandlerLimits): Record<string, unknown>
   if (typeof body === "string" || body instanceof Uint8Array) {
     let text: string;
     if (typeof body === "string") {
-      // UTF-8 length without encoding: at most 3 bytes per UTF-16 unit, exact count only near the limit.
+      // At most 3 UTF-8 bytes per UTF-16 unit: encode to count exactly only when that bound is over the limit.
       if (body.length * 3 > limits.maxBodyBytes && new TextEncoder().encode(body).length > limits.maxBodyBytes) throw tooLarge(limits);
       text = body;
     } else {
@@ -232,7 +239,7 @@ function route(request: HttpRequest, limits: HandlerLimits, document: () => unkn
 
   const isFormula = rawPath.startsWith("/formulas/");
   if (GET_ROUTES.has(rawPath) || isFormula) {
-    if (method !== "GET") throw new HttpError(405, "method_not_allowed", `${method || "an empty method"} is not allowed here; use GET`);
+    if (method !== "GET") throw HttpError.method(method, "GET");
     if (rawPath === "/openapi.json") return ok(document());
     if (rawPath === "/formulas") return ok(formulaCatalog(queryValue(request, search, "category")));
     const id = decode(rawPath.slice("/formulas/".length), "formula id in the path");
@@ -245,7 +252,7 @@ function route(request: HttpRequest, limits: HandlerLimits, document: () => unkn
     }
   }
   if (!POST_ROUTES.has(rawPath)) throw new HttpError(404, "not_found", "no such route; see GET /openapi.json");
-  if (method !== "POST") throw new HttpError(405, "method_not_allowed", `${method || "an empty method"} is not allowed here; use POST`);
+  if (method !== "POST") throw HttpError.method(method, "POST");
   const body = readBody(request.body, limits);
   switch (rawPath) {
     case "/evaluate":
@@ -293,7 +300,7 @@ export function createHandler(options: HandlerOptions = {}): (request: HttpReque
       if (e instanceof HttpError) {
         const error: Record<string, unknown> = { code: e.code, message: e.message, input: e.input ?? null };
         if (e.limit !== undefined) error.limit = e.limit;
-        const headers: Record<string, string> = e.status === 405 ? { allow: e.message.endsWith("GET") ? "GET" : "POST" } : {};
+        const headers: Record<string, string> = e.allow ? { allow: e.allow } : {};
         return errorResponse(e.status, error, headers);
       }
       if (e instanceof FormulaError) return fromFormulaError(e, 422);

@@ -13,8 +13,10 @@
  * unknown_formula (in the path); 405 method_not_allowed; 413 body_too_large;
  * 422 a FormulaError code or over_limit. User input never gives 500.
  */
-export { createHandler, HTTP_ERROR_CODES } from "./handler.js";
-export type { HandlerOptions, HttpErrorCode, HttpRequest, HttpResponse, JsonValue } from "./handler.js";
+export { createHandler } from "./handler.js";
+export type { HandlerOptions, HttpRequest, HttpResponse, JsonValue, QueryParams } from "./handler.js";
+export { HTTP_ERROR_CODES } from "./codes.js";
+export type { HttpErrorCode } from "./codes.js";
 export { createRequestListener } from "./node.js";
 export type { NodeRequestLike, NodeResponseLike } from "./node.js";
 export { DEFAULT_LIMITS, resolveLimits } from "./limits.js";

@@ -8,6 +8,7 @@
 import { ERROR_CODES } from "../core/errors.js";
 import { listFormulas } from "../core/registry.js";
 import { inputSchema } from "../tools/catalog.js";
+import { HTTP_ERROR_CODES } from "./codes.js";
 import { DEFAULT_LIMITS, type HandlerLimits } from "./limits.js";
 
 /**
@@ -20,7 +21,6 @@ type Schema = Record<string, unknown>;
 
 const ref = (name: string): Schema => ({ $ref: `#/components/schemas/${name}` });
 const json = (schema: Schema, description: string): Schema => ({ description, content: { "application/json": { schema } } });
-const HANDLER_ERRORS = ["not_found", "method_not_allowed", "bad_json", "bad_request", "bad_escape", "body_too_large", "over_limit", "internal"];
 
 /** Shapes shared by several routes. */
 function sharedSchemas(): Record<string, Schema> {
@@ -51,7 +51,7 @@ function sharedSchemas(): Record<string, Schema> {
           type: "object",
           required: ["code", "message", "input"],
           properties: {
-            code: { enum: [...ERROR_CODES, ...HANDLER_ERRORS.filter((c) => !(ERROR_CODES as readonly string[]).includes(c))] },
+            code: { enum: [...ERROR_CODES, ...HTTP_ERROR_CODES] },
             message: { type: "string" },
             input: { type: ["string", "null"], description: "the input, option or field the error is about" },
             formula: { type: "string" }, expected: { type: "string" }, received: { type: "string" }, rule: { type: "string" },
