@@ -1,9 +1,9 @@
 import { defineConfig } from "tsup";
 
 export default defineConfig({
-  entry: { index: "src/index.ts", cli: "src/cli/main.ts" },
+  entry: { index: "src/index.ts", cli: "src/cli/main.ts", http: "src/http/index.ts" },
   format: ["esm", "cjs"],
-  dts: { entry: { index: "src/index.ts" } },
+  dts: { entry: { index: "src/index.ts", http: "src/http/index.ts" } },
   sourcemap: true,
   clean: true,
   treeshake: true,

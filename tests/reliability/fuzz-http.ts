@@ -1,5 +1,5 @@
 /**
- * The HTTP example driven in process: a request object (a readable stream with
+ * The emquant/http request listener driven in process: a request object (a readable stream with
  * method, url and headers) and a response object that records what the handler
  * writes, so thousands of requests cost no sockets. The handler sees what
  * node:http would give it: the body arrives as Buffer chunks, then "end".
@@ -8,7 +8,7 @@ import { EventEmitter } from "node:events";
 import { Readable } from "node:stream";
 import type { IncomingMessage, ServerResponse } from "node:http";
 import fc from "fast-check";
-import { createHandler } from "../../examples/http-handler.js";
+import { createRequestListener } from "../../src/http/index.js";
 import { resetLoopCount } from "../helpers/loop-count.js";
 import { FORBIDDEN, loopViolations, userStrings, withoutEchoes, type Verdict } from "./fuzz-check.js";
 
@@ -72,7 +72,7 @@ export function httpCase(bodies: Record<(typeof ROUTES)[number] extends `/${infe
   );
 }
 
-const handler = createHandler({ maxBody: 64 * 1024 });
+const handler = createRequestListener({ maxBodyBytes: 64 * 1024 });
 
 /** A response that records the status, headers and body the handler writes. */
 class RecordingResponse extends EventEmitter {
@@ -91,8 +91,8 @@ class RecordingResponse extends EventEmitter {
     this.headersSent = true;
     return this;
   }
-  end(text?: string): this {
-    this.body = text ?? "";
+  end(chunk?: string | Uint8Array): this {
+    this.body = typeof chunk === "string" ? chunk : chunk === undefined ? "" : new TextDecoder().decode(chunk);
     this.finish();
     this.emit("finish");
     return this;
@@ -133,7 +133,7 @@ function jsonViolations(v: unknown, path: string, out: string[], depth = 0): voi
 
 /**
  * Evaluations a request may cause, for its loop bound (see EVALUATIONS in
- * fuzz-runners.ts; the handler itself caps samples at 1e5 and points at 1e4).
+ * fuzz-runners.ts; the handler itself caps samples at 2e4 and points at 1e4).
  */
 function evaluationsFor(url: string): number {
   if (url.startsWith("/solve")) return 100_000;

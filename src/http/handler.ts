@@ -1,0 +1,311 @@
+/**
+ * The framework-neutral request handler: a plain function from a request
+ * (method, path, query, body) to a response (status, headers, JSON body). It
+ * reads no socket and imports nothing from Node, so any server, a serverless
+ * function or a test can call it; `createRequestListener` (node.ts) adapts it
+ * to node:http.
+ *
+ * Status codes (each tested in tests/http/handler.test.ts):
+ * - 200 a result (with its warnings and cautions, or its note summaries)
+ * - 400 `bad_json` the body is not JSON; `bad_request` the body is not a JSON
+ *   object or not UTF-8; `bad_escape` a malformed percent-escape in the path or query
+ * - 404 `not_found` no such route; `unknown_formula` no such formula in the path
+ * - 405 `method_not_allowed` (with an `allow` header)
+ * - 413 `body_too_large` the body is over `maxBodyBytes`
+ * - 422 a FormulaError from the library (its code: `wrong_dimension`,
+ *   `unknown_formula` named in a body, `no_solution`, ...) or `over_limit`
+ *   (a request asking for more work than the handler's limits allow)
+ * User input never gives 500; 500 `internal` means a bug in the library.
+ */
+import { evaluate } from "../core/evaluate.js";
+import { FormulaError } from "../core/errors.js";
+import { catalogEntry, formulaCatalog, inputSchema } from "../tools/catalog.js";
+import { solveRequest } from "../tools/solve.js";
+import { sweepRequest } from "../tools/sweep.js";
+import { toleranceRequest } from "../tools/tolerance.js";
+import type { HttpErrorCode } from "./codes.js";
+import { resolveLimits, type HandlerLimits } from "./limits.js";
+import { openApiDocument } from "./openapi.js";
+
+/** What the handler needs of a request. */
+export interface HttpRequest {
+  /** The HTTP method, e.g. "GET" or "POST" (compared as given: methods are case-sensitive). */
+  readonly method: string;
+  /**
+   * The request target as received, percent-escapes intact ("/formulas/coaxialCapacitance"); it may
+   * carry a query string, which is read when `query` is absent.
+   */
+  readonly path: string;
+  /**
+   * The query when a framework has already decoded it (a URLSearchParams, or an object of strings);
+   * otherwise it is read from `path`. Typed by shape so the declarations need no DOM or Node types.
+   */
+  readonly query?: QueryParams | Readonly<Record<string, string | readonly string[] | undefined>>;
+  /**
+   * The body: its raw text (a string, or UTF-8 bytes such as a Buffer), or a value a framework has
+   * already parsed from JSON. Absent or empty for GET.
+   */
+  readonly body?: unknown;
+}
+
+/** What the handler uses of a URLSearchParams. */
+export interface QueryParams {
+  get(name: string): string | null;
+}
+
+/** A JSON value as the handler returns it. */
+export type JsonValue = null | boolean | number | string | readonly JsonValue[] | { readonly [key: string]: JsonValue };
+
+/** What the handler answers: send `body` as JSON (`JSON.stringify`) with the status and headers. */
+export interface HttpResponse {
+  readonly status: number;
+  /** Lower-case header names: always `content-type`, plus `allow` on 405. */
+  readonly headers: Readonly<Record<string, string>>;
+  readonly body: JsonValue;
+}
+
+
+/** A refusal by the handler itself (not by the library): its status, code and the field it is about. */
+class HttpError extends Error {
+  constructor(readonly status: number, readonly code: HttpErrorCode, message: string, readonly input?: string, readonly limit?: number) {
+    super(message);
+  }
+
+  /** 405, with the method the route takes (for the allow header). */
+  static method(method: string, allow: "GET" | "POST"): HttpError {
+    const e = new HttpError(405, "method_not_allowed", `${method || "an empty method"} is not allowed here; use ${allow}`);
+    e.allow = allow;
+    return e;
+  }
+
+  allow: string | undefined;
+}
+
+const JSON_TYPE = "application/json; charset=utf-8";
+
+function ok(body: unknown): HttpResponse {
+  return { status: 200, headers: { "content-type": JSON_TYPE }, body: body as JsonValue };
+}
+
+/** The error body every 4xx and 5xx carries: `{ error: { code, message, input, ... } }`. */
+function errorResponse(status: number, error: Record<string, unknown>, headers: Record<string, string> = {}): HttpResponse {
+  return { status, headers: { "content-type": JSON_TYPE, ...headers }, body: { error } as JsonValue };
+}
+
+function fromFormulaError(e: FormulaError, status: number): HttpResponse {
+  const error: Record<string, unknown> = { code: e.code, message: e.message, input: e.input ?? null };
+  // The structured fields, where the error has them, so clients need not parse the message.
+  for (const key of ["formula", "expected", "received", "rule"] as const) if (e[key] !== undefined) error[key] = e[key];
+  return errorResponse(status, error);
+}
+
+const GET_ROUTES = new Set(["/formulas", "/openapi.json"]);
+const POST_ROUTES = new Set(["/evaluate", "/solve", "/tolerance", "/sweep"]);
+
+function decode(text: string, what: string): string {
+  try {
+    return decodeURIComponent(text);
+  } catch {
+    // A malformed escape ("%E0%A4%A", "%ZZ") is the client's mistake, not the server's.
+    throw new HttpError(400, "bad_escape", `the ${what} has a malformed percent-escape`);
+  }
+}
+
+/** The first value of a query parameter, from a query string or a framework's decoded query. */
+function queryValue(request: HttpRequest, search: string, name: string): string | undefined {
+  const q = request.query;
+  if (q !== undefined) {
+    // A URLSearchParams (or anything with its get); else a plain or null-prototype object.
+    if (typeof q.get === "function") return (q as QueryParams).get(name) ?? undefined;
+    const v = Object.hasOwn(q, name) ? (q as Readonly<Record<string, unknown>>)[name] : undefined;
+    const first = typeof v === "string" ? v : Array.isArray(v) ? v[0] : undefined;
+    return typeof first === "string" ? first : undefined;
+  }
+  // Decoded here, strictly: URLSearchParams would pass a malformed escape through as text.
+  for (const pair of search.split("&")) {
+    const eq = pair.indexOf("=");
+    const key = decode((eq < 0 ? pair : pair.slice(0, eq)).replace(/\+/g, " "), "query");
+    if (key === name) return decode((eq < 0 ? "" : pair.slice(eq + 1)).replace(/\+/g, " "), "query");
+  }
+  return undefined;
+}
+
+/** The body as a JSON value: raw text or bytes are parsed (within the size limit); a parsed value is taken as is. */
+function readBody(body: unknown, limits: HandlerLimits): Record<string, unknown> {
+  let value = body;
+  if (typeof body === "string" || body instanceof Uint8Array) {
+    let text: string;
+    if (typeof body === "string") {
+      // At most 3 UTF-8 bytes per UTF-16 unit: encode to count exactly only when that bound is over the limit.
+      if (body.length * 3 > limits.maxBodyBytes && new TextEncoder().encode(body).length > limits.maxBodyBytes) throw tooLarge(limits);
+      text = body;
+    } else {
+      if (body.byteLength > limits.maxBodyBytes) throw tooLarge(limits);
+      try {
+        text = new TextDecoder("utf-8", { fatal: true }).decode(body);
+      } catch {
+        throw new HttpError(400, "bad_request", "the request body is not UTF-8 text");
+      }
+    }
+    try {
+      value = JSON.parse(text);
+    } catch {
+      // Also a nesting too deep for the parser's stack: still unreadable JSON.
+      throw new HttpError(400, "bad_json", "the request body is not valid JSON");
+    }
+  }
+  if (typeof value !== "object" || value === null || Array.isArray(value)) {
+    throw new HttpError(400, "bad_request", "the request body must be a JSON object");
+  }
+  return value as Record<string, unknown>;
+}
+
+function tooLarge(limits: HandlerLimits): HttpError {
+  return new HttpError(413, "body_too_large", `the request body is over ${limits.maxBodyBytes} bytes`);
+}
+
+function overLimit(field: string, limit: number, what: string): HttpError {
+  return new HttpError(422, "over_limit", `${field} is over this server's limit of ${limit} ${what}`, field, limit);
+}
+
+function isObject(v: unknown): v is Record<string, unknown> {
+  return typeof v === "object" && v !== null && !Array.isArray(v);
+}
+
+/**
+ * Refuse work over the limits before computing. Only numbers are compared
+ * here; a value of the wrong type or shape is left to the library, whose
+ * checks name it with a FormulaError code.
+ */
+function checkSolve(body: Record<string, unknown>, limits: HandlerLimits): void {
+  const o = body.options;
+  if (!isObject(o)) return;
+  if (typeof o.decades === "number" && !(o.decades <= limits.maxSolveDecades)) throw overLimit("decades", limits.maxSolveDecades, "decades");
+  if (typeof o.samplesPerDecade === "number" && !(o.samplesPerDecade <= limits.maxSolveSamplesPerDecade)) {
+    throw overLimit("samplesPerDecade", limits.maxSolveSamplesPerDecade, "samples per decade");
+  }
+}
+
+/** The tolerance options to run with: over-limit values refused, the sample count defaulted within the limit. */
+function checkTolerance(body: Record<string, unknown>, limits: HandlerLimits): unknown {
+  const o = body.options ?? {};
+  if (!isObject(o)) return o;
+  if (typeof o.samples === "number" && !(o.samples <= limits.maxSamples)) throw overLimit("samples", limits.maxSamples, "samples");
+  if (typeof o.maxCornerInputs === "number" && !(o.maxCornerInputs <= limits.maxCornerInputs)) {
+    throw overLimit("maxCornerInputs", limits.maxCornerInputs, "corner inputs");
+  }
+  // Unset: the library's defaults (10000 samples, 12 corner inputs), lowered to a server's tighter limits.
+  return {
+    ...o,
+    ...(o.samples === undefined ? { samples: Math.min(10_000, limits.maxSamples) } : {}),
+    ...(o.maxCornerInputs === undefined ? { maxCornerInputs: Math.min(12, limits.maxCornerInputs) } : {}),
+  };
+}
+
+function checkSweep(body: Record<string, unknown>, limits: HandlerLimits): void {
+  if (!isObject(body.vary)) return;
+  const axes = Object.values(body.vary);
+  // The library refuses more than two axes before computing; two at most are counted here.
+  if (axes.length > 2) return;
+  let total = 1;
+  for (const a of axes) if (isObject(a) && typeof a.points === "number") total *= a.points;
+  if (!(total <= limits.maxSweepPoints)) throw overLimit("points", limits.maxSweepPoints, "points per sweep");
+}
+
+/** A sweep result as JSON: typed arrays as arrays, and null (not NaN, which JSON lacks) where a point was not computed. */
+function sweepJson(body: Record<string, unknown>): unknown {
+  const r = sweepRequest(body as never);
+  const column = (values: Float64Array): (number | null)[] => Array.from(values, (v, k) => (r.computed[k] ? v : null));
+  const components = r.output.components;
+  return {
+    formula: r.formula,
+    axes: r.axes.map((a) => ({ name: a.name, unit: a.unit, scale: a.scale, values: Array.from(a.values) })),
+    output: {
+      name: r.output.name, description: r.output.description, unit: r.output.unit, values: column(r.output.values),
+      ...(components ? { components: Object.fromEntries(Object.entries(components).map(([k, v]) => [k, column(v)])) } : {}),
+    },
+    notComputed: r.notComputed,
+    notes: r.notes,
+  };
+}
+
+function route(request: HttpRequest, limits: HandlerLimits, document: () => unknown): HttpResponse {
+  const method = request.method;
+  const target = request.path;
+  const q = target.indexOf("?");
+  const rawPath = (q < 0 ? target : target.slice(0, q)).replace(/\/+$/, "") || "/";
+  const search = q < 0 ? "" : target.slice(q + 1).split("#")[0]!;
+  if (!rawPath.startsWith("/")) throw new HttpError(404, "not_found", "the path must start with /");
+
+  const isFormula = rawPath.startsWith("/formulas/");
+  if (GET_ROUTES.has(rawPath) || isFormula) {
+    if (method !== "GET") throw HttpError.method(method, "GET");
+    if (rawPath === "/openapi.json") return ok(document());
+    if (rawPath === "/formulas") return ok(formulaCatalog(queryValue(request, search, "category")));
+    const id = decode(rawPath.slice("/formulas/".length), "formula id in the path");
+    try {
+      return ok({ ...catalogEntry(id), inputSchema: inputSchema(id) });
+    } catch (e) {
+      // An unknown id in the path names a resource that does not exist: 404, not 422.
+      if (e instanceof FormulaError && e.code === "unknown_formula") return fromFormulaError(e, 404);
+      throw e;
+    }
+  }
+  if (!POST_ROUTES.has(rawPath)) throw new HttpError(404, "not_found", "no such route; see GET /openapi.json");
+  if (method !== "POST") throw HttpError.method(method, "POST");
+  const body = readBody(request.body, limits);
+  switch (rawPath) {
+    case "/evaluate":
+      return ok(evaluate(body.formula as string, (body.inputs ?? {}) as Record<string, unknown>));
+    case "/solve":
+      checkSolve(body, limits);
+      return ok(solveRequest(body as never));
+    case "/tolerance": {
+      const options = checkTolerance(body, limits);
+      return ok(toleranceRequest({ formula: body.formula as string, inputs: body.inputs as Record<string, unknown>, options: options as never }));
+    }
+    default:
+      checkSweep(body, limits);
+      return ok(sweepJson(body));
+  }
+}
+
+/** Options of `createHandler` and `createRequestListener`: the limits (see HandlerLimits for the defaults). */
+export type HandlerOptions = Partial<HandlerLimits>;
+
+/**
+ * The handler: a function from a request to a response, with the limits
+ * checked once here (a bad limit throws a RangeError at once).
+ *
+ * Routes: `GET /formulas` (`?category=`), `GET /formulas/{id}`, `GET /openapi.json`,
+ * `POST /evaluate`, `/solve`, `/tolerance`, `/sweep`. The answer never throws.
+ *
+ * @example
+ * const handle = createHandler({ maxSweepPoints: 2000 });
+ * handle({ method: "POST", path: "/evaluate", body: '{"formula":"parallelPlateCapacitance","inputs":{"area":"1 cm^2","gap":"2 mm"}}' });
+ * // { status: 200, headers: { "content-type": ... }, body: { id, value: 4.427e-13, unit: "F", warnings: [{ code: "fringing", ... }], cautions: [] } }
+ */
+export function createHandler(options: HandlerOptions = {}): (request: HttpRequest) => HttpResponse {
+  const limits = resolveLimits(options);
+  // Built on first request for it: it depends only on the limits and the registry.
+  let doc: unknown;
+  const document = (): unknown => (doc ??= openApiDocument(limits));
+  return (request) => {
+    try {
+      if (typeof request !== "object" || request === null || typeof request.method !== "string" || typeof request.path !== "string") {
+        throw new HttpError(400, "bad_request", "the request needs a method and a path");
+      }
+      return route(request, limits, document);
+    } catch (e) {
+      if (e instanceof HttpError) {
+        const error: Record<string, unknown> = { code: e.code, message: e.message, input: e.input ?? null };
+        if (e.limit !== undefined) error.limit = e.limit;
+        const headers: Record<string, string> = e.allow ? { allow: e.allow } : {};
+        return errorResponse(e.status, error, headers);
+      }
+      if (e instanceof FormulaError) return fromFormulaError(e, 422);
+      // Not user input: a bug. Say so without leaking internals.
+      return errorResponse(500, { code: "internal", message: "internal error", input: null });
+    }
+  };
+}

@@ -1,0 +1,289 @@
+/**
+ * The OpenAPI 3.1 description of the handler's routes, generated from the
+ * registry: each formula's inputs schema is `inputSchema(id)` (JSON Schema
+ * 2020-12, the dialect OpenAPI 3.1 uses), so adding a formula adds it here
+ * with no edit. The request limits appear as bounds (samples, points,
+ * decades), taken from the limits the handler runs with.
+ */
+import { ERROR_CODES } from "../core/errors.js";
+import { listFormulas } from "../core/registry.js";
+import { inputSchema } from "../tools/catalog.js";
+import { HTTP_ERROR_CODES } from "./codes.js";
+import { DEFAULT_LIMITS, type HandlerLimits } from "./limits.js";
+
+/**
+ * Version of the HTTP interface (routes, request and response shapes), apart
+ * from the package version: it changes when a route or shape changes.
+ */
+export const HTTP_API_VERSION = "1.0.0";
+
+type Schema = Record<string, unknown>;
+
+const ref = (name: string): Schema => ({ $ref: `#/components/schemas/${name}` });
+const json = (schema: Schema, description: string): Schema => ({ description, content: { "application/json": { schema } } });
+
+/** Shapes shared by several routes. */
+function sharedSchemas(): Record<string, Schema> {
+  const number = { type: "number" };
+  const si = (description: string): Schema => ({ type: "number", description });
+  const quantity = { anyOf: [number, { type: "string", minLength: 1 }], description: "a number in SI or a unit string such as \"0.2 mm\"" };
+  const note = { type: "object", required: ["code", "message"], properties: { code: { type: "string" }, message: { type: "string" } } };
+  const notes = { type: "array", items: ref("Note") };
+  return {
+    Note: note,
+    NoteSummary: {
+      type: "object",
+      required: ["code", "kind", "count", "worst"],
+      description: "a warning or caution raised over many points: how many raised it and the worst one",
+      properties: {
+        code: { type: "string" }, kind: { enum: ["warning", "caution"] }, count: { type: "integer", minimum: 1 },
+        worst: {
+          type: "object", required: ["index", "inputs", "message"],
+          properties: { index: { type: "integer", minimum: 0 }, inputs: { type: "object", additionalProperties: number }, measure: number, message: { type: "string" } },
+        },
+      },
+    },
+    Error: {
+      type: "object",
+      required: ["error"],
+      properties: {
+        error: {
+          type: "object",
+          required: ["code", "message", "input"],
+          properties: {
+            code: { enum: [...ERROR_CODES, ...HTTP_ERROR_CODES] },
+            message: { type: "string" },
+            input: { type: ["string", "null"], description: "the input, option or field the error is about" },
+            formula: { type: "string" }, expected: { type: "string" }, received: { type: "string" }, rule: { type: "string" },
+            limit: { type: "integer", description: "for over_limit: the server's limit" },
+          },
+        },
+      },
+    },
+    Quantity: quantity,
+    ToleranceValue: {
+      description: "a value held at nominal, or a band: nominal +- plusMinus, nominal +- percent, a normal or a uniform distribution",
+      anyOf: [
+        ref("Quantity"),
+        { type: "array", items: ref("Quantity"), minItems: 3, maxItems: 3 },
+        { type: "object", required: ["nominal", "plusMinus"], properties: { nominal: ref("Quantity"), plusMinus: ref("Quantity") }, additionalProperties: false },
+        { type: "object", required: ["nominal", "percent"], properties: { nominal: ref("Quantity"), percent: number }, additionalProperties: false },
+        { type: "object", required: ["distribution", "mean", "sd"], properties: { distribution: { const: "normal" }, mean: ref("Quantity"), sd: ref("Quantity") }, additionalProperties: false },
+        { type: "object", required: ["distribution", "min", "max"], properties: { distribution: { const: "uniform" }, min: ref("Quantity"), max: ref("Quantity") }, additionalProperties: false },
+      ],
+    },
+    EvaluateResult: {
+      type: "object",
+      required: ["id", "value", "unit", "warnings", "cautions"],
+      properties: {
+        id: { type: "string" },
+        value: { anyOf: [si("the value in SI"), { type: "array", items: number, description: "components in SI" }] },
+        unit: { type: "string", description: "SI unit symbol (empty when dimensionless)" },
+        warnings: notes, cautions: notes,
+      },
+    },
+    SolveResult: {
+      type: "object",
+      required: ["formula", "input", "value", "unit", "outputAtValue", "target", "outputUnit", "searched", "warnings", "cautions"],
+      properties: {
+        formula: { type: "string" }, input: { type: "string" }, value: si("the input value that reaches the target"), unit: { type: "string" },
+        exact: si("for whole-number inputs: the value before rounding"), outputAtValue: number, target: number, outputUnit: { type: "string" },
+        searched: { type: "array", items: number, minItems: 2, maxItems: 2 }, warnings: notes, cautions: notes,
+      },
+    },
+    ToleranceResult: {
+      type: "object",
+      required: ["formula", "unit", "nominal", "worstCase", "rss", "sensitivities", "remarks", "warnings", "cautions", "notes", "notesOver"],
+      properties: {
+        formula: { type: "string" }, unit: { type: "string" }, nominal: number,
+        worstCase: { type: "object", required: ["min", "max", "method"], properties: { min: number, max: number, method: { enum: ["corners", "derivative signs"] }, evaluated: { type: "integer" }, rejected: { type: "integer" } } },
+        rss: { type: "object", required: ["sd", "plusMinus"], properties: { sd: number, plusMinus: number } },
+        monteCarlo: { type: "object", required: ["seed", "samples", "accepted", "rejected"], properties: { generator: { type: "string" }, seed: { type: "integer" }, samples: { type: "integer" }, accepted: { type: "integer" }, rejected: { type: "integer" } } },
+        sensitivities: { type: "array", items: { type: "object", required: ["input", "derivative", "derivativeUnit", "sd", "share"], properties: { input: { type: "string" }, derivative: number, derivativeUnit: { type: "string" }, sd: number, share: { type: "number", minimum: 0, maximum: 1 } } } },
+        remarks: { type: "array", items: { type: "string" } },
+        warnings: notes, cautions: notes,
+        notes: { type: "array", items: ref("NoteSummary") }, notesOver: { type: "integer", minimum: 0 },
+      },
+    },
+    SweepResult: {
+      type: "object",
+      required: ["formula", "axes", "output", "notComputed", "notes"],
+      properties: {
+        formula: { type: "string" },
+        axes: {
+          type: "array", minItems: 1, maxItems: 2,
+          items: { type: "object", required: ["name", "unit", "scale", "values"], properties: { name: { type: "string" }, unit: { type: "string" }, scale: { enum: ["linear", "log"] }, values: { type: "array", items: number } } },
+        },
+        output: {
+          type: "object", required: ["name", "unit", "values"],
+          description: "row-major for two axes (index = i * n1 + j); null where a point was not computed",
+          properties: {
+            name: { type: "string" }, description: { type: "string" }, unit: { type: "string" },
+            values: { type: "array", items: { type: ["number", "null"] } },
+            components: { type: "object", additionalProperties: { type: "array", items: { type: ["number", "null"] } } },
+          },
+        },
+        notComputed: { type: "integer", minimum: 0 },
+        notes: { type: "array", items: ref("NoteSummary") },
+      },
+    },
+    CatalogEntry: {
+      type: "object",
+      required: ["id", "title", "category", "description", "equation", "inputs", "output", "relations", "validity", "cautions", "sources"],
+      properties: {
+        id: { type: "string" }, title: { type: "string" }, category: { type: "string" }, description: { type: "string" }, equation: { type: "string" },
+        inputs: { type: "array", items: { type: "object", required: ["name", "description", "kind", "required"], properties: { name: { type: "string" }, kind: { enum: ["quantity", "choice"] }, required: { type: "boolean" } } } },
+        output: { type: "object", required: ["dimension", "unit", "description"] },
+        relations: { type: "array", items: { type: "string" } },
+        validity: { type: "array", items: { type: "object", required: ["code", "always"] } },
+        cautions: { type: "array", items: { type: "object", required: ["code", "always"] } },
+        sources: { type: "array", items: { type: "object", required: ["authors", "title"] } },
+      },
+    },
+  };
+}
+
+/** An inputs schema as a component: the dialect and id are the document's, so they are left out. */
+function inputsComponent(id: string): Schema {
+  const { $schema: _dialect, $id: _id, ...schema } = inputSchema(id);
+  return schema;
+}
+
+/**
+ * The OpenAPI 3.1 document of the HTTP handler, as served at GET /openapi.json.
+ * Pass the handler's limits so the bounds it states are the ones enforced.
+ */
+export function openApiDocument(limits: HandlerLimits = DEFAULT_LIMITS): Record<string, unknown> {
+  const ids = listFormulas().map((f) => f.id);
+  const categories = [...new Set(listFormulas().map((f) => f.definition.category))].sort();
+  const schemas: Record<string, Schema> = sharedSchemas();
+  const evaluateMapping: Record<string, string> = {};
+  for (const id of ids) {
+    const inputs = inputsComponent(id);
+    schemas[`${id}.inputs`] = inputs;
+    const needsInputs = Array.isArray(inputs.required) && inputs.required.length > 0;
+    schemas[`${id}.evaluate`] = {
+      type: "object",
+      required: needsInputs ? ["formula", "inputs"] : ["formula"],
+      properties: { formula: { const: id }, inputs: ref(`${id}.inputs`) },
+    };
+    evaluateMapping[id] = `#/components/schemas/${id}.evaluate`;
+  }
+  const formula = { type: "string", enum: ids, description: "a formula id (GET /formulas lists them)" };
+  const errors = (...statuses: number[]): Record<string, Schema> => Object.fromEntries(statuses.map((s) => [String(s), { $ref: `#/components/responses/${s}` }]));
+  const post = (summary: string, request: Schema, result: string): Schema => ({
+    post: {
+      summary,
+      requestBody: { required: true, content: { "application/json": { schema: request } } },
+      responses: { 200: json(ref(result), "the result with its notes"), ...errors(400, 405, 413, 422) },
+    },
+  });
+  return {
+    openapi: "3.1.0",
+    info: {
+      title: "emquant",
+      version: HTTP_API_VERSION,
+      summary: "Electromagnetics engineering formulas over HTTP: evaluate, solve, tolerance analysis and sweeps, with unit strings.",
+      description:
+        "Inputs are numbers in SI or unit strings (\"0.2 mm\"). Every result carries its notes: warnings (where a formula's assumptions " +
+        "weaken) and cautions (hazards; local codes and licensed practice govern). Errors are { error: { code, message, input } }: " +
+        "400 unreadable request, 404 unknown route or formula, 405 wrong method, 413 body too large, 422 bad input or over a limit. " +
+        "User input never causes a 500.",
+      license: { name: "MIT", identifier: "MIT" },
+    },
+    paths: {
+      "/formulas": {
+        get: {
+          summary: "Every formula's metadata, sorted by category then id",
+          parameters: [{ name: "category", in: "query", required: false, schema: { type: "string", enum: categories } }],
+          responses: { 200: json({ type: "array", items: ref("CatalogEntry") }, "the catalog"), ...errors(400, 405) },
+        },
+      },
+      "/formulas/{id}": {
+        get: {
+          summary: "One formula's metadata with the JSON Schema of its inputs",
+          parameters: [{ name: "id", in: "path", required: true, schema: formula }],
+          responses: {
+            200: json({ allOf: [ref("CatalogEntry"), { type: "object", required: ["inputSchema"], properties: { inputSchema: { type: "object" } } }] }, "the formula"),
+            ...errors(400, 404, 405),
+          },
+        },
+      },
+      "/openapi.json": {
+        get: { summary: "This document", responses: { 200: json({ type: "object" }, "the OpenAPI document"), ...errors(405) } },
+      },
+      "/evaluate": post("Evaluate a formula", { oneOf: ids.map((id) => ref(`${id}.evaluate`)), discriminator: { propertyName: "formula", mapping: evaluateMapping } }, "EvaluateResult"),
+      "/solve": post(
+        "Find the value of one input that makes the output reach a target",
+        {
+          type: "object",
+          required: ["formula", "solveFor", "target"],
+          properties: {
+            formula, solveFor: { type: "string", description: "the input to solve for (not given in inputs)" },
+            target: ref("Quantity"), inputs: { type: "object", description: "the other inputs, as in the formula's inputs schema" },
+            options: {
+              type: "object",
+              additionalProperties: false,
+              properties: {
+                decades: { type: "integer", minimum: 1, maximum: limits.maxSolveDecades },
+                samplesPerDecade: { type: "integer", minimum: 2, maximum: limits.maxSolveSamplesPerDecade },
+                range: { type: "array", items: ref("Quantity"), minItems: 2, maxItems: 2 },
+              },
+            },
+          },
+        },
+        "SolveResult",
+      ),
+      "/tolerance": post(
+        "Worst case, RSS and Monte Carlo of a formula's output over toleranced inputs",
+        {
+          type: "object",
+          required: ["formula", "inputs"],
+          properties: {
+            formula,
+            inputs: { type: "object", additionalProperties: ref("ToleranceValue") },
+            options: {
+              type: "object",
+              additionalProperties: false,
+              properties: {
+                samples: { type: "integer", minimum: 0, maximum: limits.maxSamples },
+                seed: { type: "integer" },
+                maxCornerInputs: { type: "integer", minimum: 0, maximum: limits.maxCornerInputs },
+              },
+            },
+          },
+        },
+        "ToleranceResult",
+      ),
+      "/sweep": post(
+        `Evaluate a formula over a grid of one or two inputs (at most ${limits.maxSweepPoints} points)`,
+        {
+          type: "object",
+          required: ["formula", "vary"],
+          properties: {
+            formula,
+            vary: {
+              type: "object", minProperties: 1, maxProperties: 2,
+              additionalProperties: {
+                type: "object", required: ["from", "to", "points"], additionalProperties: false,
+                properties: { from: ref("Quantity"), to: ref("Quantity"), points: { type: "integer", minimum: 1, maximum: limits.maxSweepPoints }, scale: { enum: ["linear", "log"] } },
+              },
+            },
+            fixed: { type: "object", description: "the other inputs, as in the formula's inputs schema" },
+          },
+        },
+        "SweepResult",
+      ),
+    },
+    components: {
+      schemas,
+      responses: {
+        400: json(ref("Error"), "unreadable request: bad_json, bad_request, bad_escape"),
+        404: json(ref("Error"), "not_found (route) or unknown_formula (formula id in the path)"),
+        405: { ...json(ref("Error"), "method_not_allowed"), headers: { allow: { description: "the method to use", schema: { type: "string" } } } },
+        413: json(ref("Error"), `body_too_large: the body is over ${limits.maxBodyBytes} bytes`),
+        422: json(ref("Error"), "a library error code (wrong_dimension, out_of_domain, no_solution, ...) or over_limit"),
+      },
+    },
+  };
+}
