@@ -17,6 +17,9 @@
  *   (a request asking for more work than the handler's limits allow)
  * User input never gives 500; 500 `internal` means a bug in the library.
  */
+import { designReportHtml, designReportMarkdown } from "../designs/report.js";
+import type { DesignSpec } from "../designs/spec.js";
+import { type DesignToleranceResult, designTolerance, evaluateDesign } from "../designs/tools.js";
 import { evaluate } from "../core/evaluate.js";
 import { FormulaError } from "../core/errors.js";
 import { catalogEntry, formulaCatalog, inputSchema } from "../tools/catalog.js";
@@ -100,7 +103,7 @@ function fromFormulaError(e: FormulaError, status: number): HttpResponse {
 }
 
 const GET_ROUTES = new Set(["/formulas", "/openapi.json"]);
-const POST_ROUTES = new Set(["/evaluate", "/solve", "/tolerance", "/sweep"]);
+const POST_ROUTES = new Set(["/evaluate", "/solve", "/tolerance", "/sweep", "/design"]);
 
 function decode(text: string, what: string): string {
   try {
@@ -229,6 +232,30 @@ function sweepJson(body: Record<string, unknown>): unknown {
   };
 }
 
+/** A design evaluated, with tolerance through the chain and the report when asked; samples within the limit. */
+function designAnswer(body: Record<string, unknown>, limits: HandlerLimits): unknown {
+  for (const key of Object.keys(body)) {
+    if (key !== "design" && key !== "tolerance" && key !== "report") throw new HttpError(400, "bad_request", `unknown field "${key}"; a design request has design, tolerance and report`);
+  }
+  const result = evaluateDesign(body.design as DesignSpec);
+  let tolerance: DesignToleranceResult | undefined;
+  if (body.tolerance !== undefined) {
+    if (!isObject(body.tolerance)) throw new HttpError(400, "bad_request", "tolerance is an object { samples, seed }");
+    const o = body.tolerance;
+    const samples = o.samples === undefined ? Math.min(10_000, limits.maxSamples) : o.samples;
+    if (typeof samples === "number" && samples > limits.maxSamples) throw overLimit("samples", limits.maxSamples, "Monte Carlo samples");
+    tolerance = designTolerance(body.design as DesignSpec, { ...o, samples, maxCornerInputs: Math.min(10, limits.maxCornerInputs) } as never);
+  }
+  const report = body.report;
+  if (report !== undefined && report !== "markdown" && report !== "html") throw new HttpError(400, "bad_request", 'report is "markdown" or "html"');
+  const options = tolerance ? { tolerance } : {};
+  return {
+    design: result,
+    ...(tolerance ? { tolerance } : {}),
+    ...(report === "markdown" ? { report: designReportMarkdown(result, options) } : report === "html" ? { report: designReportHtml(result, options) } : {}),
+  };
+}
+
 function route(request: HttpRequest, limits: HandlerLimits, document: () => unknown): HttpResponse {
   const method = request.method;
   const target = request.path;
@@ -264,6 +291,8 @@ function route(request: HttpRequest, limits: HandlerLimits, document: () => unkn
       const options = checkTolerance(body, limits);
       return ok(toleranceRequest({ formula: body.formula as string, inputs: body.inputs as Record<string, unknown>, options: options as never }));
     }
+    case "/design":
+      return ok(designAnswer(body, limits));
     default:
       checkSweep(body, limits);
       return ok(sweepJson(body));

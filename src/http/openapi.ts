@@ -5,6 +5,7 @@
  * with no edit. The request limits appear as bounds (samples, points,
  * decades), taken from the limits the handler runs with.
  */
+import { designSchema } from "../designs/schema.js";
 import { ERROR_CODES } from "../core/errors.js";
 import { listFormulas } from "../core/registry.js";
 import { inputSchema } from "../tools/catalog.js";
@@ -157,6 +158,17 @@ export function openApiDocument(limits: HandlerLimits = DEFAULT_LIMITS): Record<
   const ids = listFormulas().map((f) => f.id);
   const categories = [...new Set(listFormulas().map((f) => f.definition.category))].sort();
   const schemas: Record<string, Schema> = sharedSchemas();
+  const { $schema: _s, $id: _i, ...design } = designSchema();
+  schemas.Design = design;
+  schemas.DesignAnswer = {
+    type: "object",
+    required: ["design"],
+    properties: {
+      design: { type: "object", description: "DesignResult: inputs, steps (value, unit, inputs, equation, source, notes), derived quantities, checks with margins, notes naming their steps" },
+      tolerance: { type: "object", description: "DesignToleranceResult: worst case, RSS sensitivities and Monte Carlo per quantity; failure probability per check" },
+      report: { type: "string" },
+    },
+  };
   const evaluateMapping: Record<string, string> = {};
   for (const id of ids) {
     const inputs = inputsComponent(id);
@@ -273,6 +285,24 @@ export function openApiDocument(limits: HandlerLimits = DEFAULT_LIMITS): Record<
           },
         },
         "SweepResult",
+      ),
+      "/design": post(
+        "Evaluate a design (a chain of formulas with checks), optionally with tolerance through the chain and a calculation report",
+        {
+          type: "object",
+          required: ["design"],
+          additionalProperties: false,
+          properties: {
+            design: ref("Design"),
+            tolerance: {
+              type: "object",
+              additionalProperties: false,
+              properties: { samples: { type: "integer", minimum: 0, maximum: limits.maxSamples }, seed: { type: "integer", minimum: 0, maximum: 4294967295 } },
+            },
+            report: { enum: ["markdown", "html"], description: "also return the calculation report as text" },
+          },
+        },
+        "DesignAnswer",
       ),
     },
     components: {
