@@ -20,3 +20,4 @@ export * from "./force/index.js";
 export * from "./displacement/index.js";
 export * from "./tools/index.js";
 export * from "./notebook/index.js";
+export * from "./interconnect/field-solver.js";
