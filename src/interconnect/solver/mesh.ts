@@ -212,23 +212,34 @@ function meshInterfaces(s: NormSection, N: number, hmin: number, elements: Eleme
     }
     pieces.push([from, xmax + reach]);
     for (const [a, b] of pieces) {
-      // Walk from a to b. A step s from x keeps s <= grading * D(x + s) when
-      // s <= grading * D(x) / (1 + grading) (D is 1-Lipschitz), so panels shrink
-      // geometrically towards a feature and grow geometrically away from it,
-      // never below hmin. Bound: every step is at least hmin and the loop stops
-      // with an error once the unknowns pass MAX_UNKNOWNS.
-      let x = a;
-      let steps = 0;
-      while (x < b) {
-        const step = Math.max(hmin, (grading * featureDistance(s, x, f.h)) / (1 + grading));
-        const next = x + 1.5 * step >= b ? b : x + step;
-        elements.push(panel(x, f.h, next, f.h));
-        rows.push({ kind: "interface", below: f.below, above: f.above });
-        x = next;
-        steps++;
-        if (elements.length > MAX_UNKNOWNS) tooBig(tool, elements.length, "options.panels");
+      // Walk from each end of the piece to its middle, so a mirror-symmetric
+      // section gets a mirror-symmetric mesh. A step s from x keeps
+      // s <= grading * D(x + s) when s <= grading * D(x) / (1 + grading) (D is
+      // 1-Lipschitz), so panels shrink geometrically towards a feature and
+      // grow geometrically away from it, never below hmin. Bound: every step
+      // is at least hmin and the walk stops with an error once the unknowns
+      // pass MAX_UNKNOWNS.
+      const mid = 0.5 * (a + b);
+      const left: number[] = [a];
+      const right: number[] = [b];
+      for (const [pts, dir] of [[left, 1], [right, -1]] as const) {
+        let x = pts[0]!;
+        let steps = 0;
+        while (dir * (mid - x) > 0) {
+          const step = Math.max(hmin, (grading * featureDistance(s, x, f.h)) / (1 + grading));
+          x = dir * (mid - x) <= 1.5 * step ? mid : x + dir * step;
+          pts.push(x);
+          steps++;
+          if (elements.length + left.length + right.length > MAX_UNKNOWNS) tooBig(tool, elements.length + left.length + right.length, "options.panels");
+        }
+        countLoop(steps);
       }
-      countLoop(steps);
+      right.pop(); // mid, already the last point of `left`
+      const xs = left.concat(right.reverse());
+      for (let k = 0; k + 1 < xs.length; k++) {
+        elements.push(panel(xs[k]!, f.h, xs[k + 1]!, f.h));
+        rows.push({ kind: "interface", below: f.below, above: f.above });
+      }
     }
   }
 }
