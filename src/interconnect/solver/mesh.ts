@@ -5,7 +5,8 @@
  * - Strips of finite thickness: the outline, counter-clockwise, each side cut
  *   into panels graded towards the corners by cosine spacing (side fractions
  *   (1 - cos(pi k/n))/2), where the charge density is singular (like r^(-1/3)
- *   at a right-angled corner). A sheet (thickness 0) is one line of `panels`
+ *   at a right-angled corner); `panels` on the longest side, N sqrt(side/longest)
+ *   on the others. A sheet (thickness 0) is one line of `panels`
  *   panels, graded towards its edges, where the density goes like r^(-1/2).
  * - Round conductors: 2M + 1 Fourier modes, M chosen from how close the nearest
  *   other charge is (coefficients fall like rho^M, see `modeCount`).
@@ -153,7 +154,9 @@ export function buildMesh(s: NormSection, o: MeshOptions, tool: string): Mesh {
       const bx = corners[2 * side + 2]!;
       const by = corners[2 * side + 3]!;
       const len = Math.hypot(bx - ax, by - ay);
-      const n = Math.max(2, Math.ceil((N * len) / longest));
+      // Cosine grading with n panels puts an end panel of len (pi/n)^2/4 at each corner; n =
+      // N sqrt(len/longest) matches it to the long side's, so a thin side refines with N too.
+      const n = Math.max(2, Math.ceil(N * Math.sqrt(len / longest)));
       if (elements.length + n > MAX_UNKNOWNS) tooBig(tool, elements.length + n, "options.panels");
       smallest = Math.min(smallest, len * graded(n, 1));
       for (let k = 0; k < n; k++) {
