@@ -18,6 +18,7 @@ export * from "./inductance/index.js";
 export * from "./flux/index.js";
 export * from "./force/index.js";
 export * from "./displacement/index.js";
+export * from "./interconnect/index.js";
 export * from "./tools/index.js";
 export * from "./notebook/index.js";
 export * from "./interconnect/field-solver.js";
