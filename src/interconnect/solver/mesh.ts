@@ -170,11 +170,7 @@ export function buildMesh(s: NormSection, o: MeshOptions, tool: string): Mesh {
       }
     }
   });
-  // Interface panels start at 1/64 of the smallest conductor panel: where an interface meets
-  // a strip's corner (conductor, dielectric and air at one point) its bound charge is more
-  // singular than the conductor's; starting at the conductor's size held a thick strip on a
-  // substrate to order 1.2-1.5 (measured), 1/64 restores about 2 for some 40 more panels.
-  meshInterfaces(s, N, smallest / 64, elements, rows, tool);
+  meshInterfaces(s, N, smallest, elements, rows, tool);
   return { elements, rows, circles };
 }
 
@@ -205,6 +201,13 @@ function meshInterfaces(s: NormSection, N: number, hmin: number, elements: Eleme
   const reach = TRUNCATION * (xmax - xmin + ytop);
   const grading = Math.min(0.5, 4 / N);
   for (const f of s.interfaces) {
+    // Where an interface meets a thick strip's corner (conductor, dielectric and air at one
+    // point) its bound charge is more singular than the conductor's: panels starting at the
+    // conductor's smallest size held a thick strip on a substrate to order 1.2-1.5 (measured);
+    // starting at 1/64 of it restores about 2 for some 40 more panels. Sheet edges on an
+    // interface converge at order 2 without it (measured), so they keep hmin.
+    const thickCorner = s.conductors.some((c) => c.kind === "strip" && c.y1 > c.y0 && (Math.abs(c.y0 - f.h) <= TOUCH || Math.abs(c.y1 - f.h) <= TOUCH));
+    const start = thickCorner ? hmin / 64 : hmin;
     // Pieces of the line not covered by strip faces resting on (or hanging from) it.
     const covered: [number, number][] = [];
     for (const c of s.conductors) {
@@ -223,8 +226,8 @@ function meshInterfaces(s: NormSection, N: number, hmin: number, elements: Eleme
       // section gets a mirror-symmetric mesh. A step s from x keeps
       // s <= grading * D(x + s) when s <= grading * D(x) / (1 + grading) (D is
       // 1-Lipschitz), so panels shrink geometrically towards a feature and
-      // grow geometrically away from it, never below hmin. Bound: every step
-      // is at least hmin and the walk stops with an error once the unknowns
+      // grow geometrically away from it, never below `start`. Bound: every step
+      // is at least `start` and the walk stops with an error once the unknowns
       // pass MAX_UNKNOWNS.
       const mid = 0.5 * (a + b);
       const left: number[] = [a];
@@ -233,7 +236,7 @@ function meshInterfaces(s: NormSection, N: number, hmin: number, elements: Eleme
         let x = pts[0]!;
         let steps = 0;
         while (dir * (mid - x) > 0) {
-          const step = Math.max(hmin, (grading * featureDistance(s, x, f.h)) / (1 + grading));
+          const step = Math.max(start, (grading * featureDistance(s, x, f.h)) / (1 + grading));
           x = dir * (mid - x) <= 1.5 * step ? mid : x + dir * step;
           pts.push(x);
           steps++;
