@@ -1,0 +1,1 @@
+export { microstripImpedance, microstripEffectivePermittivity } from "./microstrip.js";

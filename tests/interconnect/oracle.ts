@@ -1,0 +1,110 @@
+// High-precision oracle for the transmission-line closed forms: decimal.js at
+// 50 significant digits from the exact decimal values of the double inputs,
+// written from the published expressions as they stand (no rearrangement), so
+// it checks the library's numerics (its stable rewritings), while the
+// reference tables check the physics.
+import { D, type Dec, exact, PI } from "../capacitance/oracle.js";
+import { constantDecimal } from "../../src/constants/decimal.js";
+import { constant } from "../../src/constants/index.js";
+
+export { D, exact, PI, type Dec };
+export { agreesWithOracle, relErr } from "../capacitance/oracle.js";
+
+const MU0 = constantDecimal(constant("vacuumPermeability"), D);
+const C0 = new D(299792458);
+/** eta0 = mu0 c. */
+export const ETA0 = MU0.times(C0);
+
+const n = (v: number | string) => new D(v);
+
+export interface MicrostripX {
+  width: number;
+  height: number;
+  relativePermittivity: number;
+  thickness: number;
+  frequency: number;
+}
+
+/** Hammerstad & Jensen (1980) eq. (1)-(2): Z01(u) in air, ohm. */
+export function z01(u: Dec): Dec {
+  const f = n(6).plus(PI.times(2).minus(6).times(n(30.666).div(u).pow(0.7528).neg().exp()));
+  return ETA0.div(PI.times(2)).times(f.div(u).plus(n(1).plus(n(4).div(u.pow(2))).sqrt()).ln());
+}
+
+/** Hammerstad & Jensen (1980) eq. (3)-(5): quasi-static eps_eff(u, epsr) of a zero-thickness strip. */
+export function eeStatic(u: Dec, er: Dec): Dec {
+  const a = n(1)
+    .plus(u.pow(4).plus(u.div(52).pow(2)).div(u.pow(4).plus(0.432)).ln().div(49))
+    .plus(n(1).plus(u.div(18.1).pow(3)).ln().div(18.7));
+  const b = n(0.564).times(er.minus(0.9).div(er.plus(3)).pow(0.053));
+  return er.plus(1).div(2).plus(er.minus(1).div(2).times(n(1).plus(n(10).div(u)).pow(a.times(b).neg())));
+}
+
+/** H&J quasi-static Z0 and eps_eff with the strip-thickness correction (eqs. (7)-(10) as quoted in the library). */
+export function microstripStaticOracle(x: MicrostripX): { z0: Dec; ee: Dec } {
+  const u = exact(x.width).div(exact(x.height));
+  const er = exact(x.relativePermittivity);
+  let u1 = u;
+  let ur = u;
+  if (x.thickness > 0) {
+    const t = exact(x.thickness).div(exact(x.height));
+    const coth = n(6.517).times(u).sqrt();
+    const coth2 = n(1).div(coth.tanh()).pow(2);
+    const du1 = t.div(PI).times(n(1).plus(n(4).times(n(1).exp()).div(t.times(coth2))).ln());
+    const dur = n(0.5).times(n(1).plus(n(1).div(er.minus(1).sqrt().cosh()))).times(du1);
+    u1 = u.plus(du1);
+    ur = u.plus(dur);
+  }
+  const eer = eeStatic(ur, er);
+  const z0 = z01(ur).div(eer.sqrt());
+  const ee = eer.times(z01(u1).div(z01(ur)).pow(2));
+  return { z0, ee };
+}
+
+/** Kirschning & Jansen (1982): eps_eff(f), fn = f h in GHz mm. */
+export function eeDispersive(u: Dec, er: Dec, ee0: Dec, fn: Dec): Dec {
+  const e = (v: Dec) => v.exp();
+  const p1 = n(0.27488).plus(n(0.6315).plus(n(0.525).div(n(1).plus(n(0.0157).times(fn)).pow(20))).times(u))
+    .minus(n(0.065683).times(e(n(-8.7513).times(u))));
+  const p2 = n(0.33622).times(n(1).minus(e(n(-0.03442).times(er))));
+  const p3 = n(0.0363).times(e(n(-4.6).times(u))).times(n(1).minus(e(fn.div(38.7).pow(4.97).neg())));
+  const p4 = n(1).plus(n(2.751).times(n(1).minus(e(er.div(15.916).pow(8).neg()))));
+  const p = p1.times(p2).times(n(0.1844).plus(p3.times(p4)).times(fn).pow(1.5763));
+  return er.minus(er.minus(ee0).div(n(1).plus(p)));
+}
+
+/** Jansen & Kirschning (1983): Z0(f) from the static values, R1-R17 as quoted in the library (from memory). */
+export function z0Dispersive(u: Dec, er: Dec, z0: Dec, ee0: Dec, eef: Dec, fn: Dec): Dec {
+  const e = (v: Dec) => v.exp();
+  const r1 = n(0.03891).times(er.pow(1.4));
+  const r2 = n(0.267).times(u.pow(7));
+  const r3 = n(4.766).times(e(n(-3.228).times(u.pow(0.641))));
+  const r4 = n(0.016).plus(n(0.0514).times(er).pow(4.524));
+  const r5 = fn.div(28.843).pow(12);
+  const r6 = n(22.2).times(u.pow(1.92));
+  const r7 = n(1.206).minus(n(0.3144).times(e(r1.neg())).times(n(1).minus(e(r2.neg()))));
+  const r8 = n(1).plus(n(1.275).times(n(1).minus(e(n(-0.004625).times(r3).times(er.pow(1.674)).times(fn.div(18.365).pow(2.745))))));
+  const r9 = n(5.086).times(r4).times(r5).div(n(0.3838).plus(n(0.386).times(r4)))
+    .times(e(r6.neg())).div(n(1).plus(n(1.2992).times(r5)))
+    .times(er.minus(1).pow(6)).div(n(1).plus(n(10).times(er.minus(1).pow(6))));
+  const r10 = n(0.00044).times(er.pow(2.136)).plus(0.0184);
+  const r11 = fn.div(19.47).pow(6).div(n(1).plus(n(0.0962).times(fn.div(19.47).pow(6))));
+  const r12 = n(1).div(n(1).plus(n(0.00245).times(u.pow(2))));
+  const r13 = n(0.9408).times(eef.pow(r8)).minus(0.9603);
+  const r14 = n(0.9408).minus(r9).times(ee0.pow(r8)).minus(0.9603);
+  const r15 = n(0.707).times(r10).times(fn.div(12.3).pow(1.097));
+  const r16 = n(1).plus(n(0.0503).times(er.pow(2)).times(r11).times(n(1).minus(e(u.div(15).pow(6).neg()))));
+  const r17 = r7.times(n(1).minus(n(1.1241).times(r12).div(r16).times(e(n(-0.026).times(fn.pow(1.15656)).minus(r15)))));
+  return z0.times(r13.div(r14).pow(r17));
+}
+
+/** The oracle's microstrip impedance and effective permittivity at any frequency. */
+export function microstripOracle(x: MicrostripX): { z0: Dec; ee: Dec } {
+  const s = microstripStaticOracle(x);
+  if (x.frequency === 0 || x.relativePermittivity === 1) return s;
+  const u = exact(x.width).div(exact(x.height));
+  const er = exact(x.relativePermittivity);
+  const fn = exact(x.frequency).times(exact(x.height)).div(1e6);
+  const eef = eeDispersive(u, er, s.ee, fn);
+  return { z0: z0Dispersive(u, er, s.z0, s.ee, eef, fn), ee: eef };
+}
