@@ -2,47 +2,27 @@
 // that unit parsing needs (mathjs's documented create(factories) pattern), so a
 // bundle that calls `evaluate` does not carry the expression parser, matrices
 // algebra or decimal.js. The dependency closure of Unit, unit and createUnit
-// was listed by walking each factory's `dependencies` field (mathjs 15.2.0).
+// was listed by walking each factory's `dependencies` field (mathjs 15.2.0); pow, fix, round and equal are replaced by number-only versions.
 import {
   create,
   factory,
   createAbs,
   createAddScalar,
-  createCeil,
   createComplexClass,
-  createConj,
   createCreateUnit,
-  createDenseMatrixClass,
-  createDet,
   createDivideScalar,
-  createDot,
-  createEqual,
   createEqualScalar,
-  createFix,
-  createFloor,
   createFormat,
   createFraction,
   createFractionClass,
-  createIdentity,
-  createInv,
   createIsNumeric,
-  createIsZero,
-  createMatrix,
-  createMatrixClass,
-  createMultiply,
   createMultiplyScalar,
   createNumber,
   createNumeric,
-  createPow,
-  createRound,
-  createSize,
-  createSparseMatrixClass,
   createSubtractScalar,
   createTyped,
-  createUnaryMinus,
   createUnitClass,
   createUnitFunction,
-  createZeros,
   type FactoryFunction,
   type MathJsInstance,
 } from "mathjs";
@@ -53,41 +33,21 @@ import {
 declare module "mathjs" {
   export const createAbs: FactoryFunction<unknown>;
   export const createAddScalar: FactoryFunction<unknown>;
-  export const createCeil: FactoryFunction<unknown>;
   export const createComplexClass: FactoryFunction<unknown>;
-  export const createConj: FactoryFunction<unknown>;
   export const createCreateUnit: FactoryFunction<unknown>;
-  export const createDenseMatrixClass: FactoryFunction<unknown>;
-  export const createDet: FactoryFunction<unknown>;
   export const createDivideScalar: FactoryFunction<unknown>;
-  export const createDot: FactoryFunction<unknown>;
-  export const createEqual: FactoryFunction<unknown>;
   export const createEqualScalar: FactoryFunction<unknown>;
-  export const createFix: FactoryFunction<unknown>;
-  export const createFloor: FactoryFunction<unknown>;
   export const createFormat: FactoryFunction<unknown>;
   export const createFraction: FactoryFunction<unknown>;
   export const createFractionClass: FactoryFunction<unknown>;
-  export const createIdentity: FactoryFunction<unknown>;
-  export const createInv: FactoryFunction<unknown>;
   export const createIsNumeric: FactoryFunction<unknown>;
-  export const createIsZero: FactoryFunction<unknown>;
-  export const createMatrix: FactoryFunction<unknown>;
-  export const createMatrixClass: FactoryFunction<unknown>;
-  export const createMultiply: FactoryFunction<unknown>;
   export const createMultiplyScalar: FactoryFunction<unknown>;
   export const createNumber: FactoryFunction<unknown>;
   export const createNumeric: FactoryFunction<unknown>;
-  export const createPow: FactoryFunction<unknown>;
-  export const createRound: FactoryFunction<unknown>;
-  export const createSize: FactoryFunction<unknown>;
-  export const createSparseMatrixClass: FactoryFunction<unknown>;
   export const createSubtractScalar: FactoryFunction<unknown>;
   export const createTyped: FactoryFunction<unknown>;
-  export const createUnaryMinus: FactoryFunction<unknown>;
   export const createUnitClass: FactoryFunction<unknown>;
   export const createUnitFunction: FactoryFunction<unknown>;
-  export const createZeros: FactoryFunction<unknown>;
 }
 
 /**
@@ -108,45 +68,52 @@ const createBigNumberStub = factory(
   { isClass: true },
 );
 
+/**
+ * Number-only versions of pow, fix, round and equal. mathjs's own carry
+ * matrix signatures (pow needs inv, det, multiply; equal needs SparseMatrix;
+ * fix, floor and ceil load decimal.js), which a parser of scalar unit strings
+ * never calls: Unit uses pow(unit value x prefix, power) to normalize, with a
+ * positive base (every unit and prefix value is positive), and the other three
+ * only in splitUnit/equals. Same results as mathjs for numbers.
+ */
+const createPowNumber = factory("pow", ["typed"], ({ typed }) =>
+  typed("pow", { "number, number": (x: number, y: number) => Math.pow(x, y) }),
+);
+const createFixNumber = factory("fix", ["typed"], ({ typed }) => typed("fix", { number: (x: number) => Math.trunc(x) }));
+const createRoundNumber = factory("round", ["typed"], ({ typed }) => typed("round", { number: (x: number) => Math.round(x) }));
+// equalScalar (mathjs's relative/absolute tolerance compare) is missing from
+// the typed list of names a factory may depend on, hence the casts.
+const createEqualNumber = factory("equal", ["typed", "equalScalar"] as unknown as ["typed"], (scope) => {
+  const { typed, equalScalar } = scope as unknown as {
+    typed: MathJsInstance["typed"];
+    equalScalar: (x: number, y: number) => boolean;
+  };
+  return typed("equal", { "number, number": (x: number, y: number) => equalScalar(x, y) });
+});
+
 const FACTORIES = {
+  createPowNumber,
+  createFixNumber,
+  createRoundNumber,
+  createEqualNumber,
   createAbs,
   createAddScalar,
   createBigNumberStub,
-  createCeil,
   createComplexClass,
-  createConj,
   createCreateUnit,
-  createDenseMatrixClass,
-  createDet,
   createDivideScalar,
-  createDot,
-  createEqual,
   createEqualScalar,
-  createFix,
-  createFloor,
   createFormat,
   createFraction,
   createFractionClass,
-  createIdentity,
-  createInv,
   createIsNumeric,
-  createIsZero,
-  createMatrix,
-  createMatrixClass,
-  createMultiply,
   createMultiplyScalar,
   createNumber,
   createNumeric,
-  createPow,
-  createRound,
-  createSize,
-  createSparseMatrixClass,
   createSubtractScalar,
   createTyped,
-  createUnaryMinus,
   createUnitClass,
   createUnitFunction,
-  createZeros,
 };
 
 /**
