@@ -20,3 +20,6 @@ export * from "./force/index.js";
 export * from "./displacement/index.js";
 export * from "./tools/index.js";
 export * from "./notebook/index.js";
+// Types that appear in the signatures above, exported so users can name them.
+export type { NoteSummary } from "./tools/notes.js";
+export type { BiotSavartField, BiotSavartOptions } from "./flux/biot-savart.js";
