@@ -1,14 +1,75 @@
-import { defineConfig } from "tsup";
+import { resolve } from "node:path";
+import { defineConfig, type Options } from "tsup";
 
-export default defineConfig({
-  entry: { index: "src/index.ts", cli: "src/cli/main.ts", http: "src/http/index.ts" },
-  format: ["esm", "cjs"],
-  dts: { entry: { index: "src/index.ts", http: "src/http/index.ts" } },
-  sourcemap: true,
-  clean: true,
-  treeshake: true,
+// Public entry points, in one place: subpath name -> source. A new subpath
+// (e.g. http: "src/http/index.ts") goes here and in package.json "exports";
+// scripts/check-package.mjs checks that every entry has both.
+export const ENTRIES: Record<string, string> = {
+  index: "src/index.ts",
+  http: "src/http/index.ts",
+};
+// The command-line program (ESM only, Node only).
+const BIN = { cli: "src/cli/main.ts" };
+
+const common: Options = {
   target: "es2022",
-  // Keep dependencies external so consumers' bundlers can tree-shake them.
+  sourcemap: false,
+  // Dependencies stay external so a consumer's bundler dedupes and tree-shakes them.
   // vega and vega-lite: optional, loaded by the CLI only when it draws a chart (src/cli/chart.ts).
   external: ["mathjs", "decimal.js", "vega", "vega-lite"],
-});
+};
+
+// In the Node build the two mathjs loaders become their *.node.ts versions,
+// which require mathjs (or the prebuilt subset) on first use instead of
+// importing it at load time: `import "emquant"` then never loads mathjs.
+const nodeLoaders = {
+  name: "emquant-node-loaders",
+  setup(build: { onResolve: (o: { filter: RegExp }, f: (a: { path: string; resolveDir: string }) => { path: string }) => void }) {
+    build.onResolve({ filter: /\/load-(subset|full)\.js$/ }, (args) => ({
+      path: resolve(args.resolveDir, args.path.replace(/\.js$/, ".node.ts")),
+    }));
+  },
+};
+
+export default defineConfig([
+  // 1. One ESM file per source module, for bundlers: with "sideEffects": false
+  //    a consumer's bundler keeps only the modules a program reaches.
+  {
+    ...common,
+    entry: ["src/**/*.ts", "!src/cli/**", "!src/**/*.node.ts"],
+    bundle: false,
+    format: ["esm"],
+    outDir: "dist/esm",
+  },
+  // 2. Node: bundled ESM entries (fast to load) and the CLI, sharing chunks.
+  {
+    ...common,
+    entry: { ...ENTRIES, ...BIN },
+    format: ["esm"],
+    splitting: true,
+    outDir: "dist/node",
+    esbuildPlugins: [nodeLoaders],
+    dts: { entry: ENTRIES },
+  },
+  // 3. Node: CommonJS for require(); import.meta.url shimmed for the loaders.
+  {
+    ...common,
+    entry: ENTRIES,
+    format: ["cjs"],
+    outDir: "dist/node",
+    shims: true,
+    esbuildPlugins: [nodeLoaders],
+    dts: { entry: ENTRIES },
+  },
+  // 4. The unit-parsing subset of mathjs, prebuilt with mathjs inlined, required
+  //    by the Node loaders on first use (dist/node/mathjs-subset.cjs).
+  {
+    ...common,
+    entry: { "mathjs-subset": "src/units/mathjs-subset.ts" },
+    format: ["cjs"],
+    outDir: "dist/node",
+    external: [],
+    noExternal: ["mathjs"],
+    minify: true,
+  },
+]);

@@ -24,3 +24,6 @@ export * from "./notebook/index.js";
 export * from "./designs/index.js";
 export { VERSION } from "./version.js";
 export * from "./interconnect/field-solver.js";
+// Types that appear in the signatures above, exported so users can name them.
+export type { NoteSummary } from "./tools/notes.js";
+export type { BiotSavartField, BiotSavartOptions } from "./flux/biot-savart.js";

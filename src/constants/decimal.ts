@@ -1,4 +1,6 @@
-import Decimal from "decimal.js";
+// The named export: under node16/nodenext a CommonJS consumer's default import of
+// decimal.js is its module namespace, which cannot name a type (TS2709).
+import { Decimal } from "decimal.js";
 import type { CodataRecord } from "./codata.js";
 
 /**

@@ -4,7 +4,8 @@ import type { AnyFormula } from "../core/formula.js";
 import { getFormula, listFormulas } from "../core/registry.js";
 import type { InputSpec, Note } from "../core/spec.js";
 import { DIMENSIONS, type Exponents, nameExponents, sameExponents } from "../units/dimensions.js";
-import { createUnitMath } from "../units/parse.js";
+import { loadFullMath } from "../units/load-full.js";
+import { addTradeUnits } from "../units/parse.js";
 import { readQuantity } from "../tools/convert.js";
 
 /** Options of a notebook instance. */
@@ -44,7 +45,8 @@ export const DISABLED_IN_EXPRESSIONS = [
  * math.evaluate("parallelPlateCapacitance(1 cm^2, 0.1 mm)").toString(); // "8.8541878188 pF"
  */
 export function createNotebookMath(options: NotebookOptions = {}): MathJsInstance {
-  const math = createUnitMath();
+  const math = loadFullMath();
+  addTradeUnits(math);
   const functions: Record<string, (...args: unknown[]) => unknown> = {};
   for (const f of listFormulas()) {
     functions[f.id] = (...args: unknown[]) => call(math, f, args, options);

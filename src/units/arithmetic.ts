@@ -1,5 +1,5 @@
 import type {
-  DivExponents, ExponentsOf, MulExponents, NeverIn, Quantity, SqrtExponents,
+  DivExponents, ExponentsOf, MulExponents, Named, NeverIn, Quantity, SqrtExponents,
 } from "./types.js";
 
 // Typed arithmetic. Each function is the plain operation; the types carry the
@@ -15,20 +15,20 @@ export function sub<Q extends number>(a: Q, b: NoInfer<Q>): Q {
   return (a - b) as Q;
 }
 
-/** Product; dimension exponents add. A plain number scales without changing the dimension. */
+/** Product; dimension exponents add; the result type is the named quantity where there is one. A plain number scales without changing the dimension. */
 export function mul<A extends number, B extends number>(
   a: A,
   b: B,
-): Quantity<MulExponents<ExponentsOf<A>, ExponentsOf<B>>> {
-  return (a * b) as Quantity<MulExponents<ExponentsOf<A>, ExponentsOf<B>>>;
+): Named<MulExponents<ExponentsOf<A>, ExponentsOf<B>>> {
+  return (a * b) as Named<MulExponents<ExponentsOf<A>, ExponentsOf<B>>>;
 }
 
 /** Quotient; dimension exponents subtract. */
 export function div<A extends number, B extends number>(
   a: A,
   b: B,
-): Quantity<DivExponents<ExponentsOf<A>, ExponentsOf<B>>> {
-  return (a / b) as Quantity<DivExponents<ExponentsOf<A>, ExponentsOf<B>>>;
+): Named<DivExponents<ExponentsOf<A>, ExponentsOf<B>>> {
+  return (a / b) as Named<DivExponents<ExponentsOf<A>, ExponentsOf<B>>>;
 }
 
 /**
@@ -42,6 +42,8 @@ export function sqrt<A extends number>(
     ? [error: "square root needs every dimension exponent even"]
     : []
 ): Quantity<SqrtExponents<ExponentsOf<A>>> {
+  // Not Named<...>: with the rest-parameter check above, naming the result
+  // makes inference from a contextual type blow up (TS2590).
   return Math.sqrt(a) as Quantity<SqrtExponents<ExponentsOf<A>>>;
 }
 

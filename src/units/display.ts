@@ -1,4 +1,4 @@
-import { unitMath } from "./parse.js";
+import { formatEngineering, formatPrefixed } from "./number-format.js";
 
 // Units that read well with an SI prefix chosen by mathjs ("8.854 pF", "100 mm^2").
 // Compound units ("F/m") and the kilogram (whose prefixes mathjs would put on "g") are
@@ -10,7 +10,7 @@ const PREFIXABLE = new Set([
 /** Engineering notation without a trailing "e+0": "320e-9", "1.235e+3", "4.4". */
 export function engineering(v: number, precision = 4): string {
   if (v === 0 || !Number.isFinite(v)) return String(v);
-  const s = unitMath().format(v, { notation: "engineering", precision }) as string;
+  const s = formatEngineering(v, precision);
   return s.replace(/e\+0$/, "").replace(/(\.\d*?)0+(e|$)/, "$1$2").replace(/\.(e|$)/, "$1");
 }
 
@@ -26,11 +26,7 @@ export function formatQuantity(v: number, unit: string, precision = 4): string {
   }
   const mag = Math.abs(v);
   if (PREFIXABLE.has(unit) && mag >= 1e-24 && mag < 1e27) {
-    try {
-      return unitMath().unit(v, unit).format({ precision });
-    } catch {
-      // fall through to engineering notation
-    }
+    return formatPrefixed(v, unit, precision);
   }
   return `${engineering(v, precision)} ${unit}`;
 }

@@ -1,6 +1,7 @@
-import { all, create, type MathJsInstance } from "mathjs";
+import type { MathJsInstance } from "mathjs";
 import { FormulaError } from "../core/errors.js";
 import type { Exponents } from "./dimensions.js";
+import { loadSubsetMath } from "./load-subset.js";
 
 /**
  * Run-time unit strings ("0.2 mm", "4.7 uF") are read by mathjs, on a private
@@ -14,9 +15,12 @@ export function unitMath(): MathJsInstance {
   return instance;
 }
 
-/** A fresh mathjs instance with emquant's unit corrections applied. */
+/**
+ * A fresh instance of the unit-parsing subset of mathjs (Unit, unit, createUnit;
+ * see mathjs-subset.ts) with emquant's unit corrections applied.
+ */
 export function createUnitMath(): MathJsInstance {
-  const math = create(all!, {});
+  const math = loadSubsetMath();
   addTradeUnits(math);
   return math;
 }

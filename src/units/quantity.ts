@@ -27,7 +27,7 @@ function factor(unit: string): number {
   const entry = lookupUnit(unit);
   // Reachable only from untyped JavaScript: the types admit table symbols only.
   if (entry === undefined) {
-    throw new FormulaError("unparsable", { value: unit, detail: "not a unit symbol of the typed API; use evaluate() for free-form unit strings" });
+    throw new FormulaError("unparsable", { value: unit, detail: "not in the typed unit table; evaluate() reads any unit string" });
   }
   return entry[1];
 }

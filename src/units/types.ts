@@ -154,3 +154,19 @@ export type NeverIn<E extends Exponents> = [E[0]] extends [never] ? true : [E[1]
 export type ExponentsOf<Q> = Q extends Quantity<infer E> ? E : Q extends number ? readonly [0, 0, 0, 0, 0, 0, 0, 0] : never;
 /** `Quantity<E>`, or `never` when some exponent fell outside the tables (odd root). */
 export type QuantityOrNever<E extends Exponents> = NeverIn<E> extends true ? never : Quantity<E>;
+
+// ---- naming results: a product's type reads "Area", not an exponent tuple ----
+type KeyOf<E extends Exponents> = `${E[0]},${E[1]},${E[2]},${E[3]},${E[4]},${E[5]},${E[6]},${E[7]}`;
+/** Named quantity by exponent key ("2,0,0,0,0,0,0,0" -> "Area"); one flat mapped type, no recursion. */
+type NameByKey = { [N in keyof DimensionTypes as KeyOf<ExponentsOf<DimensionTypes[N]>>]: N };
+/**
+ * The named quantity type with exponents E (`Area` for [2,0,...]), else
+ * `Quantity<E>`. Results of mul/div/sqrt go through it so that a dimension
+ * mistake made with them is reported with names: "'Area' is not assignable
+ * to type 'Length'".
+ */
+export type Named<E extends Exponents> = NeverIn<E> extends true
+  ? Quantity<E>
+  : KeyOf<E> extends keyof NameByKey
+    ? DimensionTypes[NameByKey[KeyOf<E>]]
+    : Quantity<E>;

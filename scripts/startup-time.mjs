@@ -1,0 +1,43 @@
+// Start-up times of the built package, as a user meets them: median wall time
+// of N fresh processes each for bare `node -e ""`, `import "emquant"`, and the
+// CLI's help and compute (with unit strings). Run after `npm run build`;
+// `node scripts/startup-time.mjs [runs]`. Prints times and ratios to bare node
+// (a benchmark, not a test: no thresholds).
+import { spawnSync } from "node:child_process";
+import { dirname, join, resolve } from "node:path";
+import { fileURLToPath } from "node:url";
+
+const root = resolve(dirname(fileURLToPath(import.meta.url)), "..");
+const runs = Number(process.argv[2] ?? 15);
+const entry = join(root, "dist", "node", "index.js");
+const cli = join(root, "dist", "node", "cli.js");
+const cases = [
+  ["bare node (node -e \"\")", ["-e", ""]],
+  ["import \"emquant\" (built Node entry)", ["--input-type=module", "-e", `await import(${JSON.stringify(entry)})`]],
+  ["emquant help", [cli, "help"]],
+  ["emquant compute with unit strings", [cli, "compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 mm"]],
+];
+
+function median(xs) {
+  const s = [...xs].sort((a, b) => a - b);
+  return s[Math.floor(s.length / 2)];
+}
+
+const results = [];
+// Interleaved rounds, so a burst of load on the machine hits every case alike.
+const times = cases.map(() => []);
+for (let r = 0; r < runs; r++) {
+  cases.forEach(([, args], i) => {
+    const t = process.hrtime.bigint();
+    const p = spawnSync(process.execPath, args, { stdio: ["ignore", "ignore", "inherit"] });
+    if (p.status !== 0) throw new Error(`${cases[i][0]} exited ${p.status}`);
+    times[i].push(Number(process.hrtime.bigint() - t) / 1e6);
+  });
+}
+const bare = median(times[0]);
+cases.forEach(([name], i) => {
+  const m = median(times[i]);
+  results.push({ name, medianMs: Math.round(m), ratioToBareNode: Number((m / bare).toFixed(2)) });
+});
+console.table(results);
+console.log(`${runs} runs each, Node ${process.versions.node}, ${new Date().toISOString().slice(0, 10)}`);
