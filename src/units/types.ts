@@ -56,6 +56,8 @@ export type SurfaceChargeDensity = Quantity<Exps<"SurfaceChargeDensity">>;
 export type LineChargeDensity = Quantity<Exps<"LineChargeDensity">>;
 export type NumberDensity = Quantity<Exps<"NumberDensity">>;
 export type ChargeToMass = Quantity<Exps<"ChargeToMass">>;
+/** Spring constant (force per displacement), N/m. */
+export type Stiffness = Quantity<Exps<"Stiffness">>;
 export type MagneticMoment = Quantity<Exps<"MagneticMoment">>;
 /** Magnetomotive force is measured in amperes (ampere-turns). */
 export type MagnetomotiveForce = Current;
@@ -114,6 +116,7 @@ export interface DimensionTypes {
   NumberDensity: NumberDensity;
   ChargeToMass: ChargeToMass;
   MagneticMoment: MagneticMoment;
+  Stiffness: Stiffness;
 }
 
 /** A 3-vector of quantities of one dimension (Cartesian x, y, z). */

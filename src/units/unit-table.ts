@@ -83,6 +83,7 @@ const FIXED = {
   "kg m/s": ["Momentum", 1],
   "C/kg": ["ChargeToMass", 1],
   "J/T": ["MagneticMoment", 1],
+  "N/m": ["Stiffness", 1],
   "1/H": ["Reluctance", 1],
   "A/Wb": ["Reluctance", 1],
   At: ["Current", 1],
