@@ -18,5 +18,7 @@ export * from "./inductance/index.js";
 export * from "./flux/index.js";
 export * from "./force/index.js";
 export * from "./displacement/index.js";
+export * from "./beams/index.js";
+export * from "./magnets/index.js";
 export * from "./tools/index.js";
 export * from "./notebook/index.js";

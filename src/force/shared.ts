@@ -40,15 +40,20 @@ export function faultCurrentCaution<X>(amps: (x: X) => number) {
  */
 export const BEAM_ENERGY_THRESHOLD = 5e3 * ELEMENTARY_CHARGE;
 
-export const beamCaution = {
-  code: "particle_beam",
-  when: (x: { readonly kineticEnergy: number }): boolean => x.kineticEnergy >= BEAM_ENERGY_THRESHOLD,
-  measure: (x: { readonly kineticEnergy: number }): number => x.kineticEnergy,
-  message: (x: { readonly kineticEnergy: number }): string =>
-    `a kinetic energy of ${formatNumber(x.kineticEnergy / ELEMENTARY_CHARGE, 3)} eV per particle is at or above 5 keV, where a beam makes X-rays ` +
-    "where it stops (common practice, from memory): charged-particle beams are a radiation hazard directly and through those X-rays; " +
-    `shielding, interlocks and radiation-protection rules apply. ${GOVERN}`,
-} as const;
+/** The beam caution on a kinetic energy picked from the inputs (J per particle). */
+export function beamCautionFor<X>(energy: (x: X) => number) {
+  return {
+    code: "particle_beam",
+    when: (x: X): boolean => energy(x) >= BEAM_ENERGY_THRESHOLD,
+    measure: (x: X): number => energy(x),
+    message: (x: X): string =>
+      `a kinetic energy of ${formatNumber(energy(x) / ELEMENTARY_CHARGE, 3)} eV per particle is at or above 5 keV, where a beam makes X-rays ` +
+      "where it stops (common practice, from memory): charged-particle beams are a radiation hazard directly and through those X-rays; " +
+      `shielding, interlocks and radiation-protection rules apply. ${GOVERN}`,
+  } as const;
+}
+
+export const beamCaution = beamCautionFor((x: { readonly kineticEnergy: number }) => x.kineticEnergy);
 
 /** A signed charge in C; negative for the electron. Presets: `electron.charge`, `proton.charge`. */
 export const CHARGE = {

@@ -58,6 +58,10 @@ export type NumberDensity = Quantity<Exps<"NumberDensity">>;
 export type ChargeToMass = Quantity<Exps<"ChargeToMass">>;
 /** Spring constant (force per displacement), N/m. */
 export type Stiffness = Quantity<Exps<"Stiffness">>;
+/** Magnetic rigidity B rho = p / q of a beam, T m. */
+export type MagneticRigidity = Quantity<Exps<"MagneticRigidity">>;
+/** Field gradient (of a quadrupole), T/m. */
+export type FluxDensityGradient = Quantity<Exps<"FluxDensityGradient">>;
 export type MagneticMoment = Quantity<Exps<"MagneticMoment">>;
 /** Magnetomotive force is measured in amperes (ampere-turns). */
 export type MagnetomotiveForce = Current;
@@ -117,6 +121,8 @@ export interface DimensionTypes {
   ChargeToMass: ChargeToMass;
   MagneticMoment: MagneticMoment;
   Stiffness: Stiffness;
+  MagneticRigidity: MagneticRigidity;
+  FluxDensityGradient: FluxDensityGradient;
 }
 
 /** A 3-vector of quantities of one dimension (Cartesian x, y, z). */

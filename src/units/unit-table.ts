@@ -84,6 +84,8 @@ const FIXED = {
   "C/kg": ["ChargeToMass", 1],
   "J/T": ["MagneticMoment", 1],
   "N/m": ["Stiffness", 1],
+  "T m": ["MagneticRigidity", 1],
+  "T/m": ["FluxDensityGradient", 1],
   "1/H": ["Reluctance", 1],
   "A/Wb": ["Reluctance", 1],
   At: ["Current", 1],
