@@ -11,7 +11,7 @@ import { mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import {
   capacitorEnergy, coaxialCapacitance, coreFluxDensity, coreLoss, evaluate, gappedCoreInductance,
   inUnit, parasiticCouplingCurrent, quantity, skinDepth, solveDetails, sweep, sweepToCsv,
-  sweepToVegaLite, tolerance, wireForce, formatQuantity, type Note,
+  sweepToVegaLite, tolerance, wireForce, formatQuantity, gappedCorePullForce, type Note,
   designReportHtml, designReportMarkdown, designTolerance, evaluateDesign, solveDesign, type DesignSpec,
 } from "../src/index.js";
 import { gappedInductor } from "./designs/gapped-inductor.js";
@@ -115,8 +115,22 @@ show("the PFC bulk capacitor, 470 uF at 400 V", bank.value, "J");
 notes(bank.warnings, bank.cautions);
 console.log(`\n  hold-up capacitor in nF, via inUnit: ${inUnit(quantity(2200, "uF"), "nF").toFixed(1)} nF`);
 
+console.log("\n5. Solenoid latch for the reservoir lid: pull against the gap");
+// An invented latch: a 600-turn coil on a small steel frame, plunger face 1.2 cm^2,
+// 6 cm of iron path (mu_r 1500 assumed linear), driven at 0.6 A from the 24 V rail.
+const latch = { turns: 600, current: quantity(0.6, "A"), poleArea: quantity(1.2, "cm^2"), pathLength: quantity(6, "cm"), relativePermeability: 1500 };
+for (const mm of [3, 2, 1, 0.5, 0.2]) {
+  const pull = gappedCorePullForce.details({ ...latch, gapLength: quantity(mm, "mm") });
+  show(`pull at a ${mm} mm gap`, pull.value, "N");
+  notes(pull.warnings, pull.cautions);
+}
+// The pull rises as 1/(gap + l/mu_r)^2: the latch snaps shut, and the last fraction of a
+// millimetre is where fingers get caught. The holding current can be far lower than the pull-in current.
+const hold05 = solveDetails(gappedCorePullForce, "current", { ...latch, gapLength: quantity(0.2, "mm"), target: quantity(5, "N") }, { range: [quantity(1, "mA"), quantity(1, "A")] });
+show("holding current for 5 N at 0.2 mm", hold05.value, hold05.unit);
+
 // ---------------------------------------------------------------------------
-console.log("\n5. Designs: whole chains with checks, tolerance and a calculation report");
+console.log("\n6. Designs: whole chains with checks, tolerance and a calculation report");
 // Two designs of our own, as JSON files (a backend would receive these) and, for
 // the inductor, as typed TypeScript (examples/designs/gapped-inductor.ts).
 mkdirSync("out/designs", { recursive: true });

@@ -19,6 +19,8 @@ export * from "./flux/index.js";
 export * from "./force/index.js";
 export * from "./displacement/index.js";
 export * from "./interconnect/index.js";
+export * from "./beams/index.js";
+export * from "./magnets/index.js";
 export * from "./tools/index.js";
 export * from "./notebook/index.js";
 export * from "./designs/index.js";

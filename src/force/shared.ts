@@ -40,15 +40,20 @@ export function faultCurrentCaution<X>(amps: (x: X) => number) {
  */
 export const BEAM_ENERGY_THRESHOLD = 5e3 * ELEMENTARY_CHARGE;
 
-export const beamCaution = {
-  code: "particle_beam",
-  when: (x: { readonly kineticEnergy: number }): boolean => x.kineticEnergy >= BEAM_ENERGY_THRESHOLD,
-  measure: (x: { readonly kineticEnergy: number }): number => x.kineticEnergy,
-  message: (x: { readonly kineticEnergy: number }): string =>
-    `a kinetic energy of ${formatNumber(x.kineticEnergy / ELEMENTARY_CHARGE, 3)} eV per particle is at or above 5 keV, where a beam makes X-rays ` +
-    "where it stops (common practice, from memory): charged-particle beams are a radiation hazard directly and through those X-rays; " +
-    `shielding, interlocks and radiation-protection rules apply. ${GOVERN}`,
-} as const;
+/** The beam caution on a kinetic energy picked from the inputs (J per particle). */
+export function beamCautionFor<X>(energy: (x: X) => number) {
+  return {
+    code: "particle_beam",
+    when: (x: X): boolean => energy(x) >= BEAM_ENERGY_THRESHOLD,
+    measure: (x: X): number => energy(x),
+    message: (x: X): string =>
+      `a kinetic energy of ${formatNumber(energy(x) / ELEMENTARY_CHARGE, 3)} eV per particle is at or above 5 keV, where a beam makes X-rays ` +
+      "where it stops (common practice, from memory): charged-particle beams are a radiation hazard directly and through those X-rays; " +
+      `shielding, interlocks and radiation-protection rules apply. ${GOVERN}`,
+  } as const;
+}
+
+export const beamCaution = beamCautionFor((x: { readonly kineticEnergy: number }) => x.kineticEnergy);
 
 /** A signed charge in C; negative for the electron. Presets: `electron.charge`, `proton.charge`. */
 export const CHARGE = {
@@ -69,4 +74,28 @@ export const PARTICLE_MASS = {
 export function lorentzFactor(speed: number): number {
   const b = speed / SPEED_OF_LIGHT;
   return 1 / Math.sqrt((1 - b) * (1 + b));
+}
+
+/**
+ * Pinch points: the caution applies from 140 N. ISO/TS 15066:2016 (collaborative
+ * robots), Annex A, Table A.2, gives 140 N as the largest quasi-static contact
+ * force permissible on the hand and fingers (280 N transient) (from memory). An
+ * actuator that closes a gap with this force or more can trap and crush fingers;
+ * below it a trapped finger can still be hurt by sharp edges or by the speed of
+ * closing, which the force alone does not tell.
+ */
+export const PINCH_FORCE_THRESHOLD = 140;
+
+/** The pinch-point caution for a force; `newtons` picks its magnitude (default |value|). */
+export function pinchCaution<X>(newtons: (x: X, value: number | readonly number[]) => number = (_x, v) => Math.abs(v as number)) {
+  return {
+    code: "pinch_point",
+    when: (x: X, v: number | readonly number[]): boolean => newtons(x, v) >= PINCH_FORCE_THRESHOLD,
+    measure: (x: X, v: number | readonly number[]): number => newtons(x, v),
+    message: (x: X, v: number | readonly number[]): string =>
+      `a force of ${formatNumber(newtons(x, v), 3)} N is at or above 140 N, the largest quasi-static contact force ISO/TS 15066:2016 ` +
+      "(Annex A, Table A.2; from memory) permits on the hand and fingers: a gap this force closes is a pinch and crush point. " +
+      "Guard it or keep hands out by design (ISO 13857 safety distances), and remember that the force rises steeply as the gap closes. " +
+      GOVERN,
+  } as const;
 }

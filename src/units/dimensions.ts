@@ -51,6 +51,9 @@ export const DIMENSIONS = {
   NumberDensity: { exps: [-3, 0, 0, 0, 0, 0, 0, 0], unit: "1/m^3" },
   ChargeToMass: { exps: [0, -1, 1, 1, 0, 0, 0, 0], unit: "C/kg" },
   MagneticMoment: { exps: [2, 0, 0, 1, 0, 0, 0, 0], unit: "J/T" },
+  Stiffness: { exps: [0, 1, -2, 0, 0, 0, 0, 0], unit: "N/m" },
+  MagneticRigidity: { exps: [1, 1, -2, -1, 0, 0, 0, 0], unit: "T m" },
+  FluxDensityGradient: { exps: [-1, 1, -2, -1, 0, 0, 0, 0], unit: "T/m" },
 } as const;
 
 /** The name of a declared dimension ("Length", "Capacitance", ...). */

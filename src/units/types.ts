@@ -56,6 +56,12 @@ export type SurfaceChargeDensity = Quantity<Exps<"SurfaceChargeDensity">>;
 export type LineChargeDensity = Quantity<Exps<"LineChargeDensity">>;
 export type NumberDensity = Quantity<Exps<"NumberDensity">>;
 export type ChargeToMass = Quantity<Exps<"ChargeToMass">>;
+/** Spring constant (force per displacement), N/m. */
+export type Stiffness = Quantity<Exps<"Stiffness">>;
+/** Magnetic rigidity B rho = p / q of a beam, T m. */
+export type MagneticRigidity = Quantity<Exps<"MagneticRigidity">>;
+/** Field gradient (of a quadrupole), T/m. */
+export type FluxDensityGradient = Quantity<Exps<"FluxDensityGradient">>;
 export type MagneticMoment = Quantity<Exps<"MagneticMoment">>;
 /** Magnetomotive force is measured in amperes (ampere-turns). */
 export type MagnetomotiveForce = Current;
@@ -114,6 +120,9 @@ export interface DimensionTypes {
   NumberDensity: NumberDensity;
   ChargeToMass: ChargeToMass;
   MagneticMoment: MagneticMoment;
+  Stiffness: Stiffness;
+  MagneticRigidity: MagneticRigidity;
+  FluxDensityGradient: FluxDensityGradient;
 }
 
 /** A 3-vector of quantities of one dimension (Cartesian x, y, z). */

@@ -6,7 +6,7 @@ import { evaluate, isFormula, listFormulas } from "../../src/index.js";
 const formulas = listFormulas();
 const CATEGORIES = new Set([
   "capacitance", "inductance", "flux", "magnetic circuit", "magnetic field", "electric field",
-  "force", "particle", "displacement",
+  "force", "particle", "displacement", "beam", "magnet",
   "transmission line",
 ]);
 

@@ -32,3 +32,16 @@ traceParticle({ particle: electron, position: origin, velocity: v, timeStep: qua
 traceParticle({ particle: { charge: 1, mass: 1 }, position: origin, velocity: v, timeStep: quantity(1, "ns") as Time, steps: 10 });
 // @ts-expect-error a frequency is not a flux density
 export const wrong: FluxDensity = cyclotronFrequency({ charge: electron.charge, mass: electron.mass, fluxDensity: quantity(1, "T") });
+
+// ---- actuator forces ----
+import { coaxialLoopsForce, gappedCorePullForce, pullInVoltage, type Stiffness } from "../../src/index.js";
+export const loopsF: Force = coaxialLoopsForce({ current1: quantity(1, "A"), current2: quantity(1, "A"), radius1: quantity(1, "cm"), radius2: quantity(1, "cm"), distance: quantity(1, "mm") });
+export const pull: Force = gappedCorePullForce({ turns: 100, current: quantity(1, "A"), poleArea: quantity(1, "cm^2"), gapLength: quantity(1, "mm"), pathLength: quantity(10, "cm") });
+export const vpi = pullInVoltage({ springConstant: quantity(1, "N/m"), gap: quantity(2, "um"), area: quantity(1, "mm^2") });
+export const k: Stiffness = quantity(3, "N/m");
+// @ts-expect-error a force where the spring constant goes
+pullInVoltage({ springConstant: quantity(1, "N"), gap: quantity(2, "um"), area: quantity(1, "mm^2") });
+// @ts-expect-error a length where the pole area goes
+gappedCorePullForce({ turns: 100, current: quantity(1, "A"), poleArea: quantity(1, "cm"), gapLength: quantity(1, "mm"), pathLength: quantity(10, "cm") });
+// @ts-expect-error the distance is a length, not a current
+coaxialLoopsForce({ current1: quantity(1, "A"), current2: quantity(1, "A"), radius1: quantity(1, "cm"), radius2: quantity(1, "cm"), distance: quantity(1, "A") });

@@ -1,0 +1,2 @@
+export { lorentzFactor, particleSpeed, particleMomentum, magneticRigidity, bendingRadius, quadrupoleFocalLength } from "./kinematics.js";
+export { childLangmuirCurrentDensity, plasmaFrequency, debyeLength } from "./space-charge.js";

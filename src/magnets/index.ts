@@ -1,0 +1,1 @@
+export { cylinderMagnetAxialField } from "./cylinder.js";
