@@ -26,12 +26,13 @@ export const STRIP_THICKNESS = {
 } as const;
 
 /**
- * ln(1 + a/b) for a, b >= 0, b > 0, without forming an overflowing or
- * underflowing a/b: log1p(a/b) while a <= b, else ln a - ln b + log1p(b/a)
- * (the two logarithms then differ by at least ln 1 = 0 and their sum's
- * cancellation is bounded by log1p(b/a) >= 0, which only adds).
+ * ln(1 + a/b) for a >= 0, b >= 0 (not both 0), without an overflowing a/b:
+ * log1p of the quotient (one rounding, condition number at most 1) while it is
+ * finite; once a/b overflows, ln a - ln b, whose terms then differ by more
+ * than 709, so the subtraction loses nothing (the neglected log1p(b/a) is
+ * below 1e-308). A zero b gives Infinity (the caller's out_of_range).
  */
 export function logOnePlusRatio(a: number, b: number): number {
-  if (a <= b) return Math.log1p(a / b);
-  return Math.log(a) - Math.log(b) + Math.log1p(b / a);
+  const q = a / b;
+  return q <= Number.MAX_VALUE ? Math.log1p(q) : Math.log(a) - Math.log(b);
 }

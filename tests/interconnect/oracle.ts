@@ -108,3 +108,67 @@ export function microstripOracle(x: MicrostripX): { z0: Dec; ee: Dec } {
   const eef = eeDispersive(u, er, s.ee, fn);
   return { z0: z0Dispersive(u, er, s.z0, s.ee, eef, fn), ee: eef };
 }
+
+/** eta0 ln(b/a) / (2 pi sqrt(epsr)). */
+export function coaxialImpedanceOracle(x: { innerRadius: number; outerRadius: number; relativePermittivity: number }): Dec {
+  return ETA0.times(exact(x.outerRadius).div(exact(x.innerRadius)).ln()).div(PI.times(2).times(exact(x.relativePermittivity).sqrt()));
+}
+
+/** eta0 acosh(D/2a) / (pi sqrt(epsr)). */
+export function twoWireImpedanceOracle(x: { wireRadius: number; separation: number; relativePermittivity: number }): Dec {
+  return ETA0.times(exact(x.separation).div(exact(x.wireRadius).times(2)).acosh()).div(PI.times(exact(x.relativePermittivity).sqrt()));
+}
+
+/** l sqrt(eps_eff) / c. */
+export function delayOracle(x: { length: number; effectivePermittivity: number }): Dec {
+  return exact(x.length).times(exact(x.effectivePermittivity).sqrt()).div(C0);
+}
+
+// Gamma, return loss and SWR lose (to 50 digits) what 1 - |Gamma| keeps when the
+// load and the line differ by up to 1e600: these three use 1300 digits, where
+// every sum of two doubles is exact.
+const DW = D.clone({ precision: 1300 });
+const wide = (v: number) => new DW(exact(v).toFixed());
+
+/** (R - Z0) / (R + Z0), at 1300 digits. */
+function gammaWide(x: { loadResistance: number; characteristicImpedance: number }) {
+  const r = wide(x.loadResistance);
+  const z = wide(x.characteristicImpedance);
+  return r.minus(z).div(r.plus(z));
+}
+
+/** (R - Z0) / (R + Z0). */
+export function gammaOracle(x: { loadResistance: number; characteristicImpedance: number }): Dec {
+  return new D(gammaWide(x).toPrecision(60));
+}
+
+/** -20 log10 |Gamma| = 20 log10(1 + e), e = 2 min(R, Z0) / |R - Z0| formed at 1300 digits. */
+export function returnLossOracle(x: { loadResistance: number; characteristicImpedance: number }): Dec {
+  const r = wide(x.loadResistance);
+  const z = wide(x.characteristicImpedance);
+  const e = new D(DW.min(r, z).times(2).div(r.minus(z).abs()).toPrecision(60));
+  // ln(1 + e): the series where 1 + e would round to 1 at 50 digits.
+  const ln = e.lt(1e-20) ? e.minus(e.pow(2).div(2)).plus(e.pow(3).div(3)) : e.plus(1).ln();
+  return ln.div(new D(10).ln()).times(20);
+}
+
+/** (1 + |Gamma|) / (1 - |Gamma|). */
+export function swrOracle(x: { loadResistance: number; characteristicImpedance: number }): Dec {
+  const g = gammaWide(x).abs();
+  return new D(g.plus(1).div(new DW(1).minus(g)).toPrecision(60));
+}
+
+/** Z0 (R + j Z0 tan bl) / (Z0 + j R tan bl), bl = 2 pi f l sqrt(eps)/c, as [real, imaginary]. */
+export function inputImpedanceOracle(x: {
+  loadResistance: number; characteristicImpedance: number; length: number; frequency: number; effectivePermittivity: number;
+}): [Dec, Dec] {
+  const r = exact(x.loadResistance);
+  const z = exact(x.characteristicImpedance);
+  const bl = PI.times(2).times(exact(x.frequency)).times(exact(x.length)).times(exact(x.effectivePermittivity).sqrt()).div(C0);
+  const t = bl.tan();
+  // (r + j z t) / (z + j r t) = ((r + j z t)(z - j r t)) / (z^2 + r^2 t^2)
+  const den = z.pow(2).plus(r.pow(2).times(t.pow(2)));
+  const re = r.times(z).plus(z.times(t).times(r).times(t));
+  const im = z.times(t).times(z).minus(r.times(r).times(t));
+  return [z.times(re).div(den), z.times(im).div(den)];
+}
