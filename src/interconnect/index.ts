@@ -3,3 +3,7 @@ export {
   coaxialImpedance, twoWireImpedance, propagationDelay, reflectionCoefficient, returnLoss, standingWaveRatio,
   lineInputImpedance,
 } from "./lines.js";
+export {
+  striplineImpedance, coplanarWaveguideImpedance, coplanarWaveguideEffectivePermittivity, coupledMicrostripImpedance,
+} from "./planar.js";
+export { lineCouplingCoefficient, nearEndCrosstalk } from "./coupling.js";

@@ -4,7 +4,7 @@ import { defineFormula } from "../core/formula.js";
 import { AT_LEAST_ONE, NON_NEGATIVE, POSITIVE } from "../core/spec.js";
 import { acoshOfRatio, logOfRatio } from "../math/ratios.js";
 import { ldexp, moderate, scaledProduct } from "../math/scaled.js";
-import { CATEGORY, ETA0, logOnePlusRatio } from "./shared.js";
+import { CATEGORY, differenceAndSum, ETA0, logOnePlusRatio } from "./shared.js";
 
 const ETA0_OVER_2PI = ETA0 / (2 * Math.PI);
 const ETA0_OVER_PI = ETA0 / Math.PI;
@@ -124,15 +124,6 @@ const LOAD_INPUTS = [
   { name: "loadResistance", dimension: "Resistance", description: "Resistance of the load at the end of the line (0 for a short circuit)", domain: NON_NEGATIVE, example: 75 },
   { name: "characteristicImpedance", dimension: "Resistance", description: "Characteristic impedance of the line", domain: POSITIVE, example: 50 },
 ] as const;
-
-/** (R - Z0, R + Z0) scaled by one power of two so the sum cannot overflow: ratios are unchanged. */
-function differenceAndSum(r: number, z0: number): [number, number] {
-  const big = r > 2 ** 1000 || z0 > 2 ** 1000;
-  const a = big ? ldexp(r, -2) : r;
-  const b = big ? ldexp(z0, -2) : z0;
-  // a - b is exact when a and b are within a factor 2 (Sterbenz); elsewhere it has no cancellation.
-  return [a - b, a + b];
-}
 
 /**
  * Reflection coefficient of a resistive load on a lossless line:

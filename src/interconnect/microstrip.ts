@@ -91,7 +91,7 @@ interface StaticLine {
 }
 
 /** H&J quasi-static impedance and effective permittivity with the thickness correction. */
-function staticLine(u: number, t: number, er: number): StaticLine {
+export function staticLine(u: number, t: number, er: number): StaticLine {
   const [u1, ur] = correctedWidths(u, t, er);
   const eer = staticPermittivity(ur, er);
   const zr = airImpedance(ur);

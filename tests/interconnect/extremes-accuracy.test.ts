@@ -13,12 +13,13 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
   coaxialImpedance, lineInputImpedance, microstripEffectivePermittivity, microstripImpedance, propagationDelay,
-  reflectionCoefficient, returnLoss, standingWaveRatio, twoWireImpedance,
+  reflectionCoefficient, returnLoss, standingWaveRatio, twoWireImpedance, striplineImpedance, coplanarWaveguideImpedance,
+  coplanarWaveguideEffectivePermittivity,
 } from "../../src/index.js";
 import { representable } from "../capacitance/oracle.js";
 import {
   agreesWithOracle, coaxialImpedanceOracle, type Dec, delayOracle, exact, gammaOracle, inputImpedanceOracle, microstripOracle,
-  returnLossOracle, swrOracle, twoWireImpedanceOracle,
+  returnLossOracle, swrOracle, twoWireImpedanceOracle, striplineOracle, cpwOracle,
 } from "./oracle.js";
 
 const EPS = Number.EPSILON;
@@ -124,10 +125,30 @@ describe("line closed forms against the oracle over the double range", () => {
   });
 });
 
+describe("conformal-mapping forms against the AGM oracle", () => {
+  it("centred stripline (zero thickness) is within a few ulp of Cohn's (eta0 / 4 sqrt(epsr)) K(k)/K(k'), widths 1e-6 to 1e3 spacings", () => {
+    fc.assert(fc.property(decades(-290, 290), decades(-6, 3), fc.double({ min: 1, max: 100, noNaN: true }), (b, wb, er) => {
+      const x = { width: b * wb, groundSpacing: b, relativePermittivity: er, thickness: 0 };
+      fc.pre(Number.isFinite(x.width) && x.width > 0);
+      agrees(striplineImpedance, x, striplineOracle(x), 16 * EPS);
+    }), { numRuns: 200 });
+  });
+
+  it("coplanar waveguide (both backings) is within a small bound of Simons' expressions evaluated as printed", () => {
+    fc.assert(fc.property(decades(-290, 290), decades(-3, 2), decades(-3, 2), fc.double({ min: 1, max: 50, noNaN: true }), fc.constantFrom("none", "grounded"), (h, wh, gh, er, backing) => {
+      const x = { width: h * wh, gap: h * gh, height: h, relativePermittivity: er, backing };
+      fc.pre(Number.isFinite(x.width) && x.width > 0 && x.gap > 0);
+      const [ee, z0] = cpwOracle(x);
+      agrees(coplanarWaveguideEffectivePermittivity, x, ee, 64 * EPS);
+      agrees(coplanarWaveguideImpedance, x, z0, 64 * EPS);
+    }), { numRuns: 150 });
+  });
+});
+
 describe("the measured worst errors", () => {
   it("reports the worst error measured per formula (in eps; lineInputImpedance per unit of its phase-dependent bound)", () => {
     const rows = [...worst].map(([id, e]) => `${id} ${(e / EPS).toFixed(2)}`);
     console.log(`transmission line worst relative error / eps: ${rows.join(", ")}`);
-    expect(worst.size).toBeGreaterThanOrEqual(9);
+    expect(worst.size).toBeGreaterThanOrEqual(12);
   });
 });

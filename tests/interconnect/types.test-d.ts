@@ -2,7 +2,8 @@
 // line must be a type error, so `npm run typecheck` fails if the types stop catching it.
 import {
   coaxialImpedance, lineInputImpedance, microstripEffectivePermittivity, microstripImpedance, propagationDelay, quantity,
-  reflectionCoefficient, twoWireImpedance, type Length, type Resistance, type Time,
+  reflectionCoefficient, twoWireImpedance, striplineImpedance, coplanarWaveguideImpedance, coupledMicrostripImpedance,
+  type Length, type Resistance, type Time,
 } from "../../src/index.js";
 
 const w: Length = quantity(0.3, "mm");
@@ -32,3 +33,13 @@ reflectionCoefficient({ loadResistance: w, characteristicImpedance: z0 });
 export const wrongZin: Resistance = lineInputImpedance({ loadResistance: z0, characteristicImpedance: z0, length: w, frequency: quantity(1, "GHz") });
 // @ts-expect-error twoWireImpedance needs the separation
 twoWireImpedance({ wireRadius: w });
+
+export const ok3 = [
+  striplineImpedance({ width: w, groundSpacing: quantity(0.6, "mm") }),
+  coplanarWaveguideImpedance({ width: w, gap: h, height: quantity(0.5, "mm"), backing: "grounded" }),
+  coupledMicrostripImpedance({ width: w, spacing: h, height: h, mode: "even" }),
+];
+// @ts-expect-error the backing is "none" or "grounded"
+coplanarWaveguideImpedance({ width: w, gap: h, height: h, backing: "metal" });
+// @ts-expect-error the mode is required
+coupledMicrostripImpedance({ width: w, spacing: h, height: h });
