@@ -7,3 +7,4 @@ export {
   striplineImpedance, coplanarWaveguideImpedance, coplanarWaveguideEffectivePermittivity, coupledMicrostripImpedance,
 } from "./planar.js";
 export { lineCouplingCoefficient, nearEndCrosstalk } from "./coupling.js";
+export { viaInductance, traceInductance, traceResistance } from "./parasitics.js";
