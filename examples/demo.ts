@@ -11,6 +11,8 @@ import {
   capacitorEnergy, coaxialCapacitance, coreFluxDensity, coreLoss, evaluate, gappedCoreInductance,
   inUnit, parasiticCouplingCurrent, quantity, skinDepth, solveDetails, sweep, sweepToCsv,
   sweepToVegaLite, tolerance, wireForce, formatQuantity, type Note,
+  microstripImpedance, microstripEffectivePermittivity, propagationDelay, viaInductance, traceResistance, reflectionCoefficient,
+  nearEndCrosstalk, coupledMicrostripImpedance, type Length,
 } from "../src/index.js";
 
 const show = (label: string, value: number, unit: string): void =>
@@ -107,3 +109,26 @@ const bank = capacitorEnergy.details({ capacitance: quantity(470, "uF"), voltage
 show("the PFC bulk capacitor, 470 uF at 400 V", bank.value, "J");
 notes(bank.warnings, bank.cautions);
 console.log(`\n  hold-up capacitor in nF, via inUnit: ${inUnit(quantity(2200, "uF"), "nF").toFixed(1)} nF`);
+
+// ---------------------------------------------------------------------------
+console.log("\n5. Level-probe sensor board: the 20 MHz excitation line and its via (4-layer board, invented stack-up)");
+// Outer layer over 0.2 mm of prepreg (epsr 4.2) to the ground plane; 35 um copper.
+const stack = { height: quantity(0.2, "mm"), relativePermittivity: 4.2, thickness: quantity(35, "um") };
+const width = solveDetails(microstripImpedance, "width", { ...stack, target: quantity(50, "ohm") });
+show("trace width for 50 ohm", width.value, width.unit);
+const line = { ...stack, width: width.value as Length };
+const eeff = microstripEffectivePermittivity.details({ ...line, frequency: quantity(20, "MHz") });
+show("effective permittivity at 20 MHz", eeff.value, "");
+notes(eeff.warnings, eeff.cautions);
+const run = propagationDelay({ length: quantity(60, "mm"), effectivePermittivity: eeff.value });
+show("delay over the 60 mm run", run, "s");
+show("via to the inner ground (1.6 mm, 0.3 mm drill)", viaInductance({ height: quantity(1.6, "mm"), radius: quantity(0.15, "mm") }), "H");
+show("trace resistance at 60 degC", evaluate("traceResistance", { length: "60 mm", width: `${(width.value as number) * 1e3} mm`, thickness: "35 um", temperature: "60 degC" }).value as number, "ohm");
+show("reflection at the 75 ohm cable to the probe", reflectionCoefficient({ loadResistance: quantity(75, "ohm"), characteristicImpedance: quantity(50, "ohm") }), "");
+// The guard trace beside it, 0.2 mm away: even/odd modes and the near-end crosstalk they imply.
+const pair = { width: line.width, spacing: quantity(0.2, "mm"), height: stack.height, relativePermittivity: 4.2 };
+const next = nearEndCrosstalk({
+  evenImpedance: coupledMicrostripImpedance({ ...pair, mode: "even" }),
+  oddImpedance: coupledMicrostripImpedance({ ...pair, mode: "odd" }),
+});
+show("near-end crosstalk into the guard trace", next, "");
