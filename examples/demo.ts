@@ -13,6 +13,8 @@ import {
   inUnit, parasiticCouplingCurrent, quantity, skinDepth, solveDetails, sweep, sweepToCsv,
   sweepToVegaLite, tolerance, wireForce, formatQuantity, gappedCorePullForce, type Note,
   designReportHtml, designReportMarkdown, designTolerance, evaluateDesign, solveDesign, type DesignSpec,
+  microstripImpedance, microstripEffectivePermittivity, propagationDelay, viaInductance, traceResistance, reflectionCoefficient,
+  nearEndCrosstalk, coupledMicrostripImpedance, type Length,
 } from "../src/index.js";
 import { gappedInductor } from "./designs/gapped-inductor.js";
 // The chart renderer of the emquant command (vega and vega-lite, loaded on first use).
@@ -130,7 +132,30 @@ const hold05 = solveDetails(gappedCorePullForce, "current", { ...latch, gapLengt
 show("holding current for 5 N at 0.2 mm", hold05.value, hold05.unit);
 
 // ---------------------------------------------------------------------------
-console.log("\n6. Designs: whole chains with checks, tolerance and a calculation report");
+console.log("\n6. Level-probe sensor board: the 20 MHz excitation line and its via (4-layer board, invented stack-up)");
+// Outer layer over 0.2 mm of prepreg (epsr 4.2) to the ground plane; 35 um copper.
+const stack = { height: quantity(0.2, "mm"), relativePermittivity: 4.2, thickness: quantity(35, "um") };
+const width = solveDetails(microstripImpedance, "width", { ...stack, target: quantity(50, "ohm") });
+show("trace width for 50 ohm", width.value, width.unit);
+const line = { ...stack, width: width.value as Length };
+const eeff = microstripEffectivePermittivity.details({ ...line, frequency: quantity(20, "MHz") });
+show("effective permittivity at 20 MHz", eeff.value, "");
+notes(eeff.warnings, eeff.cautions);
+const run = propagationDelay({ length: quantity(60, "mm"), effectivePermittivity: eeff.value });
+show("delay over the 60 mm run", run, "s");
+show("via to the inner ground (1.6 mm, 0.3 mm drill)", viaInductance({ height: quantity(1.6, "mm"), radius: quantity(0.15, "mm") }), "H");
+show("trace resistance at 60 degC", evaluate("traceResistance", { length: "60 mm", width: `${(width.value as number) * 1e3} mm`, thickness: "35 um", temperature: "60 degC" }).value as number, "ohm");
+show("reflection at the 75 ohm cable to the probe", reflectionCoefficient({ loadResistance: quantity(75, "ohm"), characteristicImpedance: quantity(50, "ohm") }), "");
+// The guard trace beside it, 0.2 mm away: even/odd modes and the near-end crosstalk they imply.
+const pair = { width: line.width, spacing: quantity(0.2, "mm"), height: stack.height, relativePermittivity: 4.2 };
+const next = nearEndCrosstalk({
+  evenImpedance: coupledMicrostripImpedance({ ...pair, mode: "even" }),
+  oddImpedance: coupledMicrostripImpedance({ ...pair, mode: "odd" }),
+});
+show("near-end crosstalk into the guard trace", next, "");
+
+// ---------------------------------------------------------------------------
+console.log("\n7. Designs: whole chains with checks, tolerance and a calculation report");
 // Two designs of our own, as JSON files (a backend would receive these) and, for
 // the inductor, as typed TypeScript (examples/designs/gapped-inductor.ts).
 mkdirSync("out/designs", { recursive: true });

@@ -19,7 +19,10 @@ export function buildFastPath(
   Inputs: InputsClass,
 ): ((x: unknown) => unknown) | undefined {
   const names = Object.keys(inputs);
-  const lines: string[] = ['if (typeof x !== "object" || x === null) return slow(x);'];
+  // Arrays go to the careful path too: an array has a numeric `length`, so a
+  // formula whose only required input is named `length` (propagationDelay)
+  // would otherwise accept [inputs] as its inputs.
+  const lines: string[] = ['if (typeof x !== "object" || x === null || Array.isArray(x)) return slow(x);'];
   const choices: (readonly string[])[] = [];
   const numbers: string[] = [];
   const domainTests: string[] = [];

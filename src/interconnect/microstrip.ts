@@ -91,7 +91,7 @@ interface StaticLine {
 }
 
 /** H&J quasi-static impedance and effective permittivity with the thickness correction. */
-function staticLine(u: number, t: number, er: number): StaticLine {
+export function staticLine(u: number, t: number, er: number): StaticLine {
   const [u1, ur] = correctedWidths(u, t, er);
   const eer = staticPermittivity(ur, er);
   const zr = airImpedance(ur);
@@ -191,10 +191,10 @@ function microstripValidity(staticRange: string) {
     },
     {
       code: "thick_strip",
-      when: (x: MicrostripInputs) => x.thickness > 0.1 * x.height || x.thickness > 0.5 * x.width,
-      measure: (x: MicrostripInputs) => Math.max(x.thickness / x.height / 0.1, x.thickness / x.width / 0.5),
+      when: (x: MicrostripInputs) => x.thickness > 0.2 * x.height || x.thickness > 0.5 * x.width,
+      measure: (x: MicrostripInputs) => Math.max(x.thickness / x.height / 0.2, x.thickness / x.width / 0.5),
       message: (x: MicrostripInputs) =>
-        `thickness is ${formatNumber(x.thickness / x.height)} of the height and ${formatNumber(x.thickness / x.width)} of the width; the Hammerstad-Jensen thickness correction is a small-thickness model and loses accuracy for strips thicker than about a tenth of the substrate or half their width (common practice)`,
+        `thickness is ${formatNumber(x.thickness / x.height)} of the height and ${formatNumber(x.thickness / x.width)} of the width; the Hammerstad-Jensen thickness correction is a small-thickness model and loses accuracy for strips thicker than about a fifth of the substrate or half their width (common practice)`,
     },
     {
       code: "dispersion_range",

@@ -33,6 +33,7 @@ const registered = new Set(list.map((e) => e.f));
 const NOT_SIMILITUDE_INVARIANT: Readonly<Record<string, string>> = {
   coreLoss: "the Steinmetz coefficients are empirical, with units fitted to W/m^3 at given f and B",
   debyeLength: "the electron's charge e and Boltzmann's constant are fixed (electron temperature in kelvin, electron density)",
+  traceResistance: "copper's resistivity (IEC 60028) is a material constant in ohm m",
 };
 let tried = 0;
 const similitudeOnlyGeometric: string[] = [];
