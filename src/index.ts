@@ -18,5 +18,6 @@ export * from "./inductance/index.js";
 export * from "./flux/index.js";
 export * from "./force/index.js";
 export * from "./displacement/index.js";
+export * from "./windings/index.js";
 export * from "./tools/index.js";
 export * from "./notebook/index.js";

@@ -3,12 +3,13 @@ import * as displacement from "../displacement/index.js";
 import * as flux from "../flux/index.js";
 import * as force from "../force/index.js";
 import * as inductance from "../inductance/index.js";
+import * as windings from "../windings/index.js";
 import { FormulaError } from "./errors.js";
 import { type AnyFormula, isFormula } from "./formula.js";
 
 // Every formula module's exports are scanned, so adding a formula to a module's
 // index is all it takes to appear in the registry, evaluate, the CLI and docs.
-const modules: readonly Record<string, unknown>[] = [capacitance, inductance, flux, force, displacement];
+const modules: readonly Record<string, unknown>[] = [capacitance, inductance, flux, force, displacement, windings];
 
 let byId: Map<string, AnyFormula> | undefined;
 

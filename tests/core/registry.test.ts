@@ -7,6 +7,7 @@ const formulas = listFormulas();
 const CATEGORIES = new Set([
   "capacitance", "inductance", "flux", "magnetic circuit", "magnetic field", "electric field",
   "force", "particle", "displacement",
+  "winding",
 ]);
 
 describe("the formula registry", () => {

@@ -32,6 +32,9 @@ const registered = new Set(list.map((e) => e.f));
  */
 const NOT_SIMILITUDE_INVARIANT: Readonly<Record<string, string>> = {
   coreLoss: "the Steinmetz coefficients are empirical, with units fitted to W/m^3 at given f and B",
+  wireGaugeDiameter: "a gauge names a fixed diameter (ASTM B258 defines 36 AWG as 0.005 in)",
+  wireResistance: "the material's standard resistivity and temperature coefficient are fixed dimensional constants",
+  temperatureRise: "McLyman's fit is empirical, with units fitted to K for W/cm^2",
 };
 let tried = 0;
 const similitudeOnlyGeometric: string[] = [];
