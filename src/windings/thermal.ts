@@ -65,6 +65,8 @@ export const temperatureRise = /* @__PURE__ */ defineFormula({
         GOVERN,
     },
   ],
+  // (P/A)^0.826 with A ~ size^2: size^-1.652 under geometric similarity.
+  geometricExponent: -2 * EXPONENT,
   source: { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed.", locator: "temperature rise, dT = 450 psi^0.826 (empirical; chapter and equation from memory)" },
   // psi in W/cm^2 = 1e-4 P / A. Plain while both are moderate; otherwise P^0.826 and A^0.826 as
   // scaled powers (src/math/scaled.ts `pow`, exponent exact), so a quotient that alone overflows

@@ -137,7 +137,8 @@ function geometricPower(f: AnyFormula, x: Inputs): number | undefined | "rejecte
   if (i < 0) return 0;
   const k = Math.log(v2[i]! / v0[i]!) / Math.log(2);
   if (!Number.isFinite(k)) return undefined;
-  const q = Math.round(k * 6) / 6;
+  // A simple fraction of 1/6, or the exponent an empirical fit declares (definition.geometricExponent).
+  const q = (f.definition.geometricExponent as number | undefined) ?? Math.round(k * 6) / 6;
   if (Math.abs(k - q) > Math.max(1e-6, scalingTolerance(f, x, v0))) return undefined;
   const tol = scalingTolerance(f, x, v0);
   if (!closeAll(v3, v0.map((c) => c * 3 ** q), tol)) return undefined;
