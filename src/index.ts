@@ -21,6 +21,7 @@ export * from "./displacement/index.js";
 export * from "./interconnect/index.js";
 export * from "./beams/index.js";
 export * from "./magnets/index.js";
+export * from "./windings/index.js";
 export * from "./tools/index.js";
 export * from "./notebook/index.js";
 export * from "./designs/index.js";

@@ -6,12 +6,13 @@ import * as force from "../force/index.js";
 import * as inductance from "../inductance/index.js";
 import * as interconnect from "../interconnect/index.js";
 import * as magnets from "../magnets/index.js";
+import * as windings from "../windings/index.js";
 import { FormulaError } from "./errors.js";
 import { type AnyFormula, isFormula } from "./formula.js";
 
 // Every formula module's exports are scanned, so adding a formula to a module's
 // index is all it takes to appear in the registry, evaluate, the CLI and docs.
-const modules: readonly Record<string, unknown>[] = [capacitance, inductance, flux, force, displacement, interconnect, beams, magnets];
+const modules: readonly Record<string, unknown>[] = [capacitance, inductance, flux, force, displacement, interconnect, beams, magnets, windings];
 
 let byId: Map<string, AnyFormula> | undefined;
 

@@ -157,6 +157,12 @@ interface FormulaBody<I extends InputSpecs, O extends OutputSpec> {
   /** Hazards (stored energy, high voltage, strong fields, fault forces). */
   readonly cautions?: readonly Condition<I>[];
   readonly source: Source | readonly Source[];
+  /**
+   * For an empirical fit whose result is a power of size that is not a simple fraction
+   * (McLyman's rise ~ (P/A)^0.826 ~ size^-1.652): that exponent, so the registry's
+   * geometric-similarity test checks it instead of looking for a multiple of 1/6.
+   */
+  readonly geometricExponent?: number;
   /** Plain-number SI computation in a numerically stable form. */
   readonly compute: (x: ComputeInputs<I>) => ComputeOutput<O>;
 }

@@ -8,6 +8,7 @@ const CATEGORIES = new Set([
   "capacitance", "inductance", "flux", "magnetic circuit", "magnetic field", "electric field",
   "force", "particle", "displacement", "beam", "magnet",
   "transmission line",
+  "winding",
 ]);
 
 describe("the formula registry", () => {

@@ -34,6 +34,9 @@ const NOT_SIMILITUDE_INVARIANT: Readonly<Record<string, string>> = {
   coreLoss: "the Steinmetz coefficients are empirical, with units fitted to W/m^3 at given f and B",
   debyeLength: "the electron's charge e and Boltzmann's constant are fixed (electron temperature in kelvin, electron density)",
   traceResistance: "copper's resistivity (IEC 60028) is a material constant in ohm m",
+  wireGaugeDiameter: "a gauge names a fixed diameter (ASTM B258 defines 36 AWG as 0.005 in)",
+  wireResistance: "the material's standard resistivity and temperature coefficient are fixed dimensional constants",
+  temperatureRise: "McLyman's fit is empirical, with units fitted to K for W/cm^2",
 };
 let tried = 0;
 const similitudeOnlyGeometric: string[] = [];
@@ -136,7 +139,8 @@ function geometricPower(f: AnyFormula, x: Inputs): number | undefined | "rejecte
   if (i < 0) return 0;
   const k = Math.log(v2[i]! / v0[i]!) / Math.log(2);
   if (!Number.isFinite(k)) return undefined;
-  const q = Math.round(k * 6) / 6;
+  // A simple fraction of 1/6, or the exponent an empirical fit declares (definition.geometricExponent).
+  const q = (f.definition.geometricExponent as number | undefined) ?? Math.round(k * 6) / 6;
   if (Math.abs(k - q) > Math.max(1e-6, scalingTolerance(f, x, v0))) return undefined;
   const tol = scalingTolerance(f, x, v0);
   if (!closeAll(v3, v0.map((c) => c * 3 ** q), tol)) return undefined;

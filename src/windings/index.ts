@@ -1,0 +1,7 @@
+// Windings, wire and losses. Every formula exported here is found by the registry.
+export { wireGaugeDiameter, wireResistance } from "./wire.js";
+export { roundWireAcResistanceFactor } from "./ac-resistance.js";
+export { dowellAcResistanceFactor, dowellRoundWireAcResistanceFactor } from "./dowell.js";
+export { resonantFrequency, lcCharacteristicImpedance, seriesQualityFactor } from "./resonance.js";
+export { rogowskiMutualInductance } from "./rogowski.js";
+export { temperatureRise } from "./thermal.js";

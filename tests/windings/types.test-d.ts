@@ -1,0 +1,25 @@
+// Compile-time checks for the windings family: each @ts-expect-error line must be a type error.
+import { dowellAcResistanceFactor, dowellRoundWireAcResistanceFactor, quantity, roundWireAcResistanceFactor, wireGaugeDiameter, wireResistance, type Length, type Resistance } from "../../src/index.js";
+
+export const d: Length = wireGaugeDiameter({ gauge: "4/0" });
+export const r: Resistance = wireResistance({ length: quantity(2, "m"), diameter: d, temperature: quantity(350, "K"), material: "aluminium" });
+export const k: number = roundWireAcResistanceFactor({ diameter: d, frequency: quantity(50, "Hz") });
+
+// @ts-expect-error a gauge is a size name from the table, not a number
+wireGaugeDiameter({ gauge: 24 });
+// @ts-expect-error 41 is not an AWG size of ASTM B258
+wireGaugeDiameter({ gauge: "41" });
+// @ts-expect-error the material is copper or aluminium
+wireResistance({ length: quantity(2, "m"), diameter: d, material: "silver" });
+// @ts-expect-error the temperature is a Temperature, not a length
+wireResistance({ length: quantity(2, "m"), diameter: d, temperature: quantity(20, "mm") });
+// @ts-expect-error a resistance is not a length
+export const wrong: Length = wireResistance({ length: quantity(2, "m"), diameter: d });
+// @ts-expect-error the frequency is required
+roundWireAcResistanceFactor({ diameter: d });
+export const fr: number = dowellAcResistanceFactor({ layers: 4, penetrationRatio: 1.2 });
+export const fw: number = dowellRoundWireAcResistanceFactor({ layers: 3, wireDiameter: d, pitch: quantity(0.6, "mm"), frequency: quantity(100, "kHz") });
+// @ts-expect-error the pitch is a length
+dowellRoundWireAcResistanceFactor({ layers: 3, wireDiameter: d, pitch: 0.6, frequency: quantity(100, "kHz") });
+// @ts-expect-error the penetration ratio is required
+dowellAcResistanceFactor({ layers: 4 });
