@@ -2,6 +2,7 @@ import { all, create, type MathJsInstance } from "mathjs";
 import { FormulaError } from "../core/errors.js";
 import type { Exponents } from "./dimensions.js";
 import { exactSI } from "./parse-exact.js";
+import { unknownUnitDetail } from "./unit-hint.js";
 
 /**
  * Run-time unit strings ("0.2 mm", "4.7 uF") are read by mathjs, on a private
@@ -90,8 +91,8 @@ function parseUncached(text: string, input?: string, formula?: string): ParsedQu
   const unitText = plainText.replace(RECIPROCAL, "$1/");
   try {
     unit = unitMath().unit(unitText);
-  } catch {
-    throw fail('expected a number followed by a unit, e.g. "0.2 mm"');
+  } catch (e) {
+    throw fail(unknownUnitDetail(e) ?? 'expected a number followed by a unit, e.g. "0.2 mm"');
   }
   if (typeof (unit.value as unknown) !== "number") throw fail("a unit needs a numeric value in front of it");
   // toSI applies offsets (degC) and scale; the value of a unit is not always SI.
