@@ -219,7 +219,7 @@ export function runCli(argv: readonly string[], io: CliIO): number {
     if (e instanceof UsageError) {
       if (json) io.out(JSON.stringify({ error: { code: "usage", message: e.message, input: null } }, null, 2));
       // The message, then the usage once, both on stderr: stdout stays for results.
-      else io.err(`error: ${e.message}\n\n${USAGE}`);
+      else io.err(`usage: ${e.message}\n\n${USAGE}`);
       return 2;
     }
     throw e;

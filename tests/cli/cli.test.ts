@@ -251,7 +251,7 @@ describe("the emquant command", () => {
       expect(r.status, args.join(" ")).toBe(2);
       expect(r.out).toBe("");
       expect(r.err.match(/^Usage:/gm), args.join(" ")).toHaveLength(1);
-      expect(r.err).toMatch(/^error: /);
+      expect(r.err).toMatch(/^usage: /);
     }
     const h = cli("help");
     expect(h.err).toBe("");
