@@ -17,7 +17,8 @@ let candidates: string[] | undefined;
  */
 export function unknownUnitDetail(error: unknown): string | undefined {
   const m = /^Unit "(.*)" not found/.exec(error instanceof Error ? error.message : "");
-  if (m === null) return undefined;
+  // A "unit" glued to a word that messages never show ("Infinity1") is no unit the user meant: the generic message.
+  if (m === null || /Infinity|NaN|undefined/.test(m[1]!)) return undefined;
   candidates ??= [...new Set([...listUnitSymbols().filter((s) => s !== ""), ...MORE_NAMES])];
   const hint = didYouMean(m[1]!, candidates);
   return `unknown unit "${m[1]}"${hint ? `; ${hint}` : ""}`;
