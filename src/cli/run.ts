@@ -2,14 +2,17 @@ import { FormulaError } from "../core/errors.js";
 import { evaluate } from "../core/evaluate.js";
 import { getFormula, listFormulas } from "../core/registry.js";
 import type { InputSpec, Note } from "../core/spec.js";
+import { didYouMean } from "../core/suggest.js";
 import { catalogEntry } from "../tools/catalog.js";
 import type { NoteSummary } from "../tools/notes.js";
 import { solveRequest } from "../tools/solve.js";
 import { sweepRequest, sweepToCsv, sweepToVegaLite } from "../tools/sweep.js";
 import { toleranceRequest } from "../tools/tolerance.js";
 import { DIMENSIONS } from "../units/dimensions.js";
-import { formatBoth, formatQuantity } from "../units/display.js";
+import { engineering, formatBoth, formatQuantity } from "../units/display.js";
 import { type DesignFiles, designCommand } from "./design.js";
+import { formatNumber } from "../core/format.js";
+import { VERSION } from "../version.js";
 
 /** Where the command line writes. */
 export interface CliIO {
@@ -41,6 +44,7 @@ Usage:
                                               evaluate a design file (steps, derived quantities,
                                               checks); exit status 3 when a check fails
   emquant help
+  emquant --version
 
 Options:
   --json            machine-readable output (errors too)
@@ -57,7 +61,8 @@ Options:
   --date YYYY-MM-DD design: the date printed on the report (default today)
   --svg FILE        sweep: also draw the chart to an SVG file (axes in mm, pF, ...)
 
-Values are numbers in SI units or numbers with a unit ("0.2 mm", "4.7 uF").
+Values are numbers in SI units or numbers with a unit ("0.2 mm", "4.7 uF", "4.7 µF");
+vectors as "[1000, 0, 0] V/m" or "[1 kV/m, 0 V/m, 0 V/m]".
 Warnings and cautions are printed with every result; sweeps and tolerance
 analyses say how many points raised each one and where it was worst.`;
 
@@ -68,7 +73,7 @@ interface Parsed {
 }
 
 const VALUE_FLAGS = new Set(["samples", "seed", "points", "range", "report", "md", "date", "svg"]);
-const BOOL_FLAGS = new Set(["json", "log", "csv", "chart", "help", "tolerance"]);
+const BOOL_FLAGS = new Set(["json", "log", "csv", "chart", "help", "version", "tolerance"]);
 
 class UsageError extends Error {}
 
@@ -109,15 +114,25 @@ function intFlag(p: Parsed, name: string): number | undefined {
   return n;
 }
 
-/** A command-line value for an input: vectors as "[a, b, c]" or "a, b, c"; others as typed. */
 /** SI unit symbol of a quantity input ("" for choices and dimensionless). */
 function unitOf(spec: InputSpec | undefined): string {
   return spec && !("choices" in spec) ? DIMENSIONS[spec.dimension].unit : "";
 }
 
-function inputValue(spec: InputSpec | undefined, text: string): unknown {
+// A bare number: it takes the unit written after the brackets, if any.
+const BARE_NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
+
+/**
+ * A command-line value for an input. Vectors as `show` prints them,
+ * "[1000, 0, 0] V/m" (the unit after the brackets applies to every bare
+ * number), or with a unit per component "[1 kV/m, 0 V/m, 0 V/m]", or
+ * "1000, 0, 0"; other values as typed.
+ */
+export function inputValue(spec: InputSpec | undefined, text: string): unknown {
   if (spec && !("choices" in spec) && spec.vector) {
-    return text.replace(/^\s*\[|\]\s*$/g, "").split(",").map((s) => s.trim());
+    const m = /^\s*\[(.*)\]\s*(.*?)\s*$/.exec(text);
+    const [inner, unit] = m ? [m[1]!, m[2]!] : [text, ""];
+    return inner.split(",").map((s) => s.trim()).map((c) => (unit && BARE_NUMBER.test(c) ? `${c} ${unit}` : c));
   }
   return text.trim();
 }
@@ -185,10 +200,15 @@ export function runCli(argv: readonly string[], io: CliIO): number {
     const p = parseArgs(argv);
     json = p.flags.has("json");
     const [command, ...rest] = p.positional;
-    if (command === undefined || command === "help" || p.flags.has("help")) {
-      io.out(USAGE);
-      return command === undefined && !p.flags.has("help") ? 2 : 0;
+    if (p.flags.has("version")) {
+      io.out(json ? JSON.stringify({ version: VERSION }) : `emquant ${VERSION}`);
+      return 0;
     }
+    if (command === "help" || p.flags.has("help")) {
+      io.out(USAGE);
+      return 0;
+    }
+    if (command === undefined) throw new UsageError("no command given");
     p.positional = rest;
     switch (command) {
       case "list":
@@ -218,7 +238,7 @@ export function runCli(argv: readonly string[], io: CliIO): number {
         );
       }
       default:
-        throw new UsageError(`unknown command "${command}"; try "emquant help"`);
+        throw new UsageError(`unknown command "${command}"${hintFor(command, COMMANDS)}`);
     }
   } catch (e) {
     if (e instanceof FormulaError) {
@@ -228,11 +248,20 @@ export function runCli(argv: readonly string[], io: CliIO): number {
     }
     if (e instanceof UsageError) {
       if (json) io.out(JSON.stringify({ error: { code: "usage", message: e.message, input: null } }, null, 2));
-      else io.err(`usage: ${e.message}\n(run "emquant help")`);
+      // The message, then the usage once, both on stderr: stdout stays for results.
+      else io.err(`usage: ${e.message}\n\n${USAGE}`);
       return 2;
     }
     throw e;
   }
+}
+
+const COMMANDS = ["list", "show", "compute", "solve", "tolerance", "sweep", "design", "help"];
+
+/** '; did you mean "show"?' or "". */
+function hintFor(word: string, candidates: readonly string[]): string {
+  const h = didYouMean(word, candidates);
+  return h ? `; ${h}` : "";
 }
 
 function list(p: Parsed, io: CliIO, json: boolean): number {
@@ -240,7 +269,7 @@ function list(p: Parsed, io: CliIO, json: boolean): number {
   const all = listFormulas().filter((f) => category === undefined || f.definition.category === category);
   if (category !== undefined && all.length === 0) {
     const cats = [...new Set(listFormulas().map((f) => f.definition.category))].join(", ");
-    throw new UsageError(`no formulas in category "${category}" (categories: ${cats})`);
+    throw new UsageError(`no formulas in category "${category}"${hintFor(category, cats.split(", "))} (categories: ${cats})`);
   }
   if (json) {
     io.out(JSON.stringify(all.map((f) => ({ id: f.id, title: f.definition.title, category: f.definition.category })), null, 2));
@@ -276,7 +305,7 @@ function show(p: Parsed, io: CliIO, json: boolean): number {
     if (i.default !== undefined) facts.push(`default ${typeof i.default === "number" ? formatQuantity(i.default, i.unit ?? "") : i.default}`);
     else facts.push("required");
     if (i.example !== undefined) {
-      facts.push(`e.g. ${typeof i.example === "number" ? formatQuantity(i.example, i.unit ?? "") : Array.isArray(i.example) ? `[${i.example.join(", ")}] ${i.unit ?? ""}` : String(i.example)}`);
+      facts.push(`e.g. ${exampleText(i)}`);
     }
     lines.push(`  ${i.name}: ${i.description}`, `      ${facts.join("; ")}`);
   }
@@ -285,11 +314,20 @@ function show(p: Parsed, io: CliIO, json: boolean): number {
   if (e.validity.length) lines.push("", "Validity warnings:", ...e.validity.map((v) => `  [${v.code}] ${v.message ?? "(text depends on the inputs)"}`));
   if (e.cautions.length) lines.push("", "Cautions:", ...e.cautions.map((v) => `  [${v.code}] ${v.message ?? "(text depends on the inputs)"}${v.always ? " (always)" : ""}`));
   lines.push("", "Source:", ...e.sources.map((s) => `  ${s.authors}${s.year ? ` (${s.year})` : ""}, ${s.title}${s.locator ? `, ${s.locator}` : ""}`));
-  const example = e.inputs.filter((i) => i.example !== undefined && i.kind === "quantity" && !i.vector && i.unit !== undefined)
-    .map((i) => `${i.name}="${formatQuantity(i.example as number, i.unit!)}"`);
+  // Every input with an example, written so that the line runs as printed: values in
+  // shortest round-trip digits (the example itself), vectors in the form shown above.
+  const example = e.inputs.filter((i) => i.example !== undefined).map((i) => `${i.name}="${exampleText(i)}"`);
   if (example.length) lines.push("", `Try: emquant compute ${e.id} ${example.join(" ")}`);
   io.out(lines.join("\n"));
   return 0;
+}
+
+/** An input's example as the command line reads it: "450 um", "[1000, 0, 0] V/m", "square". */
+function exampleText(i: ReturnType<typeof catalogEntry>["inputs"][number]): string {
+  const unit = i.unit ?? "";
+  if (typeof i.example === "number") return formatQuantity(i.example, unit, "shortest");
+  if (Array.isArray(i.example)) return `[${i.example.map((v) => formatQuantity(v as number, "", "shortest")).join(", ")}]${unit ? ` ${unit}` : ""}`;
+  return String(i.example);
 }
 
 function compute(p: Parsed, io: CliIO, json: boolean): number {
@@ -333,7 +371,7 @@ function solveCommand(p: Parsed, io: CliIO, json: boolean): number {
     return 0;
   }
   const lines = [`${r.input} = ${formatBoth(r.value, r.unit, 6)}`];
-  if (r.exact !== undefined) lines.push(`  rounded to a whole number from ${r.exact.toPrecision(6)}`);
+  if (r.exact !== undefined) lines.push(`  rounded to a whole number from ${formatNumber(r.exact, 6)}`);
   lines.push(`  output there: ${formatQuantity(r.outputAtValue, r.outputUnit, 6)} (target ${formatQuantity(r.target, r.outputUnit, 6)})`);
   lines.push(...notesText(r.warnings, r.cautions));
   io.out(lines.join("\n"));
@@ -377,7 +415,7 @@ function toleranceCommand(p: Parsed, io: CliIO, json: boolean): number {
   }
   if (r.sensitivities.length) {
     lines.push("share of variance:");
-    for (const s of r.sensitivities) lines.push(`  ${s.input.padEnd(24)} ${(100 * s.share).toFixed(1).padStart(5)} %   slope ${s.derivative.toPrecision(4)} ${s.derivativeUnit}`);
+    for (const s of r.sensitivities) lines.push(`  ${s.input.padEnd(24)} ${(100 * s.share).toFixed(1).padStart(5)} %   slope ${engineering(s.derivative, 4)} ${s.derivativeUnit}`);
   }
   for (const m of r.remarks) lines.push(`note: ${m}`);
   const spec = getFormula(id).definition.inputs as Readonly<Record<string, InputSpec>>;

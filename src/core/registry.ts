@@ -9,6 +9,7 @@ import * as magnets from "../magnets/index.js";
 import * as windings from "../windings/index.js";
 import { FormulaError } from "./errors.js";
 import { type AnyFormula, isFormula } from "./formula.js";
+import { didYouMean } from "./suggest.js";
 
 // Every formula module's exports are scanned, so adding a formula to a module's
 // index is all it takes to appear in the registry, evaluate, the CLI and docs.
@@ -39,6 +40,10 @@ export function listFormulas(): AnyFormula[] {
 /** The formula with this id; FormulaError "unknown_formula" otherwise. */
 export function getFormula(id: unknown): AnyFormula {
   const f = typeof id === "string" ? table().get(id) : undefined;
-  if (!f) throw new FormulaError("unknown_formula", { value: id });
+  if (!f) {
+    // A mistyped id gets the closest ids as a suggestion.
+    const hint = typeof id === "string" ? didYouMean(id, [...table().keys()]) : "";
+    throw new FormulaError("unknown_formula", { value: id, ...(hint ? { detail: hint } : {}) });
+  }
   return f;
 }

@@ -6,7 +6,10 @@ import type { InputSpec, Note } from "../core/spec.js";
 import { DIMENSIONS, type Exponents, nameExponents, sameExponents } from "../units/dimensions.js";
 import { loadFullMath } from "../units/load-full.js";
 import { addTradeUnits } from "../units/parse.js";
+import { catalogEntry } from "../tools/catalog.js";
 import { readQuantity } from "../tools/convert.js";
+import { formatQuantity } from "../units/display.js";
+import { BuiltinHelp, FormulaHelp, type MathjsDoc } from "./help.js";
 
 /** Options of a notebook instance. */
 export interface NotebookOptions {
@@ -17,12 +20,20 @@ export interface NotebookOptions {
 /**
  * The functions disabled inside expressions, following mathjs's security
  * guidance ("Security" in the mathjs docs): those that change the instance
- * (import, createUnit, reviver) and those that parse text into expression trees
+ * (import, createUnit, reviver, config: a notebook cell must not change how
+ * the next one computes) and those that parse text into expression trees
  * (evaluate, parse, compile, simplify, derivative, resolve).
  */
 export const DISABLED_IN_EXPRESSIONS = [
-  "import", "createUnit", "reviver", "evaluate", "parse", "compile", "simplify", "derivative", "resolve",
+  "import", "createUnit", "reviver", "config", "evaluate", "parse", "compile", "simplify", "derivative", "resolve",
 ] as const;
+
+/**
+ * The instance's own functions that change it, disabled on the returned
+ * object as well: calling them from code would change units or settings
+ * that the formulas and every later cell rely on.
+ */
+export const DISABLED_ON_INSTANCE = ["import", "createUnit", "config"] as const;
 
 /**
  * A new mathjs instance (never the global one) for notebooks: every registry
@@ -37,12 +48,20 @@ export const DISABLED_IN_EXPRESSIONS = [
  * to the formula's value, not to what is computed from it). Dimensionless
  * results stay plain numbers, which cannot carry notes: for those use
  * `onNotes` or `notes(...)`. Inside expressions the functions of
- * DISABLED_IN_EXPRESSIONS throw; the returned object's own `evaluate` (saved
- * before they were disabled) is the one to call.
+ * DISABLED_IN_EXPRESSIONS throw, and DISABLED_ON_INSTANCE throw when called
+ * on the returned object; its own `evaluate` (saved before they were
+ * disabled) is the one to call.
+ *
+ * Assigning to a unit name is refused (`C = ...` would turn every later "5 C"
+ * from 5 coulombs into 5 times the variable): pick another name (`C1`, `Cp`).
+ * `help(formula)` shows a formula's title, equation, inputs and source.
+ * Quantities print with the library's formatter: 4 significant digits, an SI
+ * prefix chosen for engineering notation ("8.854 pF"); a unit chosen with
+ * `to(x, nC)` is kept, with 4 significant digits.
  *
  * @example
  * const math = createNotebookMath();
- * math.evaluate("parallelPlateCapacitance(1 cm^2, 0.1 mm)").toString(); // "8.8541878188 pF"
+ * math.evaluate("parallelPlateCapacitance(1 cm^2, 0.1 mm)").toString(); // "8.854 pF"
  */
 export function createNotebookMath(options: NotebookOptions = {}): MathJsInstance {
   const math = loadFullMath();
@@ -51,6 +70,13 @@ export function createNotebookMath(options: NotebookOptions = {}): MathJsInstanc
   for (const f of listFormulas()) {
     functions[f.id] = (...args: unknown[]) => call(math, f, args, options);
   }
+  const originalHelp = math.help as (x: unknown) => unknown;
+  const formulaNames = new Map<unknown, string>(Object.entries(functions).map(([id, fn]) => [fn, id]));
+  functions.help = (x: unknown) => {
+    // A formula (the function itself, or its id as text) gets its registry documentation.
+    const id = formulaNames.get(x) ?? (typeof x === "string" && isFormulaId(x) ? x : undefined);
+    return id !== undefined ? new FormulaHelp(catalogEntry(id)) : new BuiltinHelp((originalHelp(x) as { doc: MathjsDoc }).doc);
+  };
   functions.notes = (name: unknown, ...args: unknown[]) => {
     const f = getFormula(name);
     const x = f.prepare(inputsFrom(math, f, args));
@@ -58,7 +84,10 @@ export function createNotebookMath(options: NotebookOptions = {}): MathJsInstanc
     const n = f.notes(x, value);
     return { warnings: n.warnings.map((w) => ({ ...w })), cautions: n.cautions.map((c) => ({ ...c })) };
   };
-  math.import(functions, { override: false });
+  const { help, ...rest } = functions;
+  math.import(rest, { override: false });
+  math.import({ help }, { override: true });
+  useLibraryFormatter(math);
   // Resolve evaluate before disabling: it keeps the parser it was built with.
   const evaluate = math.evaluate;
   const locked: Record<string, () => never> = {};
@@ -68,7 +97,95 @@ export function createNotebookMath(options: NotebookOptions = {}): MathJsInstanc
     };
   }
   math.import(locked, { override: true });
-  return Object.create(math, { evaluate: { value: evaluate, enumerable: true } }) as MathJsInstance;
+  const guarded = (expr: unknown, scope?: unknown): unknown => evaluate(expr as string, unitSafeScope(math, scope) as never);
+  const properties: PropertyDescriptorMap = { evaluate: { value: guarded, enumerable: true } };
+  for (const name of DISABLED_ON_INSTANCE) properties[name] = { value: locked[name], enumerable: true };
+  return Object.create(math, properties) as MathJsInstance;
+}
+
+function isFormulaId(x: string): boolean {
+  return listFormulas().some((f) => f.id === x);
+}
+
+/**
+ * A scope in which assigning to a unit name fails with a clear error. mathjs
+ * reads a scope through get/set/has/keys (any object with them is taken as a
+ * Map); this one forwards to the caller's Map or plain object, so values
+ * assigned in one call are there in the next, as with mathjs's own scopes.
+ */
+function unitSafeScope(math: MathJsInstance, scope: unknown): unknown {
+  const store: Map<string, unknown> | Record<string, unknown> =
+    scope instanceof Map ? scope : typeof scope === "object" && scope !== null ? (scope as Record<string, unknown>) : new Map();
+  const isMap = store instanceof Map;
+  const has = (k: string): boolean => (isMap ? store.has(k) : Object.hasOwn(store, k));
+  const guard = {
+    get: (k: string): unknown => (isMap ? store.get(k) : has(k) ? (store as Record<string, unknown>)[k] : undefined),
+    has,
+    keys: () => (isMap ? store.keys() : Object.keys(store)[Symbol.iterator]()),
+    set(k: string, v: unknown) {
+      if (math.Unit.isValuelessUnit(k)) {
+        throw new Error(`"${k}" is a unit name: assigning it would change what "5 ${k}" means in every later expression; choose another name, e.g. "${k}1"`);
+      }
+      if (isMap) store.set(k, v);
+      else (store as Record<string, unknown>)[k] = v;
+      return guard;
+    },
+    delete: (k: string): boolean => (isMap ? store.delete(k) : has(k) && delete (store as Record<string, unknown>)[k]),
+    clear: (): void => {
+      if (isMap) store.clear();
+      else for (const k of Object.keys(store)) delete (store as Record<string, unknown>)[k];
+    },
+    forEach(cb: (v: unknown, k: string, m: unknown) => void) {
+      for (const k of [...guard.keys()]) cb(guard.get(k), k, guard);
+    },
+    [Symbol.iterator]: function* () {
+      for (const k of [...guard.keys()]) yield [k, guard.get(k)] as [string, unknown];
+    },
+    get size() {
+      return isMap ? store.size : Object.keys(store).length;
+    },
+  };
+  return guard;
+}
+
+/**
+ * Quantities in this instance print with the library's formatter
+ * (src/units/display.ts): 4 significant digits and an SI prefix chosen for
+ * engineering notation, for any value of a dimension the library names. A
+ * unit the user fixed with `to(x, nC)` is kept, with 4 significant digits.
+ * Only the default text changes; `format(x, options)` with options is mathjs's.
+ */
+function useLibraryFormatter(math: MathJsInstance): void {
+  const proto = (math as unknown as { Unit: { prototype: UnitLike } }).Unit.prototype;
+  const original = proto.format;
+  proto.format = function (this: UnitLike, options?: unknown): string {
+    if (options !== undefined || typeof this.value !== "number") return original.call(this, options);
+    if (!this.fixPrefix) {
+      const unit = siUnitOf(this);
+      if (unit !== undefined) return formatQuantity(this.toSI().value as number, unit);
+    }
+    return original.call(this, { precision: 4 });
+  };
+}
+
+interface UnitLike {
+  value: unknown;
+  fixPrefix: boolean;
+  dimensions: number[];
+  units: { unit: { offset: number } }[];
+  toSI(): { value: unknown };
+  format(options?: unknown): string;
+}
+
+/** The SI unit symbol of a Unit's dimension when the library names that dimension (and no offset is involved). */
+function siUnitOf(u: UnitLike): string | undefined {
+  if (u.units.some((x) => x.unit.offset !== 0)) return undefined;
+  const d = u.dimensions;
+  const exps = [d[1], d[0], d[2], d[3], d[4], d[6], d[5], d[7]] as unknown as Exponents;
+  for (const dim of Object.values(DIMENSIONS)) {
+    if (dim.unit && sameExponents(exps, dim.exps as Exponents)) return dim.unit;
+  }
+  return undefined;
 }
 
 function call(math: MathJsInstance, f: AnyFormula, args: unknown[], options: NotebookOptions): unknown {

@@ -4,5 +4,5 @@ export type { UnitSymbol, QuantityOf, UnitFor } from "./unit-table.js";
 export { add, sub, mul, div, sqrt, neg } from "./arithmetic.js";
 export { DIMENSIONS, describeExponents, nameExponents } from "./dimensions.js";
 export type { DimensionName, Exponents } from "./dimensions.js";
-// Human-readable values with SI prefixes (uses the private mathjs instance).
+// Human-readable values with SI prefixes (the library's one formatter; no mathjs).
 export { formatQuantity } from "./display.js";

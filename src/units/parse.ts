@@ -2,6 +2,8 @@ import type { MathJsInstance } from "mathjs";
 import { FormulaError } from "../core/errors.js";
 import type { Exponents } from "./dimensions.js";
 import { loadSubsetMath } from "./load-subset.js";
+import { exactSI } from "./parse-exact.js";
+import { unknownUnitDetail } from "./unit-hint.js";
 
 /**
  * Run-time unit strings ("0.2 mm", "4.7 uF") are read by mathjs, on a private
@@ -90,10 +92,11 @@ function parseUncached(text: string, input?: string, formula?: string): ParsedQu
   const plainText = typography(text);
   if (PLAIN_NUMBER.test(plainText)) return Object.freeze({ si: Number(plainText), exps: ZERO, plain: true });
   let unit;
+  const unitText = plainText.replace(RECIPROCAL, "$1/");
   try {
-    unit = unitMath().unit(plainText.replace(RECIPROCAL, "$1/"));
-  } catch {
-    throw fail('expected a number followed by a unit, e.g. "0.2 mm"');
+    unit = unitMath().unit(unitText);
+  } catch (e) {
+    throw fail(unknownUnitDetail(e) ?? 'expected a number followed by a unit, e.g. "0.2 mm"');
   }
   if (typeof (unit.value as unknown) !== "number") throw fail("a unit needs a numeric value in front of it");
   // toSI applies offsets (degC) and scale; the value of a unit is not always SI.
@@ -104,7 +107,7 @@ function parseUncached(text: string, input?: string, formula?: string): ParsedQu
   if (!d.every(Number.isFinite)) throw fail("unit exponents must be finite numbers");
   if (d[8] !== 0) throw fail("bits and bytes are not physical quantities here");
   const exps = Object.freeze([d[1], d[0], d[2], d[3], d[4], d[6], d[5], d[7]]) as unknown as Exponents;
-  return Object.freeze({ si: value, exps, plain: false });
+  return Object.freeze({ si: exactSI(unitText, unit, value), exps, plain: false });
 }
 
 const SUPERSCRIPTS = "\u2070\u00b9\u00b2\u00b3\u2074\u2075\u2076\u2077\u2078\u2079";

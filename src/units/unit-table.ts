@@ -1,3 +1,4 @@
+import { type DecimalFactor, decimalFactor, scaleDecimal } from "./decimal-scale.js";
 import type { DimensionTypes } from "./types.js";
 
 /**
@@ -9,8 +10,9 @@ import type { DimensionTypes } from "./types.js";
  * it, and run-time strings from users go through mathjs instead.
  */
 
+// Prefixes as powers of ten: the factor is built as a decimal, never as a product of doubles.
 const PREFIXES = {
-  P: 1e15, T: 1e12, G: 1e9, M: 1e6, k: 1e3, "": 1, c: 1e-2, m: 1e-3, u: 1e-6, n: 1e-9, p: 1e-12, f: 1e-15,
+  P: 15, T: 12, G: 9, M: 6, k: 3, "": 0, c: -2, m: -3, u: -6, n: -9, p: -12, f: -15,
 } as const;
 type Prefix = keyof typeof PREFIXES;
 
@@ -119,20 +121,35 @@ export type UnitFor<Q extends number> = {
   [U in UnitSymbol]: [QuantityOf<U>] extends [Q] ? ([Q] extends [QuantityOf<U>] ? U : never) : never;
 }[UnitSymbol];
 
-let table: Map<string, readonly [string, number]> | undefined;
+/**
+ * A table entry: dimension name, SI factor (the double nearest the exact
+ * factor), and the factor as a decimal (coefficient, power of ten) when it is
+ * one, so that `quantity(10, "uH")` is exactly the double nearest 1e-5.
+ * Factors that are not decimals (deg = pi/180, Oe = 1000/(4 pi)) have none.
+ */
+export type UnitEntry = readonly [dimension: string, factor: number, decimal: DecimalFactor | undefined];
 
-function buildTable(): Map<string, readonly [string, number]> {
-  const t = new Map<string, readonly [string, number]>();
+let table: Map<string, UnitEntry> | undefined;
+
+function entry(dim: string, factor: number, prefixExponent = 0): UnitEntry {
+  const d = decimalFactor(factor);
+  if (d === undefined) return [dim, factor * 10 ** prefixExponent, undefined];
+  const exact: DecimalFactor = [d[0], d[1] + prefixExponent];
+  return [dim, scaleDecimal("1", exact[0], exact[1])!, exact];
+}
+
+function buildTable(): Map<string, UnitEntry> {
+  const t = new Map<string, UnitEntry>();
   for (const [sym, [dim, f]] of Object.entries(PREFIXABLE)) {
-    for (const [p, pf] of Object.entries(PREFIXES)) t.set(p + sym, [dim, pf * f]);
+    for (const [p, pe] of Object.entries(PREFIXES)) t.set(p + sym, entry(dim, f, pe));
   }
   // Fixed symbols win where a prefix happens to spell the same text ("min", "mG").
-  for (const [sym, entry] of Object.entries(FIXED)) t.set(sym, entry);
+  for (const [sym, [dim, f]] of Object.entries(FIXED)) t.set(sym, entry(dim, f));
   return t;
 }
 
-/** [dimension name, SI factor] of a unit symbol, or undefined if the symbol is not in the table. */
-export function lookupUnit(symbol: string): readonly [string, number] | undefined {
+/** [dimension name, SI factor, decimal factor] of a unit symbol, or undefined if the symbol is not in the table. */
+export function lookupUnit(symbol: string): UnitEntry | undefined {
   table ??= buildTable();
   return table.get(symbol);
 }

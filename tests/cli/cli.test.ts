@@ -1,4 +1,5 @@
 import { spawn } from "node:child_process";
+import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 import { parseToleranceText, runCli } from "../../src/cli/run.js";
@@ -28,20 +29,43 @@ function spawnCli(...args: string[]): Promise<{ status: number | null; stdout: s
   });
 }
 
+/** Split a command line as a POSIX shell does for the lines the CLI prints (words, "double quotes"). */
+function shellWords(line: string): string[] {
+  return [...line.matchAll(/(?:[^\s"]+|"[^"]*")+/g)].map((m) => m[0].replace(/"/g, ""));
+}
+
+/** The "Try:" line `show` prints for a formula, without "Try: ". */
+function tryLine(id: string): string {
+  const line = cli("show", id).out.split("\n").find((l) => l.startsWith("Try: "));
+  expect(line, `${id} shows a Try line`).toBeDefined();
+  return line!.slice("Try: ".length);
+}
+
 describe("the emquant command as a process", () => {
   it("computes with unit strings (exit 0, engineering prefix) and reports a bad input (exit 1, message on stderr)", async () => {
-    // Both processes at once: starting node with the TypeScript loader takes seconds.
-    const [ok, bad] = await Promise.all([
+    // A Try line with vectors, run by a real shell exactly as printed (emquant -> the source CLI).
+    const vectorTry = tryLine("lorentzForce").replace(/^emquant /, "");
+    // All processes at once: starting node with the TypeScript loader takes seconds.
+    const [ok, bad, shell] = await Promise.all([
       spawnCli("compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 mm"),
       spawnCli("compute", "parallelPlateCapacitance", "area=1 kg", "gap=0.1 mm"),
+      new Promise<{ status: number | null; stdout: string }>((resolve, reject) => {
+        const child = spawn("sh", ["-c", `"${process.execPath}" --import tsx src/cli/main.ts ${vectorTry}`], { cwd: root });
+        let stdout = "";
+        child.stdout.setEncoding("utf8").on("data", (t: string) => (stdout += t));
+        child.on("error", reject);
+        child.on("close", (status) => resolve({ status, stdout }));
+      }),
     ]);
+    expect(shell.status, vectorTry).toBe(0);
+    expect(shell.stdout).toMatch(/x = -320\.4 aN/); // q v B = -1.602176634e-19 C x 1e5 m/s x 0.01 T in -x, plus q E = -1.6e-16 N
     expect(ok.stderr).toBe("");
     expect(ok.status).toBe(0);
     expect(ok.stdout).toMatch(/^Capacitance = 8\.854 pF {3}\(8\.8541878188e-12 F\)/);
     expect(bad.status).toBe(1);
     expect(bad.stderr).toMatch(/error \[wrong_dimension\]: .*input "area" needs Area, got Mass/);
     expect(bad.stdout).toBe("");
-  });
+  }, 240_000); // three node processes with the TypeScript loader, on a shared machine
 });
 
 describe("the emquant command", () => {
@@ -164,6 +188,74 @@ describe("the emquant command", () => {
       expect(r.status).toBe(0);
       expect(r.out + r.err).not.toMatch(/Infinity|NaN/);
     }
+  });
+
+  it("runs every formula's Try line exactly as show prints it", () => {
+    for (const f of listFormulas()) {
+      const argv = shellWords(tryLine(f.id));
+      expect(argv[0]).toBe("emquant");
+      const r = cli(...argv.slice(1));
+      expect(r.status, `${argv.join(" ")}\n${r.err}`).toBe(0);
+      // Every input with an example is on the line, so the line gives the example's value.
+      const example = cli("compute", f.id, ...Object.entries(f.definition.inputs as Record<string, InputSpec>)
+        .filter(([, s]) => s.example !== undefined)
+        .map(([n, s]) => `${n}=${Array.isArray(s.example) ? s.example.join(", ") : String(s.example)}`), "--json");
+      const fromTry = cli(...argv.slice(1), "--json");
+      expect(JSON.parse(fromTry.out).value, f.id).toEqual(JSON.parse(example.out).value);
+    }
+  });
+
+  it("reads vectors in the form show prints them, with one unit after the brackets or one per component", () => {
+    const base = ["compute", "lorentzForce", "charge=1 C", "velocity=[0, 0, 0] m/s", "fluxDensity=[0, 0, 0] T", "--json"];
+    const a = JSON.parse(cli(...base, "electricField=[1000, 0, 0] V/m").out);
+    const b = JSON.parse(cli(...base, "electricField=[1 kV/m, 0 V/m, 0 V/m]").out);
+    const c = JSON.parse(cli(...base, "electricField=1000, 0, 0").out);
+    // F = q E with q = 1 C (Lorentz force law): 1000 N along x.
+    for (const r of [a, b, c]) expect(r.value).toEqual([1000, 0, 0]);
+    expect(cli("show", "lorentzForce").out).toContain('electricField="[1000, 0, 0] V/m"');
+  });
+
+  it("accepts the micro sign and Greek mu in units and prints results in engineering notation", () => {
+    const mu = JSON.parse(cli("compute", "capacitorCharge", "capacitance=10 \u00b5F", "voltage=1 V", "--json").out);
+    const greek = JSON.parse(cli("compute", "capacitorCharge", "capacitance=10 \u03bcF", "voltage=1 V", "--json").out);
+    expect(mu.value).toBe(1e-5); // Q = C V = 10 uF x 1 V, the exact decimal 1e-5
+    expect(greek.value).toBe(1e-5);
+    const big = cli("compute", "loopField", "current=1 A", "radius=1 m", "radialDistance=1 m", "axialDistance=1e-200 m");
+    expect(big.out).toMatch(/radial = 20e192 T/); // mu0 I / (2 pi z) = 2e193 T next to the wire
+    expect(big.out).not.toMatch(/e\+/);
+  });
+
+  it("suggests close formula ids, commands and units, and names the unknown unit", () => {
+    const id = cli("compute", "parallelPlateCapacitence", "area=1 cm^2");
+    expect(id.status).toBe(1);
+    expect(id.err).toContain('unknown formula "parallelPlateCapacitence" (did you mean "parallelPlateCapacitance"?)');
+    const unit = cli("compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 mmm");
+    expect(unit.err).toContain('unknown unit "mmm"; did you mean "mm"?');
+    const micro = cli("compute", "seriesCapacitance", "capacitance1=1 uf", "capacitance2=2 uF");
+    expect(micro.err).toContain('unknown unit "uf"; did you mean "uF"?');
+    const unknown = cli("compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 furlongz");
+    expect(unknown.err).toContain('unknown unit "furlongz"');
+    expect(cli("shwo", "coaxialCapacitance").err).toContain('unknown command "shwo"; did you mean "show"?');
+  });
+
+  it("prints its version, the one in package.json", () => {
+    const pkg = JSON.parse(readFileSync(new URL("../../package.json", import.meta.url), "utf8")) as { version: string };
+    const r = cli("--version");
+    expect(r.status).toBe(0);
+    expect(r.out).toBe(`emquant ${pkg.version}\n`);
+  });
+
+  it("prints the usage once, to stderr, on a usage error (status 2), and to stdout for help (status 0)", () => {
+    for (const args of [[], ["frobnicate"], ["compute", "parallelPlateCapacitance", "--colour"], ["solve", "parallelPlateCapacitance", "gap"]]) {
+      const r = cli(...args);
+      expect(r.status, args.join(" ")).toBe(2);
+      expect(r.out).toBe("");
+      expect(r.err.match(/^Usage:/gm), args.join(" ")).toHaveLength(1);
+      expect(r.err).toMatch(/^usage: /);
+    }
+    const h = cli("help");
+    expect(h.err).toBe("");
+    expect(h.out.match(/^Usage:/gm)).toHaveLength(1);
   });
 
   it("answers usage errors with status 2 and help with status 0", () => {

@@ -31,7 +31,7 @@ describe("the strong-field rule", () => {
 
   it("ends with the statement that local codes and licensed practice govern, and prints huge fields in tesla", () => {
     expect(says(1e-3).endsWith(GOVERN)).toBe(true);
-    expect(says(1.7e308)).toMatch(/flux density 1\.7e308 T/);
+    expect(says(1.7e308)).toMatch(/flux density 170e306 T/);
     expect(says(1.7e308)).not.toMatch(/Infinity|NaN/);
   });
 });

@@ -1,0 +1,41 @@
+import type { Unit } from "mathjs";
+import { decimalFactor, scaleDecimal } from "./decimal-scale.js";
+
+// The number a unit string starts with, as the engineer typed it.
+const LEADING_NUMBER = /^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)/;
+
+/**
+ * The SI value of a parsed unit string, correctly rounded from the decimal the
+ * engineer typed: "10 uH" is exactly 1e-5 (mathjs multiplies by the double
+ * 1e-6 and gives 9.999999999999999e-6). The factor of each unit in the string
+ * (prefix and unit value, raised to its power) is taken as the decimal it is
+ * written as; the product of decimals is exact and rounded once by Number().
+ *
+ * `approx` is mathjs's own SI value. It is returned unchanged where the exact
+ * route does not apply: units with an offset (degC), a factor that is not a
+ * short decimal (deg = pi/180), a non-decimal factor under a negative power
+ * (1/in), a fractional power, or text whose leading number is not what mathjs
+ * read (checked to 1e-9).
+ */
+export function exactSI(text: string, unit: Unit, approx: number): number {
+  const m = LEADING_NUMBER.exec(text);
+  if (m === null || approx - approx !== 0) return approx;
+  let coefficient = 1n;
+  let exponent = 0;
+  // One entry per unit symbol of the string; a string is at most 200 characters, so a few dozen at most.
+  for (const u of unit.units) {
+    const { power } = u;
+    if (u.unit.offset !== 0 || !Number.isInteger(power) || Math.abs(power) > 64) return approx;
+    for (const f of [(u.prefix as unknown as { value: number }).value, u.unit.value as number]) {
+      if (f === 1) continue;
+      const d = decimalFactor(f);
+      if (d === undefined || (power < 0 && d[0] !== 1)) return approx;
+      if (power > 0) coefficient *= BigInt(d[0]) ** BigInt(power);
+      exponent += d[1] * power;
+    }
+  }
+  const exact = scaleDecimal(m[1]!, coefficient, exponent);
+  if (exact === undefined || exact - exact !== 0) return approx;
+  // Guard against a leading number that is not the value mathjs read (hex, "1e3.5"...).
+  return Math.abs(exact - approx) <= 1e-9 * Math.abs(approx) ? exact : approx;
+}
