@@ -56,10 +56,12 @@ function isRef(v: unknown): v is Ref<unknown> {
   return typeof v === "object" && v !== null && (v as Record<symbol, unknown>)[REF] === true;
 }
 
-type Refs<Env> = { readonly [K in keyof Env]: Ref<Env[K]> };
+/** References to a design's named values, each typed by its quantity. */
+export type Refs<Env> = { readonly [K in keyof Env]: Ref<Env[K]> };
 /** A typed step binding: a quantity of the input's type or a reference to one. */
-type Bindings<I extends InputSpecs> = { readonly [K in keyof FormulaInputs<I>]: FormulaInputs<I>[K] | Ref<NonNullable<FormulaInputs<I>[K]>> };
-type TypedTolerance<Q> =
+export type Bindings<I extends InputSpecs> = { readonly [K in keyof FormulaInputs<I>]: FormulaInputs<I>[K] | Ref<NonNullable<FormulaInputs<I>[K]>> };
+/** A tolerance of typed quantities (the typed form of ToleranceSpec). */
+export type TypedTolerance<Q> =
   | { readonly nominal: Q; readonly plusMinus: Q }
   | { readonly nominal: Q; readonly percent: number }
   | { readonly distribution: "normal"; readonly mean: Q; readonly sd: Q }

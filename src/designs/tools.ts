@@ -17,7 +17,8 @@ import { unitOf } from "./units.js";
 // compiled chain; a shared input is one value per run, so every step that
 // reads it sees the same draw (the chain's correlations hold by construction).
 
-type DesignLike = DesignSpec | DesignBuilder<unknown>;
+/** A design as JSON or as a typed builder. */
+export type DesignLike = DesignSpec | DesignBuilder<unknown>;
 
 function compiled(d: DesignLike): CompiledDesign {
   // A builder carries its JSON in `spec`; a design file has no such key (compile refuses unknown keys).

@@ -6,3 +6,4 @@ export { DIMENSIONS, describeExponents, nameExponents } from "./dimensions.js";
 export type { DimensionName, Exponents } from "./dimensions.js";
 // Human-readable values with SI prefixes (the library's one formatter; no mathjs).
 export { formatQuantity } from "./display.js";
+export type { Precision } from "./display.js";

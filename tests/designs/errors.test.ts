@@ -1,7 +1,8 @@
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { FormulaError } from "../../src/core/errors.js";
-import { compileDesign, designTolerance, evaluateDesign, solveDesign, sweepDesign } from "../../src/designs/index.js";
+import { compileDesign } from "../../src/designs/compile.js";
+import { designTolerance, evaluateDesign, solveDesign, sweepDesign } from "../../src/designs/index.js";
 import type { DesignSpec } from "../../src/designs/spec.js";
 import { expectFormulaError } from "../helpers/errors.js";
 
