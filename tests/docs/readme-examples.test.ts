@@ -26,7 +26,10 @@ function blocks(): Block[] {
 }
 
 // Shell lines that install or set up, not examples: they need the network or minutes of work.
-const SET_UP = new Set(["npm ci && npm run demo   # a small design worked through the library, with warnings and cautions", "npm ci && npm test       # reference tables, properties, CLI and HTTP example", "npm install emquant"]);
+const SET_UP = new Set(["npm ci && npm run demo   # a small design worked through the library, with warnings and cautions", "npm ci && npm test       # reference tables, properties, CLI and HTTP handler", "npm install emquant",
+  // The browser page's commands: .ci/run runs test:browser, which builds the page first.
+  "npm run build:web      # the static site, in out/web (serve it with any static file server)",
+  "npm run test:browser   # end to end in headless Chromium"]);
 
 /** Split a command line as a POSIX shell does for these lines (words, "double quotes"). */
 function shellWords(line: string): string[] {
@@ -85,8 +88,10 @@ afterAll(() => rmSync(scratch, { recursive: true, force: true }));
 const all = blocks();
 
 describe("every README example runs as written", () => {
-  it("has only TypeScript, shell and command-line blocks, and sets up only with the listed commands", () => {
-    for (const b of all) expect(["ts", "sh", ""], `block at line ${b.line}`).toContain(b.lang);
+  it("has only TypeScript, shell, command-line and JSON blocks, and sets up only with the listed commands", () => {
+    for (const b of all) expect(["ts", "sh", "", "json"], `block at line ${b.line}`).toContain(b.lang);
+    // JSON blocks are design files: they parse (tests/designs/surfaces.test.ts evaluates the one in the README).
+    for (const b of all.filter((x) => x.lang === "json")) expect(() => JSON.parse(b.code), `JSON block at line ${b.line}`).not.toThrow();
     const sh = all.filter((b) => b.lang === "sh").flatMap((b) => b.code.trim().split("\n"));
     for (const line of sh) expect(SET_UP.has(line), `a shell line that is not a set-up step must be run by this test: ${line}`).toBe(true);
   });
