@@ -79,7 +79,10 @@ function instrument(code: string, index: number): string {
     if (!m) return l;
     return `${m[1]}(globalThis as any).__readmeCheck(${JSON.stringify(`README block ${index}, line ${i + 1}`)}, () => (${m[2]}), ${JSON.stringify(m[3]!.trim())});`;
   });
-  return lines.join("\n").replaceAll('from "emquant"', `from ${JSON.stringify(`${root}src/index.js`)}`);
+  return lines
+    .join("\n")
+    .replaceAll('from "emquant"', `from ${JSON.stringify(`${root}src/index.js`)}`)
+    .replaceAll('from "emquant/http"', `from ${JSON.stringify(`${root}src/http/index.js`)}`);
 }
 
 (globalThis as Record<string, unknown>).__readmeCheck = check;
