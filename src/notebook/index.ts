@@ -9,6 +9,7 @@ import { addTradeUnits } from "../units/parse.js";
 import { catalogEntry } from "../tools/catalog.js";
 import { readQuantity } from "../tools/convert.js";
 import { formatQuantity } from "../units/display.js";
+import { notebookDesign } from "./design.js";
 import { BuiltinHelp, FormulaHelp, type MathjsDoc } from "./help.js";
 
 /** Options of a notebook instance. */
@@ -84,6 +85,7 @@ export function createNotebookMath(options: NotebookOptions = {}): MathJsInstanc
     const n = f.notes(x, value);
     return { warnings: n.warnings.map((w) => ({ ...w })), cautions: n.cautions.map((c) => ({ ...c })) };
   };
+  functions.design = (spec: unknown) => notebookDesign(math, spec);
   const { help, ...rest } = functions;
   math.import(rest, { override: false });
   math.import({ help }, { override: true });

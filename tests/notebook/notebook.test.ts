@@ -140,3 +140,24 @@ describe("the notebook mathjs instance", () => {
     expect(other.evaluate("parallelPlateCapacitance(1 cm^2, 0.1 mm)").toNumber("pF")).toBeCloseTo(8.8541878188, 10);
   });
 });
+
+describe("designs in the notebook", () => {
+  it("design(...) evaluates a design written in an expression, units and all, as the library does", async () => {
+    const { evaluateDesign } = await import("../../src/designs/index.js");
+    const math = createNotebookMath();
+    const view = math.evaluate('design({ inputs: { area: 1 cm^2, gap: 0.1 mm }, steps: { capacitance: { formula: "parallelPlateCapacitance", inputs: { area: "area", gap: "gap" } } }, checks: ["capacitance > 5 pF"] })') as { result: { steps: { value: number }[]; passed: boolean }; toString(): string; toHTML(): string };
+    const direct = evaluateDesign({ inputs: { area: "1 cm^2", gap: "0.1 mm" }, steps: { capacitance: { formula: "parallelPlateCapacitance", inputs: { area: "area", gap: "gap" } } }, checks: ["capacitance > 5 pF"] });
+    expect(view.result.steps[0]!.value).toBe(direct.steps[0]!.value);
+    expect(view.result.passed).toBe(true);
+    expect(view.toString()).toContain("capacitance = 8.854 pF");
+    expect(view.toString()).toContain("pass  capacitance > 5 pF");
+    expect(view.toHTML()).toContain("<h2>Checks</h2>");
+  });
+
+  it("design(...) takes a design file's JSON text and reports a bad design with its code", () => {
+    const math = createNotebookMath();
+    const text = JSON.stringify({ inputs: { a: "1 m" }, derived: { x: "a * 2" } });
+    expect(String(math.evaluate(`design(${JSON.stringify(text)})`))).toContain("x = 2 m");
+    expect(() => math.evaluate('design({ inputs: { a: 1 m }, derived: { x: "a + 1 s" } })')).toThrow(/wrong_dimension|needs/);
+  });
+});
