@@ -12,7 +12,7 @@ import {
   capacitorEnergy, coaxialCapacitance, coreFluxDensity, coreLoss, evaluate, gappedCoreInductance,
   inUnit, parasiticCouplingCurrent, quantity, skinDepth, solveDetails, sweep, sweepToCsv,
   sweepToVegaLite, tolerance, wireForce, formatQuantity, gappedCorePullForce, type Note,
-  designReportHtml, designReportMarkdown, designTolerance, evaluateDesign, solveDesign, type DesignSpec,
+  designReportHtml, designReportMarkdown, designTolerance, evaluateDesign, solveDesign, sweepDesign, type DesignSpec,
   microstripImpedance, microstripEffectivePermittivity, propagationDelay, viaInductance, traceResistance, reflectionCoefficient,
   nearEndCrosstalk, coupledMicrostripImpedance, type Length,
   dowellRoundWireAcResistanceFactor, roundWireAcResistanceFactor, temperatureRise, wireGaugeDiameter, wireResistance,
@@ -200,8 +200,13 @@ for (const name of ["gapped-inductor", "level-sensor"]) {
     const failing = spread.checks.find((c) => c.rule === k.rule)!.failureProbability!;
     console.log(`    ${k.pass ? "pass" : "FAIL"}  ${k.rule.padEnd(28)} margin ${formatQuantity(k.margin, k.unit)}; fails in ${(failing * 100).toFixed(1)} % of toleranced builds`);
   }
-  writeFileSync(`out/designs/${name}.html`, designReportHtml(result, { tolerance: spread }));
-  writeFileSync(`out/designs/${name}.md`, designReportMarkdown(result, { tolerance: spread }));
+  // A sweep for each report: the inductor's flux density over the load current, the probe's capacitance over the level.
+  const plan = name === "gapped-inductor"
+    ? { input: "peakCurrent", from: "3 A", to: "9 A", output: "peakFluxDensity" }
+    : { input: "level", from: "0.05 m", to: "0.95 m", output: "probeCapacitance" };
+  const sweeps = [{ sweep: sweepDesign(spec, { ...plan, points: 31 }), output: plan.output }];
+  writeFileSync(`out/designs/${name}.html`, designReportHtml(result, { tolerance: spread, sweeps }));
+  writeFileSync(`out/designs/${name}.md`, designReportMarkdown(result, { tolerance: spread, sweeps }));
 }
 const typed = gappedInductor.evaluate();
 show("typed design: inductance", typed.values.inductance, "H");

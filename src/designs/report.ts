@@ -3,7 +3,8 @@ import type { Source } from "../core/spec.js";
 import { formatQuantity } from "../units/display.js";
 import { VERSION } from "../version.js";
 import type { DesignResult } from "./run.js";
-import type { DesignToleranceResult } from "./tools.js";
+import { sweepChartSvg } from "./chart.js";
+import type { DesignSweepResult, DesignToleranceResult } from "./tools.js";
 
 // A calculation a reviewer can read and sign: the same content as Markdown
 // and as one self-contained HTML file (inline style, no scripts, no external
@@ -14,6 +15,8 @@ export interface ReportOptions {
   readonly tolerance?: DesignToleranceResult;
   /** Date printed on the report (default: today, as YYYY-MM-DD). Set it for reproducible output. */
   readonly date?: string;
+  /** Sweeps to chart: a design sweep and the step or derived quantity to plot against its input. */
+  readonly sweeps?: readonly { readonly sweep: DesignSweepResult; readonly output: string }[];
 }
 
 interface Block {
@@ -21,6 +24,8 @@ interface Block {
   readonly paragraphs?: readonly string[];
   readonly table?: { readonly head: readonly string[]; readonly rows: readonly (readonly string[])[] };
   readonly list?: readonly string[];
+  /** An SVG chart (HTML only; Markdown gets the paragraphs that describe it). */
+  readonly svg?: string;
 }
 
 const q = (v: number, unit: string): string => formatQuantity(v, unit);
@@ -95,6 +100,18 @@ function blocks(r: DesignResult, options: ReportOptions): Block[] {
       ],
     });
   }
+  for (const { sweep, output } of options.sweeps ?? []) {
+    const passing = sweep.values.filter((_, k) => sweep.checks.every((c) => c.pass[k]));
+    const failing = sweep.values.filter((_, k) => !sweep.checks.every((c) => c.pass[k]));
+    const svg = sweepChartSvg(sweep, output);
+    out.push({
+      heading: `Sweep: ${output} against ${sweep.input}`,
+      paragraphs: [
+        `${sweep.values.length} points from ${q(sweep.values[0]!, sweep.unit)} to ${q(sweep.values.at(-1)!, sweep.unit)}; every check passes at ${passing.length} of them${failing.length > 0 ? ` and at least one fails at ${failing.length} (${q(Math.min(...failing), sweep.unit)} to ${q(Math.max(...failing), sweep.unit)}; red points in the chart)` : ""}.`,
+      ],
+      ...(svg ? { svg } : {}),
+    });
+  }
   const cautions = r.cautions.map((n) => `${n.step}: ${n.message}`);
   out.push({
     heading: "Cautions",
@@ -161,6 +178,7 @@ export function designReportHtml(r: DesignResult, options: ReportOptions = {}): 
       }
       parts.push("</tbody></table>");
     }
+    if (b.svg) parts.push(`<figure>${b.svg}</figure>`);
     if (b.list && b.list.length > 0) parts.push("<ul>", ...b.list.map((i) => `<li>${escape(i)}</li>`), "</ul>");
   }
   parts.push("</body></html>", "");

@@ -8,7 +8,7 @@ import { join } from "node:path";
 import { fileURLToPath, pathToFileURL } from "node:url";
 import { chromium, type BrowserContext } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { designReportHtml, designTolerance, evaluateDesign } from "../../src/designs/index.js";
+import { designReportHtml, designTolerance, evaluateDesign, sweepDesign } from "../../src/designs/index.js";
 import type { DesignSpec } from "../../src/designs/spec.js";
 
 const root = fileURLToPath(new URL("../..", import.meta.url));
@@ -36,7 +36,11 @@ describe("the calculation report in a browser", () => {
     it(`${name}: renders every section and table, and prints to PDF`, async () => {
       const spec = JSON.parse(readFileSync(join(root, `examples/designs/${name}.json`), "utf8")) as DesignSpec;
       const result = evaluateDesign(spec);
-      const html = designReportHtml(result, { tolerance: designTolerance(spec, { samples: 1000 }), date: "2026-12-03" });
+      const plan = name === "gapped-inductor"
+        ? { input: "peakCurrent", from: "3 A", to: "9 A", output: "peakFluxDensity" }
+        : { input: "level", from: "0.05 m", to: "0.95 m", output: "probeCapacitance" };
+      const sweeps = [{ sweep: sweepDesign(spec, { ...plan, points: 31 }), output: plan.output }];
+      const html = designReportHtml(result, { tolerance: designTolerance(spec, { samples: 1000 }), sweeps, date: "2026-12-03" });
       const file = join(output, `report-${name}.html`);
       writeFileSync(file, html);
       const page = context.pages()[0] ?? (await context.newPage());
@@ -46,6 +50,9 @@ describe("the calculation report in a browser", () => {
       // Every check row shows its result; the tables laid out with a width (not collapsed).
       const results = await page.$$eval("h2 + table td:last-child, table td.pass, table td.fail", (tds) => tds.map((t) => t.textContent));
       expect(results.filter((t) => t === "pass" || t === "FAIL").length).toBe(result.checks.length);
+      // The sweep's chart is laid out at its size with one point per value.
+      const chart = await page.$eval("figure svg", (svg) => ({ width: svg.getBoundingClientRect().width, points: svg.querySelectorAll("circle").length }));
+      expect(chart).toEqual({ width: 560, points: 31 });
       const width = await page.$eval("table", (t) => t.getBoundingClientRect().width);
       expect(width).toBeGreaterThan(300);
       await page.screenshot({ path: join(output, `report-${name}.png`), fullPage: true });

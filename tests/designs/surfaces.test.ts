@@ -181,3 +181,22 @@ describe("the README's design section", () => {
     expect(d.evaluate().result.passed).toBe(true);
   });
 });
+
+describe("sweep charts in the report", () => {
+  it("the HTML report draws the swept output with one point per value, red where a check fails, axes in engineering units", async () => {
+    const { sweepDesign } = await import("../../src/designs/index.js");
+    const spec = load("gapped-inductor");
+    const sweep = sweepDesign(spec, { input: "peakCurrent", from: "4 A", to: "8 A", points: 21 });
+    const failing = sweep.values.filter((_, k) => !sweep.checks.every((c) => c.pass[k])).length;
+    expect(failing).toBeGreaterThan(0);
+    const html = designReportHtml(evaluateDesign(spec), { sweeps: [{ sweep, output: "peakFluxDensity" }], date: "2026-12-03" });
+    const svg = html.slice(html.indexOf("<svg"), html.indexOf("</svg>"));
+    expect(svg.match(/<circle /g)).toHaveLength(21);
+    expect(svg.match(/fill="#c00"/g)).toHaveLength(failing);
+    expect(svg).toContain("peakFluxDensity (mT)");
+    expect(svg).toContain("peakCurrent (A)");
+    const md = designReportMarkdown(evaluateDesign(spec), { sweeps: [{ sweep, output: "peakFluxDensity" }] });
+    expect(md).toContain(`## Sweep: peakFluxDensity against peakCurrent`);
+    expect(md).toContain(`every check passes at ${21 - failing} of them and at least one fails at ${failing}`);
+  });
+});
