@@ -200,3 +200,13 @@ describe("sweep charts in the report", () => {
     expect(md).toContain(`every check passes at ${21 - failing} of them and at least one fails at ${failing}`);
   });
 });
+
+it("the typed level probe is the JSON level probe", async () => {
+  const { levelProbe } = await import("../../examples/designs/level-sensor.js");
+  const typed = levelProbe.evaluate().result;
+  const json = evaluateDesign(load("level-sensor"));
+  for (const s of [...json.steps, ...json.derived]) {
+    expect([...typed.steps, ...typed.derived].find((t) => t.name === s.name)!.value).toBe(s.value);
+  }
+  expect(typed.checks.map((k) => [k.rule, k.pass])).toEqual(json.checks.map((k) => [k.rule, k.pass]));
+});
