@@ -5,6 +5,7 @@
  */
 import {
   coreFluxDensity, coreLoss, design, inductanceFactor, inductanceFromFactor, inductorEnergy, quantity,
+  roundWireAcResistanceFactor, temperatureRise, wireGaugeDiameter, wireResistance,
 } from "../../src/index.js";
 
 export const gappedInductor = design("Gapped-core output inductor for a 48 V to 12 V buck converter")
@@ -20,6 +21,9 @@ export const gappedInductor = design("Gapped-core output inductor for a 48 V to 
   .input("steinmetzCoefficient", "Dimensionless", 3.7)
   .input("frequencyExponent", "Dimensionless", 1.4)
   .input("fluxExponent", "Dimensionless", 2.6)
+  .input("meanTurnLength", "Length", quantity(45, "mm"))
+  .input("windingTemperature", "Temperature", quantity(373.15, "K"))
+  .input("surfaceArea", "Area", quantity(20, "cm^2"))
   .step("inductanceFactor", inductanceFactor, (r) => ({
     pathLength: r.pathLength, area: r.coreArea, relativePermeability: r.coreRelativePermeability, gapLength: r.gapLength,
   }))
@@ -36,6 +40,15 @@ export const gappedInductor = design("Gapped-core output inductor for a 48 V to 
     frequency: r.switchingFrequency, peakFluxDensity: r.fluxAmplitude, volume: r.coreVolume,
   }))
   .step("storedEnergy", inductorEnergy, (r) => ({ inductance: r.inductance, current: r.peakCurrent }))
+  .step("wireDiameter", wireGaugeDiameter, () => ({ gauge: "18" }))
+  .derived("windingLength", "Length", "turns * meanTurnLength")
+  .step("dcResistance", wireResistance, (r) => ({ length: r.windingLength, diameter: r.wireDiameter, temperature: r.windingTemperature }))
+  .step("acFactor", roundWireAcResistanceFactor, (r) => ({ diameter: r.wireDiameter, frequency: r.switchingFrequency }))
+  // DC at the average current, the triangular ripple's r.m.s. (ripple / sqrt 12) at the switching frequency.
+  .derived("windingLoss", "Power", "dcResistance * (peakCurrent - rippleCurrent / 2)^2 + acFactor * dcResistance * (rippleCurrent / sqrt(12))^2")
+  .derived("totalLoss", "Power", "coreLoss + windingLoss")
+  .step("temperatureRise", temperatureRise, (r) => ({ loss: r.totalLoss, surfaceArea: r.surfaceArea }))
   .check("peakFluxDensity < 0.3 T")
   .check("inductance >= 20 uH")
-  .check("coreLoss < 1 W");
+  .check("coreLoss < 1 W")
+  .check("temperatureRise <= 40 K");
