@@ -7,7 +7,7 @@ import { FormulaError } from "../core/errors.js";
 import { brent } from "../math/roots.js";
 import { countLoop } from "../math/loop-count.js";
 import { createRandom } from "../tools/random.js";
-import { derivative, drawSample, scaledMoments, type Varied } from "../tools/tolerance.js";
+import { derivative, drawSample, scaledMoments, scaledNorm, type Varied } from "../tools/tolerance.js";
 import { type CompiledDesign, type CompiledInput, compileDesign } from "./compile.js";
 import { type DesignResult, type Values, checkValues, runDetailed, runValues } from "./run.js";
 import type { DesignBuilder, DesignSpec } from "./spec.js";
@@ -196,15 +196,13 @@ export function designTolerance(d: DesignLike, options: DesignToleranceOptions =
   const quantities = names.map((name, j): DesignQuantitySpread => {
     const node = c.nodes[j]!;
     const unit = unitOf(node.exps);
-    const parts = varied.map((v, i) => {
-      const dv = slopes[j]![i];
-      return { input: v.name, derivative: dv ?? NaN, unit: slopeUnit(unit, unitOf(v.dimension)), term: dv === undefined ? NaN : dv * v.varied.sd };
-    });
-    const known = parts.filter((p) => Number.isFinite(p.term));
-    const m = Math.max(0, ...known.map((p) => Math.abs(p.term)));
-    const sumSq = m === 0 ? 0 : known.reduce((s, p) => s + (p.term / m) ** 2, 0);
-    const sd = m * Math.sqrt(sumSq);
-    const sensitivities = parts.map((p) => ({ input: p.input, derivative: p.derivative, unit: p.unit, share: m === 0 || !Number.isFinite(p.term) ? 0 : (p.term / m) ** 2 / sumSq }));
+    // Inputs whose slope could not be taken (the chain refused one side) count for nothing.
+    const known = varied.flatMap((v, i) => (slopes[j]![i] === undefined ? [] : [i]));
+    const rss = scaledNorm("design", `the RSS standard deviation of ${name}`, known.map((i) => slopes[j]![i]!), known.map((i) => varied[i]!.varied.sd));
+    const sd = rss.norm;
+    const sensitivities = varied.map((v, i) => ({
+      input: v.name, derivative: slopes[j]![i] ?? NaN, unit: slopeUnit(unit, unitOf(v.dimension)), share: rss.shares[known.indexOf(i)] ?? 0,
+    }));
     let monteCarlo: DesignQuantitySpread["monteCarlo"];
     if (accepted > 0) {
       const acc = values[j]!.subarray(0, accepted).sort();

@@ -405,7 +405,7 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
  * the products by theirs, so every square lies in [0, 1] before summing.
  * A norm past the largest double is out_of_range (naming `what`).
  */
-function scaledNorm(id: string, what: string, a: readonly number[], b: readonly number[]): { norm: number; shares: number[] } {
+export function scaledNorm(id: string, what: string, a: readonly number[], b: readonly number[]): { norm: number; shares: number[] } {
   const n = a.length;
   let ma = 0;
   for (let i = 0; i < n; i++) ma = Math.max(ma, Math.abs(a[i]!));
