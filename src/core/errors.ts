@@ -43,13 +43,15 @@ export interface FormulaErrorFields {
  * the fields, so programs should branch on `code` and `input`, not the text.
  */
 export class FormulaError extends Error {
-  readonly code: ErrorCode;
-  readonly formula: string | undefined;
-  readonly input: string | undefined;
-  readonly value: unknown;
-  readonly expected: string | undefined;
-  readonly received: string | undefined;
-  readonly rule: string | undefined;
+  // `declare`: the constructor assigns every field, so no class-field
+  // initialisers need emitting (they cost bytes in every bundle).
+  declare readonly code: ErrorCode;
+  declare readonly formula: string | undefined;
+  declare readonly input: string | undefined;
+  declare readonly value: unknown;
+  declare readonly expected: string | undefined;
+  declare readonly received: string | undefined;
+  declare readonly rule: string | undefined;
 
   constructor(code: ErrorCode, fields: FormulaErrorFields = {}) {
     super(buildMessage(code, fields));

@@ -47,8 +47,10 @@ export function scaleDecimal(text: string, coefficient: number | bigint, exponen
   return Number(`${m[1]}${BigInt(digits) * BigInt(coefficient)}e${e}`);
 }
 
-// Powers of ten that are doubles exactly (10^22 is the last).
-const EXACT_POWERS = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22];
+// Powers of ten that are doubles exactly (10^22 is the last), read from their
+// decimal text (exact) rather than computed with ** (Math.pow need not be
+// correctly rounded) and rather than written out (23 literals in every bundle).
+const EXACT_POWERS = /* @__PURE__ */ Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
 
 /**
  * `value` (read as its shortest decimal) times the decimal factor, correctly

@@ -1,5 +1,5 @@
 import { FormulaError } from "../core/errors.js";
-import type { QuantityOf, UnitFor, UnitSymbol } from "./unit-table.js";
+import type { QuantityOf, UnitFor, UnitSymbol } from "./unit-symbols.js";
 import { scaleNumber, unscalePower } from "./decimal-scale.js";
 import { lookupUnit, type UnitEntry } from "./unit-table.js";
 
@@ -15,7 +15,7 @@ import { lookupUnit, type UnitEntry } from "./unit-table.js";
  */
 export function quantity<U extends UnitSymbol>(value: number, unit: U): QuantityOf<U> {
   const e = entryOf(unit);
-  return (e[2] === undefined ? value * e[1] : scaleNumber(value, e[2])) as QuantityOf<U>;
+  return (e[1] === undefined ? value * e[0] : scaleNumber(value, e[1])) as QuantityOf<U>;
 }
 
 /**
@@ -27,7 +27,7 @@ export function quantity<U extends UnitSymbol>(value: number, unit: U): Quantity
 export function inUnit<Q extends number>(q: Q, unit: UnitFor<Q>): number {
   const e = entryOf(unit as string);
   // A power-of-ten unit rounds once (q * 1e12 for pF: 1e12 is exact, 1e-12 is not).
-  return (e[2] === undefined ? undefined : unscalePower(q, e[2])) ?? q / e[1];
+  return (e[1] === undefined ? undefined : unscalePower(q, e[1])) ?? q / e[0];
 }
 
 function entryOf(unit: string): UnitEntry {

@@ -1,160 +1,43 @@
 import { type DecimalFactor, decimalFactor, scaleDecimal } from "./decimal-scale.js";
-import type { DimensionTypes } from "./types.js";
+import { FIXED_FACTORS, PREFIX_EXPONENTS, PREFIXABLE_FACTORS } from "./unit-factors.js";
+
+export type { QuantityOf, UnitFor, UnitSymbol } from "./unit-symbols.js";
 
 /**
- * Unit symbols accepted by `quantity()` and `inUnit()` as string literals, with
- * their dimension and SI factor. Symbols follow mathjs spelling ("u" for micro,
- * "^" for powers) so the same text works in runtime unit strings.
- *
- * This is a finite table, not a grammar: the compiler checks a literal against
- * it, and run-time strings from users go through mathjs instead.
+ * A table entry: SI factor (the double nearest the exact factor), and the
+ * factor as a decimal (coefficient, power of ten) when it is one, so that
+ * `quantity(10, "uH")` is exactly the double nearest 1e-5. Factors that are
+ * not decimals (deg = pi/180, Oe = 1000/(4 pi)) have none. The dimension is
+ * the type's business (unit-symbols.ts), not the run time's.
  */
-
-// Prefixes as powers of ten: the factor is built as a decimal, never as a product of doubles.
-const PREFIXES = {
-  P: 15, T: 12, G: 9, M: 6, k: 3, "": 0, c: -2, m: -3, u: -6, n: -9, p: -12, f: -15,
-} as const;
-type Prefix = keyof typeof PREFIXES;
-
-// Symbols that take any SI prefix: [dimension, SI factor of the unprefixed symbol].
-const PREFIXABLE = {
-  m: ["Length", 1],
-  s: ["Time", 1],
-  g: ["Mass", 1e-3],
-  A: ["Current", 1],
-  K: ["Temperature", 1],
-  mol: ["Amount", 1],
-  Hz: ["Frequency", 1],
-  C: ["Charge", 1],
-  V: ["Voltage", 1],
-  F: ["Capacitance", 1],
-  H: ["Inductance", 1],
-  ohm: ["Resistance", 1],
-  S: ["Conductance", 1],
-  Wb: ["MagneticFlux", 1],
-  T: ["FluxDensity", 1],
-  N: ["Force", 1],
-  Pa: ["Pressure", 1],
-  J: ["Energy", 1],
-  W: ["Power", 1],
-  eV: ["Energy", 1.602176634e-19],
-  "V/m": ["ElectricField", 1],
-  "A/m": ["MagneticFieldStrength", 1],
-  "V/s": ["VoltageRate", 1],
-  "A/s": ["CurrentRate", 1],
-  "m/s": ["Velocity", 1],
-  "S/m": ["Conductivity", 1],
-  "H/m": ["Permeability", 1],
-  "F/m": ["Permittivity", 1],
-  "C/m": ["LineChargeDensity", 1],
-  "W/m^3": ["PowerDensity", 1],
-} as const;
-type PrefixableSymbol = keyof typeof PREFIXABLE;
-
-// Symbols that stand as they are.
-const FIXED = {
-  "": ["Dimensionless", 1],
-  rad: ["Angle", 1],
-  mrad: ["Angle", 1e-3],
-  deg: ["Angle", Math.PI / 180],
-  "m^2": ["Area", 1],
-  "cm^2": ["Area", 1e-4],
-  "mm^2": ["Area", 1e-6],
-  "um^2": ["Area", 1e-12],
-  "m^3": ["Volume", 1],
-  "cm^3": ["Volume", 1e-6],
-  "mm^3": ["Volume", 1e-9],
-  mil: ["Length", 2.54e-5],
-  in: ["Length", 0.0254],
-  min: ["Time", 60],
-  h: ["Time", 3600],
-  "V/us": ["VoltageRate", 1e6],
-  "V/ns": ["VoltageRate", 1e9],
-  "kV/us": ["VoltageRate", 1e9],
-  "A/us": ["CurrentRate", 1e6],
-  "A/m^2": ["CurrentDensity", 1],
-  "A/mm^2": ["CurrentDensity", 1e6],
-  "C/m^2": ["SurfaceChargeDensity", 1],
-  "C/m^3": ["ChargeDensity", 1],
-  "1/m^3": ["NumberDensity", 1],
-  "1/cm^3": ["NumberDensity", 1e6],
-  "kW/m^3": ["PowerDensity", 1e3],
-  "mW/cm^3": ["PowerDensity", 1e3],
-  "km/s": ["Velocity", 1e3],
-  "m/s^2": ["Acceleration", 1],
-  "kg m/s": ["Momentum", 1],
-  "C/kg": ["ChargeToMass", 1],
-  "J/T": ["MagneticMoment", 1],
-  "N/m": ["Stiffness", 1],
-  "T m": ["MagneticRigidity", 1],
-  "T/m": ["FluxDensityGradient", 1],
-  "1/H": ["Reluctance", 1],
-  "A/Wb": ["Reluctance", 1],
-  At: ["Current", 1],
-  G: ["FluxDensity", 1e-4],
-  mG: ["FluxDensity", 1e-7],
-  Mx: ["MagneticFlux", 1e-8],
-  Oe: ["MagneticFieldStrength", 1000 / (4 * Math.PI)],
-  Da: ["Mass", 1.66053906892e-27],
-  u: ["Mass", 1.66053906892e-27],
-} as const;
-
-type Fixed = typeof FIXED;
-type Prefixable = typeof PREFIXABLE;
-
-/** Every unit symbol literal the typed API accepts. */
-export type UnitSymbol = keyof Fixed | `${Prefix}${PrefixableSymbol}`;
-
-type DimNameOf<U extends string> = U extends keyof Fixed
-  ? Fixed[U][0]
-  : U extends `${Prefix}${infer B}`
-    ? B extends PrefixableSymbol
-      ? Prefixable[B][0]
-      : never
-    : never;
-
-/** The quantity type a unit symbol measures: `QuantityOf<"pF">` is `Capacitance`. */
-export type QuantityOf<U extends UnitSymbol> = DimensionTypes[DimNameOf<U>];
-
-/** Unit symbols whose quantity type is Q (for `inUnit`). */
-export type UnitFor<Q extends number> = {
-  [U in UnitSymbol]: [QuantityOf<U>] extends [Q] ? ([Q] extends [QuantityOf<U>] ? U : never) : never;
-}[UnitSymbol];
-
-/**
- * A table entry: dimension name, SI factor (the double nearest the exact
- * factor), and the factor as a decimal (coefficient, power of ten) when it is
- * one, so that `quantity(10, "uH")` is exactly the double nearest 1e-5.
- * Factors that are not decimals (deg = pi/180, Oe = 1000/(4 pi)) have none.
- */
-export type UnitEntry = readonly [dimension: string, factor: number, decimal: DecimalFactor | undefined];
+export type UnitEntry = readonly [factor: number, decimal: DecimalFactor | undefined];
 
 let table: Map<string, UnitEntry> | undefined;
 
-function entry(dim: string, factor: number, prefixExponent = 0): UnitEntry {
+function entry(factor: number, prefixExponent = 0): UnitEntry {
   const d = decimalFactor(factor);
-  if (d === undefined) return [dim, factor * 10 ** prefixExponent, undefined];
+  if (d === undefined) return [factor * 10 ** prefixExponent, undefined];
   const exact: DecimalFactor = [d[0], d[1] + prefixExponent];
-  return [dim, scaleDecimal("1", exact[0], exact[1])!, exact];
+  return [scaleDecimal("1", exact[0], exact[1])!, exact];
 }
 
 function buildTable(): Map<string, UnitEntry> {
   const t = new Map<string, UnitEntry>();
-  for (const [sym, [dim, f]] of Object.entries(PREFIXABLE)) {
-    for (const [p, pe] of Object.entries(PREFIXES)) t.set(p + sym, entry(dim, f, pe));
+  for (const [sym, f] of Object.entries(PREFIXABLE_FACTORS)) {
+    for (const [p, pe] of Object.entries(PREFIX_EXPONENTS)) t.set(p + sym, entry(f, pe));
   }
   // Fixed symbols win where a prefix happens to spell the same text ("min", "mG").
-  for (const [sym, [dim, f]] of Object.entries(FIXED)) t.set(sym, entry(dim, f));
+  for (const [sym, f] of Object.entries(FIXED_FACTORS)) t.set(sym, entry(f));
   return t;
 }
 
-/** [dimension name, SI factor, decimal factor] of a unit symbol, or undefined if the symbol is not in the table. */
+/** [SI factor, decimal factor] of a unit symbol, or undefined if the symbol is not in the table. */
 export function lookupUnit(symbol: string): UnitEntry | undefined {
   table ??= buildTable();
   return table.get(symbol);
 }
 
-/** Every unit symbol of the typed table (prefixed forms spelled out), for tests and docs. */
+/** Every unit symbol of the typed table (prefixed forms spelled out), for tests, hints and docs. */
 export function listUnitSymbols(): string[] {
   table ??= buildTable();
   return [...table.keys()];

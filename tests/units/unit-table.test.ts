@@ -1,4 +1,6 @@
+import { readFileSync } from "node:fs";
 import Decimal from "decimal.js";
+import { renderUnitFactors } from "../../scripts/gen-unit-factors.js";
 import fc from "fast-check";
 import { unit as globalUnit } from "mathjs";
 import { describe, expect, it } from "vitest";
@@ -7,6 +9,7 @@ import { DIMENSIONS, type DimensionName, sameExponents } from "../../src/units/d
 import { createUnitMath, parseQuantity, unitMath } from "../../src/units/parse.js";
 import { inUnit, quantity } from "../../src/units/quantity.js";
 import { listUnitSymbols, lookupUnit } from "../../src/units/unit-table.js";
+import { unitDimension } from "../../src/units/unit-symbols.js";
 import { expectClose } from "../helpers/reference.js";
 
 // Untyped views of the typed API, so every table symbol can be fed from a list.
@@ -32,15 +35,20 @@ const globalBefore = {
 const SYMBOLS = listUnitSymbols();
 
 describe("typed unit table against the private mathjs instance", () => {
+  it("the factors the typed path reads are the ones the table declares (unit-factors.ts is current)", () => {
+    expect(readFileSync(new URL("../../src/units/unit-factors.ts", import.meta.url), "utf8"), "run: npx tsx scripts/gen-unit-factors.ts").toBe(renderUnitFactors());
+  });
+
   it("has a few hundred symbols, each with a declared dimension", () => {
     expect(SYMBOLS.length).toBeGreaterThan(300);
-    for (const s of SYMBOLS) expect(Object.hasOwn(DIMENSIONS, lookupUnit(s)![0]), s).toBe(true);
+    for (const s of SYMBOLS) expect(Object.hasOwn(DIMENSIONS, unitDimension(s)!), s).toBe(true);
   });
 
   it("every symbol has the same SI factor (to 1e-15) and dimension as mathjs reads it", () => {
     // Outside reference: mathjs 15.2.0 unit definitions (plus the trade units checked below).
     for (const s of SYMBOLS) {
-      const [dim, factor] = lookupUnit(s)!;
+      const [factor] = lookupUnit(s)!;
+      const dim = unitDimension(s)!;
       const parsed = parseQuantity(`1 ${s}`);
       expectClose(parsed.si, { name: `1 ${s}`, expected: factor, tolerance: 1e-15, source: "mathjs 15.2.0 unit definition" });
       expect(sameExponents(parsed.exps, DIMENSIONS[dim as DimensionName].exps), `dimension of ${s}`).toBe(true);
