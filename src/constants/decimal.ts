@@ -1,7 +1,6 @@
-// The named export: under node16/nodenext a CommonJS consumer's default import of
-// decimal.js is its module namespace, which cannot name a type (TS2709).
-import { Decimal } from "decimal.js";
+import type { Decimal } from "decimal.js";
 import type { CodataRecord } from "./codata.js";
+import { loadDecimal } from "./load-decimal.js";
 
 /**
  * High-precision values of CODATA records, as decimal.js numbers. Kept apart
@@ -17,11 +16,11 @@ import type { CodataRecord } from "./codata.js";
  * const c = constantDecimal(constant("speedOfLight"), D);
  * D.div(1, mu0.times(c.pow(2))); // ≈ 8.8541878188e-12 (eps0)
  */
-export function constantDecimal(record: CodataRecord, D: typeof Decimal = Decimal): Decimal {
+export function constantDecimal(record: CodataRecord, D: typeof Decimal = loadDecimal()): Decimal {
   return new D(record.decimal);
 }
 
 /** The record's standard uncertainty as a decimal.js number (zero for exact values). */
-export function uncertaintyDecimal(record: CodataRecord, D: typeof Decimal = Decimal): Decimal {
+export function uncertaintyDecimal(record: CodataRecord, D: typeof Decimal = loadDecimal()): Decimal {
   return new D(record.uncertainty);
 }
