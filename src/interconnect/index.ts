@@ -8,3 +8,4 @@ export {
 } from "./planar.js";
 export { lineCouplingCoefficient, nearEndCrosstalk } from "./coupling.js";
 export { viaInductance, traceInductance, traceResistance } from "./parasitics.js";
+export { traceCurrentForTemperatureRise } from "./current-capacity.js";

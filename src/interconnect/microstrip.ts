@@ -150,6 +150,29 @@ function dispersiveImpedance(u: number, er: number, line: StaticLine, eef: numbe
   return line.z0 * Math.pow(r13 / r14, r17);
 }
 
+/**
+ * Below this substrate permittivity the frequency-dependent impedance is not taken from Jansen and
+ * Kirschning's expression directly. Its factor (R13/R14)^R17 has R13 = 0.9408 eps_eff(f)^R8 - 0.9603
+ * and R14 = (0.9408 - R9) eps_eff(0)^R8 - 0.9603, which pass through zero where eps_eff^R8 is near
+ * 0.9603/0.9408 = 1.0207: for substrates below about 1.05 the ratio is 0/0-like and swings wildly
+ * (measured for w/h = 1 at f h = 39 GHz mm: 77 ohm at epsr 1.025, 223 ohm at 1.035, against 125 ohm
+ * quasi-static) or is negative (NaN). From 1.1 up, R14 > 0.03 for every width and the ratio is regular.
+ */
+const NEAR_AIR = 1.1;
+
+/**
+ * The frequency-dependent impedance. For 1 < epsr < 1.1 (see NEAR_AIR) the logarithm of Jansen and
+ * Kirschning's frequency factor at epsr = 1.1 is scaled by (epsr - 1)/0.1: continuous at 1.1, and
+ * exact at epsr = 1, where a line in one medium has no dispersion. That interpolation is ours, not a
+ * published model (the near_air_substrate warning says so).
+ */
+function impedanceAt(u: number, t: number, er: number, line: StaticLine, fn: number): number {
+  if (er >= NEAR_AIR || er === 1) return dispersiveImpedance(u, er, line, dispersivePermittivity(u, er, line.ee0, fn), fn);
+  const ref = staticLine(u, t, NEAR_AIR);
+  const factor = dispersiveImpedance(u, NEAR_AIR, ref, dispersivePermittivity(u, NEAR_AIR, ref.ee0, fn), fn) / ref.z0;
+  return line.z0 * Math.exp((Math.log(factor) * (er - 1)) / (NEAR_AIR - 1));
+}
+
 const INPUTS = [
   { name: "width", dimension: "Length", description: "Width of the strip", domain: POSITIVE, example: 3e-4 },
   { name: "height", dimension: "Length", description: "Thickness of the substrate between the strip and the ground plane", domain: POSITIVE, example: 1.6e-4 },
@@ -234,7 +257,10 @@ function microstripValidity(staticRange: string) {
  * Stated accuracy: Z01 better than 0.01 % for u <= 1 and 0.03 % for u <= 1000;
  * eps_eff better than 0.2 % for epsr <= 128 and 0.01 <= u <= 100; frequency
  * model within about 0.6 % up to h/lambda0 = 0.13 (all from memory). Losses,
- * the ground plane's finite extent and the cover are neglected.
+ * the ground plane's finite extent and the cover are neglected. Jansen and
+ * Kirschning's impedance expression is singular for substrates just above air
+ * (below about 1.05): for 1 < epsr < 1.1 its frequency factor is interpolated
+ * between air and epsr = 1.1 (warned as near_air_substrate; see NEAR_AIR).
  *
  * @example
  * microstripImpedance({ width: quantity(3, "mm"), height: quantity(1.6, "mm"), relativePermittivity: 4.4 }); // ≈ 50 ohm
@@ -248,15 +274,24 @@ export const microstripImpedance = /* @__PURE__ */ defineFormula({
   equation: "Z0 = (eta0 / (2 pi sqrt(eps_eff))) ln( f(u)/u + sqrt(1 + 4/u^2) ), u = w/h, f(u) = 6 + (2 pi - 6) exp(-(30.666/u)^0.7528)",
   inputs: INPUTS,
   output: { dimension: "Resistance", description: "Characteristic impedance" },
-  validity: microstripValidity("Z01 to 0.03 % and eps_eff to 0.2 %"),
+  validity: [
+    ...microstripValidity("Z01 to 0.03 % and eps_eff to 0.2 %"),
+    {
+      code: "near_air_substrate",
+      when: (x: MicrostripInputs) => x.frequency > 0 && x.relativePermittivity > 1 && x.relativePermittivity < NEAR_AIR,
+      measure: (x: MicrostripInputs) => NEAR_AIR / x.relativePermittivity,
+      message: (x: MicrostripInputs) =>
+        `relativePermittivity ${formatNumber(x.relativePermittivity)} is below 1.1, where Jansen and Kirschning's (1983) frequency-dependent impedance is singular (its R13 and R14 pass through zero near eps_eff = 1.02); ` +
+        "the frequency factor here is interpolated between air (no dispersion) and its value at 1.1, an estimate of this library and not a published model: the quasi-static impedance is reliable, its frequency change is not",
+    },
+  ],
   source: [HAMMERSTAD_JENSEN, KIRSCHNING_JANSEN, JANSEN_KIRSCHNING],
   compute: (x) => {
     const u = x.width / x.height;
     const er = x.relativePermittivity;
     const line = staticLine(u, x.thickness / x.height, er);
     if (x.frequency === 0) return line.z0;
-    const fn = normalisedFrequency(x.frequency, x.height);
-    return dispersiveImpedance(u, er, line, dispersivePermittivity(u, er, line.ee0, fn), fn);
+    return impedanceAt(u, x.thickness / x.height, er, line, normalisedFrequency(x.frequency, x.height));
   },
 });
 

@@ -9,6 +9,13 @@ export const CATEGORY = "transmission line";
 /** Impedance of free space eta0 = mu0 c, ohm (CODATA 2022 mu0, exact c). */
 export const ETA0 = MU0 * SPEED_OF_LIGHT;
 
+/**
+ * A trace rise above 45 K puts copper in a 25 degC room above 70 degC, where brief contact can
+ * burn (touch-temperature limits for accessible parts, e.g. IEC 62368-1; from memory): the same
+ * threshold as the windings' hot surface.
+ */
+export const HOT_TRACE_RISE = 45;
+
 /** The substrate's relative permittivity: 1 for air, 4.4 for a typical glass-epoxy board. */
 export const SUBSTRATE_PERMITTIVITY = {
   dimension: "Dimensionless",

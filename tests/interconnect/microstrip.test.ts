@@ -103,6 +103,31 @@ describe("microstrip properties", () => {
     expect(rel(ee({ u: 1, er: 9.8, f: 1e15 }), 9.8)).toBeLessThan(1e-6);
   });
 
+  it("near air (1 < epsr < 1.1) the frequency-dependent impedance neither swings nor fails, joins the model at 1.1 and tends to the air value", () => {
+    // Jansen and Kirschning's (R13/R14)^R17 passes through 0/0 for substrates near 1.02-1.05: before the
+    // interpolation below 1.1, w/h = 1 at f h = 39 GHz mm gave 77 ohm at epsr 1.025 and 223 ohm at 1.035
+    // (quasi-static 125 ohm), and NaN (out_of_range) between. Now the frequency factor Z(f)/Z(0) stays
+    // between 1 and its value at 1.1.
+    fc.assert(fc.property(fc.double({ min: 0.1, max: 20, noNaN: true }), fc.double({ min: 1 + 1e-9, max: 1.1 - 1e-9, noNaN: true }), fc.double({ min: 0.1, max: 39, noNaN: true }), (w, e, f) => {
+      const ratio = z({ u: w, er: e, f: f * 1e9 }) / z({ u: w, er: e });
+      const at11 = z({ u: w, er: 1.1, f: f * 1e9 }) / z({ u: w, er: 1.1 });
+      expect(Math.abs(Math.log(ratio))).toBeLessThanOrEqual(Math.abs(Math.log(at11)) * (1 + 1e-12));
+      expect(Math.sign(Math.log(ratio))).toBe(Math.sign(Math.log(at11)));
+    }));
+    for (const w of [0.1, 1, 10]) {
+      // Continuous at 1.1 (the model itself above, the interpolation below).
+      expect(rel(z({ u: w, er: 1.1 * (1 - 1e-12), f: 3e10 }), z({ u: w, er: 1.1, f: 3e10 }))).toBeLessThan(1e-10);
+      // Tends to the air value, which has no dispersion.
+      expect(rel(z({ u: w, er: 1 + 1e-12, f: 3e10 }), z({ u: w, er: 1, f: 3e10 }))).toBeLessThan(1e-10);
+    }
+    const r = evaluate("microstripImpedance", { width: "1 mm", height: "1 mm", relativePermittivity: 1.03, frequency: "38 GHz" });
+    expect(r.warnings.map((x) => x.code)).toEqual(["near_air_substrate"]);
+    expect(r.value as number).toBeGreaterThan(125);
+    expect(r.value as number).toBeLessThan(140);
+    // The effective permittivity (Kirschning and Jansen 1982) is regular there and gets no such warning.
+    expect(evaluate("microstripEffectivePermittivity", { width: "1 mm", height: "1 mm", relativePermittivity: 1.03, frequency: "38 GHz" }).warnings).toEqual([]);
+  });
+
   it("depends on the geometry only through ratios, and on frequency only through f h", () => {
     fc.assert(fc.property(u, er, tRatio, fn, fc.integer({ min: -40, max: 40 }), (w, e, t, f, k) => {
       const s = 2 ** k;

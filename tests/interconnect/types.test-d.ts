@@ -3,7 +3,7 @@
 import {
   coaxialImpedance, lineInputImpedance, microstripEffectivePermittivity, microstripImpedance, propagationDelay, quantity,
   reflectionCoefficient, twoWireImpedance, striplineImpedance, coplanarWaveguideImpedance, coupledMicrostripImpedance,
-  type Length, type Resistance, type Time,
+  traceCurrentForTemperatureRise, type Current, type Length, type Resistance, type Time,
 } from "../../src/index.js";
 
 const w: Length = quantity(0.3, "mm");
@@ -43,3 +43,12 @@ export const ok3 = [
 coplanarWaveguideImpedance({ width: w, gap: h, height: h, backing: "metal" });
 // @ts-expect-error the mode is required
 coupledMicrostripImpedance({ width: w, spacing: h, height: h });
+
+const amps: Current = traceCurrentForTemperatureRise({ width: w, thickness: quantity(35, "um"), temperatureRise: quantity(10, "K"), layer: "internal" });
+export const ok4 = [amps];
+// @ts-expect-error the layer is "external" or "internal"
+traceCurrentForTemperatureRise({ width: w, thickness: h, temperatureRise: quantity(10, "K"), layer: "outer" });
+// @ts-expect-error the rise is a Temperature, not a plain number
+traceCurrentForTemperatureRise({ width: w, thickness: h, temperatureRise: 10 });
+// @ts-expect-error the result is a Current, not a Length
+export const wrongAmps: Length = traceCurrentForTemperatureRise({ width: w, thickness: h, temperatureRise: quantity(10, "K") });

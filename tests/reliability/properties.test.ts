@@ -38,6 +38,7 @@ const NOT_SIMILITUDE_INVARIANT: Readonly<Record<string, string>> = {
   wireGaugeDiameter: "a gauge names a fixed diameter (ASTM B258 defines 36 AWG as 0.005 in)",
   wireResistance: "the material's standard resistivity and temperature coefficient are fixed dimensional constants",
   temperatureRise: "McLyman's fit is empirical, with units fitted to K for W/cm^2",
+  traceCurrentForTemperatureRise: "the IPC-2221 fit is empirical, with units fitted to A for K and square mils",
 };
 let tried = 0;
 const similitudeOnlyGeometric: string[] = [];
