@@ -5,3 +5,4 @@ export { dowellAcResistanceFactor, dowellRoundWireAcResistanceFactor } from "./d
 export { resonantFrequency, lcCharacteristicImpedance, seriesQualityFactor } from "./resonance.js";
 export { rogowskiMutualInductance } from "./rogowski.js";
 export { temperatureRise } from "./thermal.js";
+export { laminationEddyLoss } from "./lamination.js";
