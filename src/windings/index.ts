@@ -6,3 +6,4 @@ export { resonantFrequency, lcCharacteristicImpedance, seriesQualityFactor } fro
 export { rogowskiMutualInductance } from "./rogowski.js";
 export { temperatureRise } from "./thermal.js";
 export { laminationEddyLoss } from "./lamination.js";
+export { solenoidInductanceRoundWire } from "./solenoid.js";
