@@ -10,7 +10,7 @@ const PI_MU0 = Math.PI * MU0; // two roundings: within 1 ulp of pi mu0
 /** 100 omega eps0 per hertz: conduction current must exceed displacement current a hundredfold. */
 export const GOOD_CONDUCTOR_PER_HZ = 100 * 2 * Math.PI * EPSILON0;
 /** Loss density above which a core runs hot, W/m^3 (500 mW/cm^3; common practice). */
-const HOT_CORE_DENSITY = 500e3;
+export const HOT_CORE_DENSITY = 500e3;
 const ONE = /* @__PURE__ */ Scaled.of(1);
 
 /**

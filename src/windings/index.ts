@@ -5,3 +5,5 @@ export { dowellAcResistanceFactor, dowellRoundWireAcResistanceFactor } from "./d
 export { resonantFrequency, lcCharacteristicImpedance, seriesQualityFactor } from "./resonance.js";
 export { rogowskiMutualInductance } from "./rogowski.js";
 export { temperatureRise } from "./thermal.js";
+export { laminationEddyLoss } from "./lamination.js";
+export { solenoidInductanceRoundWire } from "./solenoid.js";

@@ -100,6 +100,8 @@ function checkFormula(f: AnyFormula, ex: Inputs): void {
     const p = powerLaw(f, ex, fam, b);
     if (p === undefined) notPowerLaw.push(`${f.id}/${fam.label}`);
     for (const k of [...MODERATE, ...EXTREME]) {
+      // A volume scaled by (1e150)^3 is beyond the doubles: no legal input to try.
+      if (!Object.values(scaled(ex, fam, k)).flat().every((v) => typeof v !== "number" || Number.isFinite(v))) continue;
       const o = at(f, ex, fam, k);
       const where = `${f.id}: ${fam.label} x ${k}`;
       const moderate = MODERATE.includes(k);

@@ -1,5 +1,5 @@
 // Compile-time checks for the windings family: each @ts-expect-error line must be a type error.
-import { dowellAcResistanceFactor, dowellRoundWireAcResistanceFactor, quantity, roundWireAcResistanceFactor, wireGaugeDiameter, wireResistance, type Length, type Resistance } from "../../src/index.js";
+import { dowellAcResistanceFactor, dowellRoundWireAcResistanceFactor, laminationEddyLoss, quantity, roundWireAcResistanceFactor, solenoidInductanceRoundWire, wireGaugeDiameter, wireResistance, type Inductance, type Length, type Power, type Resistance } from "../../src/index.js";
 
 export const d: Length = wireGaugeDiameter({ gauge: "4/0" });
 export const r: Resistance = wireResistance({ length: quantity(2, "m"), diameter: d, temperature: quantity(350, "K"), material: "aluminium" });
@@ -23,3 +23,13 @@ export const fw: number = dowellRoundWireAcResistanceFactor({ layers: 3, wireDia
 dowellRoundWireAcResistanceFactor({ layers: 3, wireDiameter: d, pitch: 0.6, frequency: quantity(100, "kHz") });
 // @ts-expect-error the penetration ratio is required
 dowellAcResistanceFactor({ layers: 4 });
+export const pe: Power = laminationEddyLoss({ thickness: quantity(0.35, "mm"), conductivity: quantity(2, "MS/m"), frequency: quantity(50, "Hz"), peakFluxDensity: quantity(1.5, "T"), volume: quantity(100, "cm^3") });
+// @ts-expect-error the volume is a Volume, not an area
+laminationEddyLoss({ thickness: quantity(0.35, "mm"), conductivity: quantity(2, "MS/m"), frequency: quantity(50, "Hz"), peakFluxDensity: quantity(1.5, "T"), volume: quantity(100, "cm^2") });
+// @ts-expect-error the conductivity has no default
+laminationEddyLoss({ thickness: quantity(0.35, "mm"), frequency: quantity(50, "Hz"), peakFluxDensity: quantity(1.5, "T"), volume: quantity(100, "cm^3") });
+export const ls: Inductance = solenoidInductanceRoundWire({ turns: 20, radius: quantity(1, "cm"), length: quantity(2, "cm"), wireDiameter: quantity(0.8, "mm") });
+// @ts-expect-error the wire diameter is required: without it this is solenoidInductance
+solenoidInductanceRoundWire({ turns: 20, radius: quantity(1, "cm"), length: quantity(2, "cm") });
+// @ts-expect-error an inductance is not a length
+export const wrongSolenoid: Length = solenoidInductanceRoundWire({ turns: 20, radius: quantity(1, "cm"), length: quantity(2, "cm"), wireDiameter: quantity(0.8, "mm") });
