@@ -26,12 +26,14 @@ export function sheetField(radius: number, length: number, rho: number, z: numbe
   return SHEET;
 }
 
-/** The rim of the sheet (rho = R, |z| = L/2): B_rho is logarithmically infinite there. */
-export const NOT_ON_RIM = {
-  rule: "the point is not on the rim of the winding's ends (radialDistance = radius with |axialDistance| = length/2)",
-  holds: (x: { radius: number; length: number; radialDistance: number; axialDistance: number }) =>
-    !(x.radialDistance === x.radius && Math.abs(x.axialDistance) === x.length / 2),
-};
+/** The rim of the sheet (rho = R, |z| = L/2): B_rho is logarithmically infinite there. `ends` names them. */
+export function notOnRim(ends: string) {
+  return {
+    rule: `the point is not on the rim of the ${ends} (radialDistance = radius with |axialDistance| = length/2), where the radial field is infinite`,
+    holds: (x: { radius: number; length: number; radialDistance: number; axialDistance: number }) =>
+      !(x.radialDistance === x.radius && Math.abs(x.axialDistance) === x.length / 2),
+  };
+}
 
 /**
  * Flux density of a finite solenoid (current sheet) at any point, off the axis too.
@@ -59,7 +61,7 @@ export const NOT_ON_RIM = {
  * Reference: N. Derby and S. Olbert, Am. J. Phys. 78 (2010) 229, eqs. for B_rho and B_z with cel.
  *
  * @example
- * solenoidField({ current: quantity(1, "A"), turns: 1000, radius: quantity(1, "cm"), length: quantity(10, "cm"), radialDistance: quantity(5, "mm"), axialDistance: quantity(2, "cm") }); // ≈ [2.2e-5, 1.22e-2] T
+ * solenoidField({ current: quantity(1, "A"), turns: 1000, radius: quantity(1, "cm"), length: quantity(10, "cm"), radialDistance: quantity(5, "mm"), axialDistance: quantity(2, "cm") }); // ≈ [4.37e-5, 1.22e-2] T
  */
 export const solenoidField = /* @__PURE__ */ defineFormula({
   id: "solenoidField",
@@ -76,7 +78,7 @@ export const solenoidField = /* @__PURE__ */ defineFormula({
     { name: "axialDistance", dimension: "Length", description: "Signed distance of the point along the axis from the winding's centre", example: 0.02 },
   ],
   output: { dimension: "FluxDensity", description: "Flux density components (radial outward, axial along the winding's field for positive current)", components: ["radial", "axial"] },
-  relations: [NOT_ON_RIM],
+  relations: [notOnRim("winding's ends")],
   validity: [
     {
       code: "coarse_pitch",
