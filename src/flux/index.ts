@@ -7,6 +7,7 @@ export { skinDepth, coreLoss } from "./losses.js";
 export {
   wireField, loopAxialField, loopField, solenoidAxialField, helmholtzCenterField, toroidField,
 } from "./field-sources.js";
+export { solenoidField } from "./solenoid-field.js";
 export { pointChargeField, lineChargeField, chargedSphereField } from "./electric-fields.js";
 export { solveMagneticCircuit } from "./circuit-solver.js";
 export type { MagneticBranch, MagneticCircuit, MagneticCircuitSolution } from "./circuit-solver.js";

@@ -1,1 +1,1 @@
-export { cylinderMagnetAxialField } from "./cylinder.js";
+export { cylinderMagnetAxialField, cylinderMagnetField } from "./cylinder.js";
