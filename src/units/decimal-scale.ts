@@ -43,6 +43,16 @@ export function scaleDecimal(text: string, coefficient: number | bigint, exponen
   const digits = m[2]! + frac;
   if (digits === "") return undefined;
   const e = (m[4] === undefined ? 0 : Number(m[4])) - frac.length + exponent;
+  // Fast path (Clinger 1990, "How to read floating point numbers accurately"): digits times
+  // coefficient exact below 2^53 and an exact power of ten, so one operation rounds once.
+  const c = Number(coefficient);
+  if (digits.length <= 15 && e >= -22 && e <= 22 && c < 9007199254740992) {
+    const whole = Number(digits) * c;
+    if (whole < 9007199254740992) {
+      const v = e >= 0 ? whole * EXACT_POWERS[e]! : whole / EXACT_POWERS[-e]!;
+      return m[1] === "-" ? -v : v;
+    }
+  }
   // A string of digits: BigInt keeps the product exact; Number() rounds once.
   return Number(`${m[1]}${BigInt(digits) * BigInt(coefficient)}e${e}`);
 }
