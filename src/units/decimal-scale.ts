@@ -43,22 +43,12 @@ export function scaleDecimal(text: string, coefficient: number | bigint, exponen
   const digits = m[2]! + frac;
   if (digits === "") return undefined;
   const e = (m[4] === undefined ? 0 : Number(m[4])) - frac.length + exponent;
-  // Fast path (Clinger 1990, "How to read floating point numbers accurately"): digits times
-  // coefficient exact below 2^53 and an exact power of ten, so one operation rounds once.
-  const c = Number(coefficient);
-  if (digits.length <= 15 && e >= -22 && e <= 22 && c < 9007199254740992) {
-    const whole = Number(digits) * c;
-    if (whole < 9007199254740992) {
-      const v = e >= 0 ? whole * EXACT_POWERS[e]! : whole / EXACT_POWERS[-e]!;
-      return m[1] === "-" ? -v : v;
-    }
-  }
   // A string of digits: BigInt keeps the product exact; Number() rounds once.
   return Number(`${m[1]}${BigInt(digits) * BigInt(coefficient)}e${e}`);
 }
 
 // Powers of ten that are doubles exactly (10^22 is the last).
-const EXACT_POWERS = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22];
+export const EXACT_POWERS = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15, 1e16, 1e17, 1e18, 1e19, 1e20, 1e21, 1e22];
 
 /**
  * `value` (read as its shortest decimal) times the decimal factor, correctly
