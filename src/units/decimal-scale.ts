@@ -50,7 +50,7 @@ export function scaleDecimal(text: string, coefficient: number | bigint, exponen
 // Powers of ten that are doubles exactly (10^22 is the last), read from their
 // decimal text (exact) rather than computed with ** (Math.pow need not be
 // correctly rounded) and rather than written out (23 literals in every bundle).
-const EXACT_POWERS = /* @__PURE__ */ Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
+export const EXACT_POWERS = /* @__PURE__ */ Array.from({ length: 23 }, (_, k) => Number(`1e${k}`));
 
 /**
  * `value` (read as its shortest decimal) times the decimal factor, correctly

@@ -1,9 +1,10 @@
-import type { MathJsInstance } from "mathjs";
+import type { MathJsInstance, Unit } from "mathjs";
 import { FormulaError } from "../core/errors.js";
 import type { Exponents } from "./dimensions.js";
 import { loadSubsetMath } from "./load-subset.js";
-import { exactSI } from "./parse-exact.js";
+import { exactSI, type UnitTerms } from "./parse-exact.js";
 import { unknownUnitDetail } from "./unit-hint.js";
+import { readUnitString } from "./unit-reader.js";
 
 /**
  * Run-time unit strings ("0.2 mm", "4.7 uF") are read by mathjs, on a private
@@ -64,8 +65,12 @@ export interface ParsedQuantity {
 }
 
 const MAX_TEXT = 200;
-const CACHE_LIMIT = 4096;
-const cache = new Map<string, ParsedQuantity>();
+// Two generations of at most CACHE_GENERATION strings each: a hit in the older one moves
+// the string to the newer; when the newer is full it becomes the older and the oldest go.
+// Bounded under hostile input, and strings in use survive a stream of fresh ones.
+const CACHE_GENERATION = 2048;
+let recent = new Map<string, ParsedQuantity>();
+let older = new Map<string, ParsedQuantity>();
 const PLAIN_NUMBER = /^\s*[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*$/;
 const ZERO: Exponents = Object.freeze([0, 0, 0, 0, 0, 0, 0, 0]) as Exponents;
 // The typed table writes reciprocal units "1/m^3", "1/H"; mathjs reads "5 /m^3" but not "5 1/m^3".
@@ -77,24 +82,41 @@ const RECIPROCAL = /^(\s*[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?\s+)1\s*\//;
  * Throws FormulaError "unparsable" (naming `input`) for anything else.
  */
 export function parseQuantity(text: string, input?: string, formula?: string): ParsedQuantity {
-  const hit = cache.get(text);
+  const hit = recent.get(text);
   if (hit !== undefined) return hit;
-  const parsed = parseUncached(text, input, formula);
-  if (cache.size >= CACHE_LIMIT) cache.clear(); // bounded memory under hostile input
-  cache.set(text, parsed);
+  const parsed = older.get(text) ?? parseUncached(text, input, formula);
+  if (recent.size >= CACHE_GENERATION) {
+    older = recent;
+    recent = new Map();
+  }
+  recent.set(text, parsed);
   return parsed;
 }
 
 function parseUncached(text: string, input?: string, formula?: string): ParsedQuantity {
-  const fail = (detail?: string): FormulaError =>
-    new FormulaError("unparsable", { input, formula, value: text, detail });
-  if (text.length > MAX_TEXT) throw fail(`longer than ${MAX_TEXT} characters`);
+  if (text.length > MAX_TEXT) {
+    throw new FormulaError("unparsable", { input, formula, value: text, detail: `longer than ${MAX_TEXT} characters` });
+  }
   const plainText = typography(text);
   if (PLAIN_NUMBER.test(plainText)) return Object.freeze({ si: Number(plainText), exps: ZERO, plain: true });
+  // The common strings ("0.2 mm", "kg*m/s^2") without mathjs; the rest, and every error, through mathjs.
+  return readUnitString(plainText) ?? parseWithMathjs(text, plainText, input, formula);
+}
+
+/**
+ * Read a unit string (already through `typography`) with mathjs. Exported for
+ * the tests that compare it with the fast reader; callers use parseQuantity.
+ */
+export function parseWithMathjs(text: string, plainText: string, input?: string, formula?: string): ParsedQuantity {
+  const fail = (detail?: string): FormulaError =>
+    new FormulaError("unparsable", { input, formula, value: text, detail });
   let unit;
   const unitText = plainText.replace(RECIPROCAL, "$1/");
   try {
-    unit = unitMath().unit(unitText);
+    // Unit.parse, not math.unit(): unit() first searches every unit name for the
+    // whole text (is it a bare unit?), most of the cost of a fresh string. A bare
+    // unit ("mm") parses here too, with no value, and is refused below.
+    unit = (unitMath().Unit.parse as (text: string, options: { allowNoUnits: boolean }) => Unit)(unitText, { allowNoUnits: true });
   } catch (e) {
     throw fail(unknownUnitDetail(e) ?? 'expected a number followed by a unit, e.g. "0.2 mm"');
   }
@@ -107,7 +129,7 @@ function parseUncached(text: string, input?: string, formula?: string): ParsedQu
   if (!d.every(Number.isFinite)) throw fail("unit exponents must be finite numbers");
   if (d[8] !== 0) throw fail("bits and bytes are not physical quantities here");
   const exps = Object.freeze([d[1], d[0], d[2], d[3], d[4], d[6], d[5], d[7]]) as unknown as Exponents;
-  return Object.freeze({ si: exactSI(unitText, unit, value), exps, plain: false });
+  return Object.freeze({ si: exactSI(unitText, unit as unknown as UnitTerms, value), exps, plain: false });
 }
 
 const SUPERSCRIPTS = "\u2070\u00b9\u00b2\u00b3\u2074\u2075\u2076\u2077\u2078\u2079";
@@ -135,5 +157,5 @@ function typography(text: string): string {
 
 /** Number of cached unit strings (for tests and diagnostics). */
 export function unitCacheSize(): number {
-  return cache.size;
+  return recent.size + older.size;
 }
