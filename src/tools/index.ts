@@ -12,3 +12,5 @@ export type { CatalogEntry, CatalogInput, CatalogNote } from "./catalog.js";
 export type { NoteSummary } from "./notes.js";
 export { createRandom } from "./random.js";
 export type { Random } from "./random.js";
+export { evaluateColumns, MAX_COLUMN_ROWS, ROW_ERROR_CODES } from "./columns.js";
+export type { ColumnInput, ColumnsOptions, ColumnsResult, RowErrorSummary, UnitColumn } from "./columns.js";
