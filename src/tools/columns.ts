@@ -250,3 +250,26 @@ function given(id: string, name: string, v: unknown, n: number, rows: number): F
   if (!Array.isArray(v) || v.length !== n) throw new FormulaError("invalid_argument", { formula: id, input: name, detail: `give ${n} Float64Arrays, one per component` });
   return v.map((a) => outputArray(id, name, a, rows, Float64Array)!);
 }
+
+/**
+ * A columns result as plain JSON: arrays for the typed arrays, null (JSON
+ * has no NaN) for the value of a failed row, and each row's error code as
+ * text (null when it computed). Used by the command line and emquant/http.
+ */
+export function columnsToJson(result: ColumnsResult): Record<string, unknown> {
+  const ok = result.errors;
+  const column = (values: Float64Array): (number | null)[] => Array.from(values, (v, i) => (ok[i] === 0 ? v : null));
+  const out = result.output;
+  return {
+    formula: result.formula,
+    rows: result.rows,
+    output: {
+      name: out.name, description: out.description, unit: out.unit, values: column(out.values),
+      ...(out.components ? { components: Object.fromEntries(Object.entries(out.components).map(([k, v]) => [k, column(v)])) } : {}),
+    },
+    errors: Array.from(result.errors, (e) => (e === 0 ? null : ROW_ERROR_CODES[e]!)),
+    failed: result.failed,
+    rowErrors: result.rowErrors,
+    notes: result.notes,
+  };
+}
