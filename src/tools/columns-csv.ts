@@ -139,7 +139,7 @@ function* splitRecords(text: string): Generator<{ cells: string[]; line: number 
 }
 
 /**
- * Evaluate a formula over the rows of a CSV table (see readCsvTable);
+ * Evaluate a formula over the rows of CSV text (or a table readCsvTable read);
  * `fixed` gives inputs that are the same for every row (numbers in SI or
  * unit strings). Each row gets its value or an error code, as evaluateColumns.
  *
@@ -149,12 +149,12 @@ function* splitRecords(text: string): Generator<{ cells: string[]; line: number 
  */
 export function evaluateCsv(
   formula: AnyFormula | string,
-  csv: string,
+  csv: string | CsvTable,
   fixed: Readonly<Record<string, unknown>> = {},
   options: CsvLimits & ColumnsOptions = {},
 ): ColumnsResult {
   const f = typeof formula === "string" ? getFormula(formula) : formula;
-  const table = readCsvTable(csv, options);
+  const table = typeof csv === "string" ? readCsvTable(csv, options) : csv;
   for (const name of Object.keys(fixed)) {
     if (table.names.includes(name)) throw new FormulaError("invalid_argument", { formula: f.id, input: name, detail: "given both as a CSV column and as a fixed value" });
   }
