@@ -1,5 +1,5 @@
 import { FormulaError } from "../core/errors.js";
-import type { AnyFormula } from "../core/formula.js";
+import { type AnyFormula, isFormula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
 import { type ColumnsOptions, type ColumnsResult, evaluateColumns, MAX_COLUMN_ROWS, ROW_ERROR_CODES } from "./columns.js";
 import type { UnitColumn } from "./columns-read.js";
@@ -153,7 +153,7 @@ export function evaluateCsv(
   fixed: Readonly<Record<string, unknown>> = {},
   options: CsvLimits & ColumnsOptions = {},
 ): ColumnsResult {
-  const f = typeof formula === "string" ? getFormula(formula) : formula;
+  const f = isFormula(formula) ? formula : getFormula(formula);
   const table = typeof csv === "string" ? readCsvTable(csv, options) : csv;
   for (const name of Object.keys(fixed)) {
     if (table.names.includes(name)) throw new FormulaError("invalid_argument", { formula: f.id, input: name, detail: "given both as a CSV column and as a fixed value" });

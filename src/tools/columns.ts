@@ -1,6 +1,6 @@
 import { convertInputs } from "../core/convert.js";
 import { FormulaError } from "../core/errors.js";
-import type { AnyFormula, Formula } from "../core/formula.js";
+import { type AnyFormula, type Formula, isFormula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
 import type { InputSpecs, OutputSpec } from "../core/spec.js";
 import { type ColumnShape, runRows } from "./columns-loop.js";
@@ -111,7 +111,8 @@ export function evaluateColumns<I extends InputSpecs, O extends OutputSpec>(
   inputs: { readonly [K in keyof I]?: ColumnInput | readonly (number | string)[] } | Readonly<Record<string, unknown>>,
   options: ColumnsOptions = {},
 ): ColumnsResult {
-  const f = typeof formula === "string" ? getFormula(formula) : (formula as unknown as AnyFormula);
+  // Anything but a formula is looked up by id, so a stray value is unknown_formula, not a TypeError.
+  const f = isFormula(formula) ? formula : getFormula(formula);
   return run(f, inputs, options);
 }
 
