@@ -8,6 +8,7 @@ import type { NoteSummary } from "../tools/notes.js";
 import { solveRequest } from "../tools/solve.js";
 import { sweepRequest, sweepToCsv, sweepToVegaLite } from "../tools/sweep.js";
 import { toleranceRequest } from "../tools/tolerance.js";
+import { columnsCommand } from "./columns.js";
 import { DIMENSIONS } from "../units/dimensions.js";
 import { engineering, formatBoth, formatQuantity } from "../units/display.js";
 import { type DesignFiles, designCommand } from "./design.js";
@@ -40,6 +41,12 @@ Usage:
                                               or "uniform(0.09 mm, 0.11 mm)"
   emquant sweep <formula> name=from..to [name=from..to] name=value ...
                                               a table over one or two inputs
+  emquant columns <formula> <file.csv> [name=value ...]
+                                              every row of a CSV table (header: input names, a unit
+                                              in parentheses optional, "gap (mm)"); name=value pairs
+                                              are the same for every row; a bad row gets an error
+                                              code, the others are computed; exit status 4 when
+                                              a row fails
   emquant design <file.json> [--tolerance] [--report out.html] [--md out.md]
                                               evaluate a design file (steps, derived quantities,
                                               checks); exit status 3 when a check fails
@@ -53,7 +60,7 @@ Options:
   --range lo..hi    solve: search only this range of the input, e.g. --range "0 V..1 kV"
   --points N        points per swept input (default 11)
   --log             geometric spacing for sweeps
-  --csv             sweep as CSV (the notes found on the grid go to stderr)
+  --csv             sweep or columns as CSV (the notes go to stderr)
   --chart           sweep as a Vega-Lite chart specification (JSON; notes to stderr)
   --tolerance       design: also run tolerance through the chain (uses --samples, --seed)
   --report FILE     design: write the calculation report as HTML
@@ -176,12 +183,12 @@ function notesText(warnings: readonly Note[], cautions: readonly Note[]): string
  * Note summaries of a sweep or tolerance analysis, one line each: the worst
  * point's message, then how many points raised it and where the worst was.
  */
-function summaryText(summaries: readonly NoteSummary[], over: number, units: Readonly<Record<string, string>>): string[] {
+function summaryText(summaries: readonly NoteSummary[], over: number, units: Readonly<Record<string, string>>, what = "points"): string[] {
   const ordered = [...summaries.filter((s) => s.kind === "caution"), ...summaries.filter((s) => s.kind === "warning")];
   return ordered.map((s) => {
     const at = Object.entries(s.worst.inputs).map(([k, v]) => `${k} = ${formatQuantity(v, units[k] ?? "")}`).join(", ");
     const head = s.kind === "caution" ? `CAUTION [${s.code}]` : `warning [${s.code}]`;
-    return `${head}: ${s.worst.message} (at ${s.count} of ${over} points; ${s.worst.measure !== undefined ? "worst" : "first"} at ${at})`;
+    return `${head}: ${s.worst.message} (at ${s.count} of ${over} ${what}; ${s.worst.measure !== undefined ? "worst" : "first"} at ${at})`;
   });
 }
 
@@ -223,6 +230,17 @@ export function runCli(argv: readonly string[], io: CliIO): number {
         return toleranceCommand(p, io, json);
       case "sweep":
         return sweepCommand(p, io, json);
+      case "columns": {
+        need(p, 2, "formula id and a CSV file");
+        if (!io.files) throw new UsageError("columns needs file access");
+        const id = p.positional[0]!;
+        return columnsCommand(
+          { formula: id, file: p.positional[1]!, fixed: inputsFrom(id, p.pairs), json, csv: p.flags.has("csv") },
+          io.files,
+          io,
+          (r) => summaryText(r.notes, r.rows - r.failed, Object.fromEntries(Object.entries(getFormula(id).definition.inputs as Record<string, InputSpec>).map(([k, s]) => [k, unitOf(s)])), "rows"),
+        );
+      }
       case "design": {
         need(p, 1, "a design file");
         if (!io.files) throw new UsageError("design needs file access");
@@ -256,7 +274,7 @@ export function runCli(argv: readonly string[], io: CliIO): number {
   }
 }
 
-const COMMANDS = ["list", "show", "compute", "solve", "tolerance", "sweep", "design", "help"];
+const COMMANDS = ["list", "show", "compute", "solve", "tolerance", "sweep", "columns", "design", "help"];
 
 /** '; did you mean "show"?' or "". */
 function hintFor(word: string, candidates: readonly string[]): string {

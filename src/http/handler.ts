@@ -25,6 +25,8 @@ import { FormulaError } from "../core/errors.js";
 import { catalogEntry, formulaCatalog, inputSchema } from "../tools/catalog.js";
 import { solveRequest } from "../tools/solve.js";
 import { sweepRequest } from "../tools/sweep.js";
+import { columnsToJson, evaluateColumns } from "../tools/columns.js";
+import { columnsToCsv, evaluateCsv, readCsvTable } from "../tools/columns-csv.js";
 import { toleranceRequest } from "../tools/tolerance.js";
 import type { HttpErrorCode } from "./codes.js";
 import { resolveLimits, type HandlerLimits } from "./limits.js";
@@ -103,7 +105,7 @@ function fromFormulaError(e: FormulaError, status: number): HttpResponse {
 }
 
 const GET_ROUTES = new Set(["/formulas", "/openapi.json"]);
-const POST_ROUTES = new Set(["/evaluate", "/solve", "/tolerance", "/sweep", "/design"]);
+const POST_ROUTES = new Set(["/evaluate", "/solve", "/tolerance", "/sweep", "/columns", "/design"]);
 
 function decode(text: string, what: string): string {
   try {
@@ -232,6 +234,41 @@ function sweepJson(body: Record<string, unknown>): unknown {
   };
 }
 
+/**
+ * A formula over columns: `inputs` holds the columns (arrays, one value per
+ * row) and the inputs fixed for every row; or `csv` holds the table as CSV
+ * text and `inputs` only the fixed inputs. Rows over the limit are refused
+ * before computing; `format: "csv"` answers the result table as CSV text.
+ */
+function columnsAnswer(body: Record<string, unknown>, limits: HandlerLimits): unknown {
+  for (const key of Object.keys(body)) {
+    if (key !== "formula" && key !== "inputs" && key !== "csv" && key !== "format") {
+      throw new HttpError(400, "bad_request", `unknown field "${key}"; a columns request has formula, inputs, csv and format`);
+    }
+  }
+  const format = body.format ?? "json";
+  if (format !== "json" && format !== "csv") throw new HttpError(400, "bad_request", 'format is "json" or "csv"');
+  const inputs = body.inputs ?? {};
+  let result;
+  if (body.csv !== undefined) {
+    if (typeof body.csv !== "string") throw new HttpError(400, "bad_request", "csv is the table as CSV text");
+    // The body limit bounds the text; the rows are counted before any computing.
+    const table = readCsvTable(body.csv);
+    if (table.rows > limits.maxColumnRows) throw overLimit("csv", limits.maxColumnRows, "rows");
+    result = evaluateCsv(body.formula as string, table, inputs as Record<string, unknown>);
+  } else {
+    if (isObject(inputs)) {
+      for (const [name, v] of Object.entries(inputs)) {
+        const n = Array.isArray(v) ? v.length : isObject(v) && Array.isArray(v.values) ? v.values.length : 0;
+        if (n > limits.maxColumnRows) throw overLimit(name, limits.maxColumnRows, "rows");
+      }
+    }
+    result = evaluateColumns(body.formula as string, inputs as Record<string, unknown>);
+  }
+  if (format === "csv") return { csv: columnsToCsv(result), failed: result.failed, rowErrors: result.rowErrors, notes: result.notes };
+  return columnsToJson(result);
+}
+
 /** A design evaluated, with tolerance through the chain and the report when asked; samples within the limit. */
 function designAnswer(body: Record<string, unknown>, limits: HandlerLimits): unknown {
   for (const key of Object.keys(body)) {
@@ -293,6 +330,8 @@ function route(request: HttpRequest, limits: HandlerLimits, document: () => unkn
     }
     case "/design":
       return ok(designAnswer(body, limits));
+    case "/columns":
+      return ok(columnsAnswer(body, limits));
     default:
       checkSweep(body, limits);
       return ok(sweepJson(body));
@@ -307,7 +346,7 @@ export type HandlerOptions = Partial<HandlerLimits>;
  * checked once here (a bad limit throws a RangeError at once).
  *
  * Routes: `GET /formulas` (`?category=`), `GET /formulas/{id}`, `GET /openapi.json`,
- * `POST /evaluate`, `/solve`, `/tolerance`, `/sweep`. The answer never throws.
+ * `POST /evaluate`, `/solve`, `/tolerance`, `/sweep`, `/columns`, `/design`. The answer never throws.
  *
  * @example
  * const handle = createHandler({ maxSweepPoints: 2000 });

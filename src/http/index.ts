@@ -8,7 +8,7 @@
  *   from the registry (also served at GET /openapi.json).
  *
  * Routes: GET /formulas (?category=), GET /formulas/{id}, GET /openapi.json,
- * POST /evaluate, /solve, /tolerance, /sweep. Status codes: 200 result with
+ * POST /evaluate, /solve, /tolerance, /sweep, /columns, /design. Status codes: 200 result with
  * its notes; 400 bad_json / bad_request / bad_escape; 404 not_found /
  * unknown_formula (in the path); 405 method_not_allowed; 413 body_too_large;
  * 422 a FormulaError code or over_limit. User input never gives 500.

@@ -1,3 +1,4 @@
+import { MAX_COLUMN_ROWS } from "../tools/columns-read.js";
 import { SOLVE_LIMITS } from "../tools/solve.js";
 
 /**
@@ -15,6 +16,8 @@ export interface HandlerLimits {
   readonly maxCornerInputs: number;
   /** Largest number of grid points of a sweep, both axes together (default 10000). */
   readonly maxSweepPoints: number;
+  /** Most rows of a columns request, JSON columns or CSV (default 10000; the body size limit applies too). */
+  readonly maxColumnRows: number;
   /** Widest solve search, in decades either side of the start value (default 50; the library allows 300). */
   readonly maxSolveDecades: number;
   /** Finest solve search, samples per decade (default 20; the library allows 100). */
@@ -27,6 +30,7 @@ export const DEFAULT_LIMITS: HandlerLimits = Object.freeze({
   maxSamples: 20_000,
   maxCornerInputs: 12,
   maxSweepPoints: 10_000,
+  maxColumnRows: 10_000,
   maxSolveDecades: 50,
   maxSolveSamplesPerDecade: 20,
 });
@@ -43,6 +47,7 @@ export function resolveLimits(options: Partial<HandlerLimits> = {}): HandlerLimi
     maxSamples: 1e6,
     maxCornerInputs: 16,
     maxSweepPoints: 4_000_000,
+    maxColumnRows: MAX_COLUMN_ROWS,
     maxSolveDecades: SOLVE_LIMITS.decades.max,
     maxSolveSamplesPerDecade: SOLVE_LIMITS.samplesPerDecade.max,
   };

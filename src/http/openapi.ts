@@ -128,6 +128,47 @@ function sharedSchemas(): Record<string, Schema> {
         notes: { type: "array", items: ref("NoteSummary") },
       },
     },
+    ColumnsResult: {
+      type: "object",
+      required: ["formula", "rows", "output", "errors", "failed", "rowErrors", "notes"],
+      properties: {
+        formula: { type: "string" },
+        rows: { type: "integer", minimum: 1 },
+        output: {
+          type: "object", required: ["name", "unit", "values"],
+          description: "one value per row in SI; null where the row failed (its code is in errors)",
+          properties: {
+            name: { type: "string" }, description: { type: "string" }, unit: { type: "string" },
+            values: { type: "array", items: { type: ["number", "null"] }, description: "for formulas with components: the first component" },
+            components: { type: "object", additionalProperties: { type: "array", items: { type: ["number", "null"] } } },
+          },
+        },
+        errors: { type: "array", items: { anyOf: [{ type: "null" }, { enum: [...ERROR_CODES] }] }, description: "per row: null, or the code of why it failed" },
+        failed: { type: "integer", minimum: 0 },
+        rowErrors: {
+          type: "array",
+          description: "per error code met: how many rows, and the first (row numbers from 0) with its message",
+          items: {
+            type: "object", required: ["code", "count", "first"],
+            properties: {
+              code: { enum: [...ERROR_CODES] }, count: { type: "integer", minimum: 1 },
+              first: { type: "object", required: ["row", "message"], properties: { row: { type: "integer", minimum: 0 }, input: { type: "string" }, message: { type: "string" } } },
+            },
+          },
+        },
+        notes: { type: "array", items: ref("NoteSummary") },
+      },
+    },
+    ColumnsCsvResult: {
+      type: "object",
+      required: ["csv", "failed", "rowErrors", "notes"],
+      properties: {
+        csv: { type: "string", description: "the result table: the output (a column per component) and an error column, one line per row" },
+        failed: { type: "integer", minimum: 0 },
+        rowErrors: { type: "array", items: { type: "object" } },
+        notes: { type: "array", items: ref("NoteSummary") },
+      },
+    },
     CatalogEntry: {
       type: "object",
       required: ["id", "title", "category", "description", "equation", "inputs", "output", "relations", "validity", "cautions", "sources"],
@@ -286,6 +327,43 @@ export function openApiDocument(limits: HandlerLimits = DEFAULT_LIMITS): Record<
         },
         "SweepResult",
       ),
+      "/columns": {
+        post: {
+          summary: `Evaluate a formula row by row over columns of inputs, as JSON arrays or CSV text (at most ${limits.maxColumnRows} rows); a bad row gets an error code and the others are computed`,
+          requestBody: {
+            required: true,
+            content: {
+              "application/json": {
+                schema: {
+                  type: "object",
+                  required: ["formula"],
+                  additionalProperties: false,
+                  properties: {
+                    formula,
+                    inputs: {
+                      type: "object",
+                      description: "per input: one value for every row (a number in SI, a unit string, a choice word), a column (an array, one number, unit string or choice word per row), or { values, unit } for bare numbers in a unit; with csv, only the inputs fixed for every row",
+                      additionalProperties: {
+                        anyOf: [
+                          ref("Quantity"),
+                          { type: "array", maxItems: limits.maxColumnRows, items: { anyOf: [{ type: "number" }, { type: "string" }] } },
+                          { type: "object", required: ["values", "unit"], additionalProperties: false, properties: { values: { type: "array", maxItems: limits.maxColumnRows, items: { anyOf: [{ type: "number" }, { type: "string" }] } }, unit: { type: "string" } } },
+                        ],
+                      },
+                    },
+                    csv: { type: "string", description: 'the table as CSV text: a header of input names, a unit in parentheses optional ("gap (mm)"), then one line per row; cells may carry their own units ("0.2 mm")' },
+                    format: { enum: ["json", "csv"], description: "csv: answer the result table as CSV text (default json)" },
+                  },
+                },
+              },
+            },
+          },
+          responses: {
+            200: json({ oneOf: [ref("ColumnsResult"), ref("ColumnsCsvResult")] }, "the rows' values and error codes with the notes"),
+            ...errors(400, 405, 413, 422),
+          },
+        },
+      },
       "/design": post(
         "Evaluate a design (a chain of formulas with checks), optionally with tolerance through the chain and a calculation report",
         {

@@ -8,6 +8,7 @@ import { loadFullMath } from "../units/load-full.js";
 import { addTradeUnits } from "../units/parse.js";
 import { catalogEntry } from "../tools/catalog.js";
 import { readQuantity } from "../tools/convert.js";
+import { columnsToJson, evaluateColumns } from "../tools/columns.js";
 import { formatQuantity } from "../units/display.js";
 import { notebookDesign } from "./design.js";
 import { BuiltinHelp, FormulaHelp, type MathjsDoc } from "./help.js";
@@ -41,7 +42,8 @@ export const DISABLED_ON_INSTANCE = ["import", "createUnit", "config"] as const;
  * formula is a function taking and returning mathjs Units, positional in the
  * definition's input order or as one object of named inputs, plus the trade's
  * units, plus `notes(name, ...same arguments)` returning the warnings and
- * cautions of a call. A formula's result carries its notes: a Unit (or a
+ * cautions of a call, plus `columns(name, {input: column, ...})` evaluating
+ * a formula row by row (evaluateColumns). A formula's result carries its notes: a Unit (or a
  * matrix of components) whose `notes` property holds the warnings and
  * cautions and whose text (`toString`, `format`, `math.format`) ends with one
  * line per note, so a notebook that prints results shows them with no second
@@ -86,6 +88,7 @@ export function createNotebookMath(options: NotebookOptions = {}): MathJsInstanc
     return { warnings: n.warnings.map((w) => ({ ...w })), cautions: n.cautions.map((c) => ({ ...c })) };
   };
   functions.design = (spec: unknown) => notebookDesign(math, spec);
+  functions.columns = (name: unknown, inputs: unknown) => notebookColumns(math, name, inputs);
   const { help, ...rest } = functions;
   math.import(rest, { override: false });
   math.import({ help }, { override: true });
@@ -103,6 +106,40 @@ export function createNotebookMath(options: NotebookOptions = {}): MathJsInstanc
   const properties: PropertyDescriptorMap = { evaluate: { value: guarded, enumerable: true } };
   for (const name of DISABLED_ON_INSTANCE) properties[name] = { value: locked[name], enumerable: true };
   return Object.create(math, properties) as MathJsInstance;
+}
+
+/**
+ * `columns(name, { input: value or column, ... })`: evaluateColumns from a
+ * notebook. A column is an array or matrix of numbers (SI), Units or unit
+ * strings; one value (a number, Unit or string) is the same for every row.
+ * Returns the JSON form of the result (columnsToJson): values in SI, null and
+ * an error code for each row that failed, the failed rows' messages and the
+ * notes with their row counts.
+ */
+function notebookColumns(math: MathJsInstance, name: unknown, inputs: unknown): unknown {
+  const f = getFormula(name);
+  const given = inputs instanceof Map ? Object.fromEntries(inputs) : inputs;
+  if (!isPlainObject(given)) {
+    throw new FormulaError("wrong_type", { formula: f.id, input: "inputs", value: inputs, expected: "an object of named inputs, e.g. {gap: [0.1 mm, 0.2 mm]}" });
+  }
+  const specs = f.definition.inputs as Readonly<Record<string, InputSpec>>;
+  const out: Record<string, unknown> = {};
+  for (const [k, raw] of Object.entries(given)) {
+    const spec = Object.hasOwn(specs, k) ? specs[k] : undefined;
+    const list = typeof (raw as { toArray?: unknown })?.toArray === "function" ? (raw as { toArray(): unknown[] }).toArray() : raw;
+    const vector = spec !== undefined && !("choices" in spec) && spec.vector === true;
+    // A Unit cell becomes its SI value when the dimension fits, else text mathjs reads back, so the row gets wrong_dimension.
+    const cell = (v: unknown): unknown => {
+      if (!isUnit(v) || spec === undefined || "choices" in spec) return v;
+      try {
+        return scalar(math, f.id, k, spec.dimension, v);
+      } catch {
+        return (v as Unit).format({ precision: 17 } as never);
+      }
+    };
+    out[k] = Array.isArray(list) && !vector ? list.map(cell) : vector ? raw : cell(raw);
+  }
+  return columnsToJson(evaluateColumns(f, out));
 }
 
 function isFormulaId(x: string): boolean {

@@ -12,3 +12,7 @@ export type { CatalogEntry, CatalogInput, CatalogNote } from "./catalog.js";
 export type { NoteSummary } from "./notes.js";
 export { createRandom } from "./random.js";
 export type { Random } from "./random.js";
+export { columnsToJson, evaluateColumns, MAX_COLUMN_ROWS, ROW_ERROR_CODES } from "./columns.js";
+export type { ColumnInput, ColumnsOptions, ColumnsResult, RowErrorSummary, UnitColumn } from "./columns.js";
+export { columnsToCsv, evaluateCsv, MAX_CSV_CHARS, readCsvTable } from "./columns-csv.js";
+export type { CsvLimits, CsvTable } from "./columns-csv.js";

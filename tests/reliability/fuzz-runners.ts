@@ -8,6 +8,8 @@ import { evaluate } from "../../src/core/evaluate.js";
 import type { AnyFormula } from "../../src/core/formula.js";
 import { solveDetails, solveRequest } from "../../src/tools/solve.js";
 import { sweep, sweepRequest } from "../../src/tools/sweep.js";
+import { evaluateColumns } from "../../src/tools/columns.js";
+import { evaluateCsv } from "../../src/tools/columns-csv.js";
 import { tolerance, toleranceRequest } from "../../src/tools/tolerance.js";
 import { runCli } from "../../src/cli/run.js";
 import {
@@ -30,7 +32,7 @@ export interface Runner<C> {
  * a sweep at most 4e6 points, and the CLI's sweep re-evaluates up to 2000 of
  * them for their notes.
  */
-export const EVALUATIONS = { solve: 100_000, tolerance: 1_100_000, sweep: 4_010_000 } as const;
+export const EVALUATIONS = { solve: 100_000, tolerance: 1_100_000, sweep: 4_010_000, columns: 4_000_000 } as const;
 
 /** The example output of a formula (a solve target to start from), or 1. */
 const exampleOutput = new Map<string, number>();
@@ -227,6 +229,59 @@ const sweepRunner: Runner<SweepCase> = {
   },
 };
 
+// ---- columns ----
+
+type ColumnsCase = { id: unknown; inputs: unknown; csv: boolean };
+const columnsCases: fc.Arbitrary<ColumnsCase> = fc.oneof(
+  {
+    weight: 20,
+    arbitrary: perFormula((f) =>
+      fc.record({
+        id: fc.constant<unknown>(f.id),
+        fixed: inputsFor(f),
+        // Columns of hostile values (or hostile things in place of a column), 1-8 rows.
+        columns: fc.uniqueArray(targetName(f), { minLength: 1, maxLength: 3 }).chain((names) =>
+          fc.integer({ min: 1, max: 8 }).chain((rows) =>
+            fc.tuple(...names.map((n) => fc.oneof(
+              { weight: 6, arbitrary: fc.array(Object.hasOwn(f.definition.inputs, String(n)) ? inputValue(f, String(n)) : hostileNumber, { minLength: rows, maxLength: rows }) },
+              { weight: 1, arbitrary: fc.array(hostileNumber, { minLength: rows, maxLength: rows }).map((a) => new Float64Array(a)) },
+              { weight: 1, arbitrary: fc.record({ values: fc.array(hostileNumber, { minLength: rows, maxLength: rows + 1 }), unit: fc.constantFrom<unknown>("mm", "kg", "", "degC", null, "1/in") }) },
+              { weight: 1, arbitrary: fc.constantFrom<unknown>([], null, {}, [[1, 2, 3]], new Float64Array(0)) },
+            ))).map((cols) => Object.fromEntries(names.map((n, i) => [String(n), cols[i]])))),
+        ),
+        csv: fc.boolean(),
+      }).map(({ id, fixed, columns, csv }) => ({ id, inputs: typeof fixed === "object" && fixed !== null ? { ...(fixed as object), ...columns } : columns, csv }))),
+  },
+  { weight: 1, arbitrary: fc.record({ id: hostileId, inputs: fc.constant<unknown>({ gap: [1, 2] }), csv: fc.constant(false) }) },
+);
+
+/** CSV text of a case's column inputs (cells as text), the other inputs fixed. */
+function asCsv(inputs: Record<string, unknown>): { text: string; fixed: Record<string, unknown> } {
+  const cols = Object.entries(inputs).filter(([, v]) => Array.isArray(v) && !v.some((c) => typeof c === "object" && c !== null));
+  const fixed = Object.fromEntries(Object.entries(inputs).filter(([k]) => !cols.some(([c]) => c === k)));
+  const rows = Math.max(1, ...cols.map(([, v]) => (v as unknown[]).length));
+  const cell = (v: unknown): string => `"${argText(v).replace(/"/g, '""')}"`;
+  const lines = [cols.map(([k]) => k).join(","), ...Array.from({ length: rows }, (_, i) => cols.map(([, v]) => cell((v as unknown[])[i] ?? "")).join(","))];
+  return { text: `${lines.join("\n")}\n`, fixed };
+}
+
+/** NaN marks a row that failed in a columns result's value arrays (documented), nowhere else. */
+function columnsNaN(result: unknown): (path: string, index: number) => boolean {
+  const errors = (result as { errors?: Uint8Array } | undefined)?.errors;
+  return (path, index) => errors !== undefined && path.startsWith("result.output.") && errors[index] !== 0;
+}
+
+const columnsRunner: Runner<ColumnsCase> = {
+  cases: columnsCases,
+  run: (c) => judge(() => {
+    if (c.csv && typeof c.inputs === "object" && c.inputs !== null && typeof c.id === "string") {
+      const { text, fixed } = asCsv(c.inputs as Record<string, unknown>);
+      return evaluateCsv(c.id, text, fixed);
+    }
+    return evaluateColumns(c.id as string, c.inputs as never);
+  }, c, EVALUATIONS.columns, columnsNaN),
+};
+
 // ---- the command line, in process ----
 
 function argText(v: unknown): string {
@@ -321,7 +376,7 @@ const httpRunner: Runner<Parameters<typeof runHttp>[0]> = {
 };
 
 /**
- * Cases per path, from the fixed seed: 102,000 in all (the issue asks for at
+ * Cases per path, from the fixed seed: 104,000 in all (the issue asks for at
  * least 1e5). Cheap paths get many; the design tools, whose one call is up to
  * a few hundred evaluations, fewer.
  */
@@ -331,6 +386,7 @@ export const CASES = {
   solve: 2_000,
   tolerance: 4_000,
   sweep: 6_000,
+  columns: 2_000,
   cli: 6_000,
   http: 4_000,
 } as const;
@@ -341,6 +397,7 @@ export const RUNNERS = {
   solve: solveRunner,
   tolerance: toleranceRunner,
   sweep: sweepRunner,
+  columns: columnsRunner,
   cli: cliRunner,
   http: httpRunner,
 } as const;

@@ -11,6 +11,7 @@ import { CASES } from "./fuzz-runners.js";
 const solved = newDrive();
 const toleranced = newDrive();
 const swept = newDrive();
+const columned = newDrive();
 
 describe("fuzz: solve, tolerance and sweep", () => {
   it(`${CASES.solve} solve cases: a finite result or a coded FormulaError, clean text, bounded loops`, () => {
@@ -26,6 +27,11 @@ describe("fuzz: solve, tolerance and sweep", () => {
   it(`${CASES.sweep} sweep cases: finite axes, NaN only at points not computed, or a coded FormulaError`, () => {
     driveSync(swept, "sweep", CASES.sweep);
     expectClean(swept, CASES.sweep);
+  });
+
+  it(`${CASES.columns} columns cases (arrays, typed arrays, unit columns, CSV text): NaN only in failed rows, or a coded FormulaError`, () => {
+    driveSync(columned, "columns", CASES.columns);
+    expectClean(columned, CASES.columns);
   });
 });
 
