@@ -1,6 +1,6 @@
 // Start-up times of the built package, as a user meets them: median wall time
 // of N fresh processes each for bare `node -e ""`, `import "emquant"`, and the
-// CLI's help and compute (with unit strings). Run after `npm run build`;
+// CLI's help and compute (with common unit strings, and with one left to mathjs). Run after `npm run build`;
 // `node scripts/startup-time.mjs [runs]`. Prints times and ratios to bare node
 // (a benchmark, not a test: no thresholds).
 import { spawnSync } from "node:child_process";
@@ -16,6 +16,8 @@ const cases = [
   ["import \"emquant\" (built Node entry)", ["--input-type=module", "-e", `await import(${JSON.stringify(entry)})`]],
   ["emquant help", [cli, "help"]],
   ["emquant compute with unit strings", [cli, "compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 mm"]],
+  // A long unit name is left to mathjs: this one also loads the mathjs unit subset.
+  ["emquant compute, a unit string read by mathjs", [cli, "compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 millimeter"]],
 ];
 
 function median(xs) {
