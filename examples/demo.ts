@@ -14,7 +14,7 @@ import {
   sweepToVegaLite, tolerance, wireForce, formatQuantity, gappedCorePullForce, type Note,
   designReportHtml, designReportMarkdown, designTolerance, evaluateDesign, solveDesign, sweepDesign, type DesignSpec,
   microstripImpedance, microstripEffectivePermittivity, propagationDelay, viaInductance, traceResistance, reflectionCoefficient,
-  nearEndCrosstalk, coupledMicrostripImpedance, type Length,
+  nearEndCrosstalk, coupledMicrostripImpedance, traceCurrentForTemperatureRise, type Length,
   dowellRoundWireAcResistanceFactor, roundWireAcResistanceFactor, temperatureRise, wireGaugeDiameter, wireResistance,
 } from "../src/index.js";
 import { gappedInductor } from "./designs/gapped-inductor.js";
@@ -146,6 +146,10 @@ const run = propagationDelay({ length: quantity(60, "mm"), effectivePermittivity
 show("delay over the 60 mm run", run, "s");
 show("via to the inner ground (1.6 mm, 0.3 mm drill)", viaInductance({ height: quantity(1.6, "mm"), radius: quantity(0.15, "mm") }), "H");
 show("trace resistance at 60 degC", evaluate("traceResistance", { length: "60 mm", width: `${(width.value as number) * 1e3} mm`, thickness: "35 um", temperature: "60 degC" }).value as number, "ohm");
+// The board's 1 mm supply trace: what it carries for a 10 K rise by the IPC-2221 fit (IPC-2152's charts supersede it).
+const supply = traceCurrentForTemperatureRise.details({ width: quantity(1, "mm"), thickness: quantity(35, "um"), temperatureRise: quantity(10, "K") });
+show("supply trace current for a 10 K rise", supply.value, "A");
+notes(supply.warnings, supply.cautions);
 show("reflection at the 75 ohm cable to the probe", reflectionCoefficient({ loadResistance: quantity(75, "ohm"), characteristicImpedance: quantity(50, "ohm") }), "");
 // The guard trace beside it, 0.2 mm away: even/odd modes and the near-end crosstalk they imply.
 const pair = { width: line.width, spacing: quantity(0.2, "mm"), height: stack.height, relativePermittivity: 4.2 };

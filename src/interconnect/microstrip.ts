@@ -14,13 +14,13 @@ const KIRSCHNING_JANSEN = {
   authors: "M. Kirschning, R. H. Jansen",
   year: 1982,
   title: "Accurate model for effective dielectric constant of microstrip with validity up to millimetre-wave frequencies, Electronics Letters 18(6), pp. 272-273",
-  locator: "eqs. (1)-(2), P1-P4 (equation numbers from memory)",
+  locator: "eqs. (1)-(2), P1-P4 (equation numbers and coefficients from memory; not yet checked against a printed statement of the paper)",
 } as const;
 const JANSEN_KIRSCHNING = {
   authors: "R. H. Jansen, M. Kirschning",
   year: 1983,
   title: "Arguments and an accurate model for the power-current formulation of microstrip characteristic impedance, Archiv fuer Elektronik und Uebertragungstechnik (AEU) 37, pp. 108-112",
-  locator: "frequency-dependent impedance, R1-R17 (from memory)",
+  locator: "frequency-dependent impedance, R1-R17 (coefficients from memory; not yet checked against a printed statement of the paper)",
 } as const;
 
 /** Z0 in air of a zero-thickness strip, times 2 pi / eta0: the logarithm in H&J eq. (1). */

@@ -270,6 +270,9 @@ function coupledCapacitances(u: number, sh: number, er: number): [number, number
  * conformal mapping (K(k')/K(k), k = s/(s + 2w)) and Cgd a fit; then
  * Z = 1/(c sqrt(C C_air)), C_air the same with epsr = 1. Stated accuracy
  * about 3 % for 0.2 <= w/h <= 2, 0.05 <= s/h <= 2 (from memory). Zero strip thickness.
+ * Against this library's moment-method solver (coupledLineImpedances) over that
+ * range for epsr 2.2 to 9.8: even mode within 3.3 %, odd mode within 5.8 %, the
+ * odd mode worst at the tightest gaps (measured; tests/interconnect/planar.test.ts).
  *
  * @example
  * coupledMicrostripImpedance({ width: quantity(0.3, "mm"), spacing: quantity(0.2, "mm"), height: quantity(0.2, "mm"), relativePermittivity: 4.4, mode: "odd" }); // ≈ 40 ohm

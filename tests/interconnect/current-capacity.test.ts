@@ -76,6 +76,9 @@ describe("trace current for a temperature rise (IPC-2221 curve fit)", () => {
     // A rise written in degC is read as an absolute temperature: the range warning says so.
     const degC = d({ width: "1 mm", thickness: "35 um", temperatureRise: "10 degC" });
     expect(degC.warnings[0]!.message).toContain("degC");
+    // The caution's edge: 45 K itself is quiet, just above it fires.
+    expect(d({ width: "1 mm", thickness: "35 um", temperatureRise: "45 K" }).cautions).toEqual([]);
+    expect(d({ width: "1 mm", thickness: "35 um", temperatureRise: "45.001 K" }).cautions.map((c) => c.code)).toEqual(["hot_trace"]);
     const hot = d({ width: "1 mm", thickness: "35 um", temperatureRise: "60 K" });
     expect(hot.cautions.map((c) => c.code)).toEqual(["hot_trace"]);
     expect(hot.cautions[0]!.message).toContain("IPC-2152");

@@ -90,6 +90,10 @@ describe("synthesis through solve: the width for a target impedance, evaluated b
       () => solve(striplineImpedance, "width", { groundSpacing: m(6e-4), relativePermittivity: 4.4, thickness: m(1.7e-5), target: ohm(50) }));
     back(50, (w) => coplanarWaveguideImpedance({ width: m(w), gap: m(1.5e-4), height: m(5e-4), relativePermittivity: 4.4, backing: "grounded" }),
       () => solve(coplanarWaveguideImpedance, "width", { gap: m(1.5e-4), height: m(5e-4), relativePermittivity: 4.4, backing: "grounded", target: ohm(50) }));
+    back(70, (w) => coplanarWaveguideImpedance({ width: m(w), gap: m(1.5e-4), height: m(5e-4), relativePermittivity: 4.4, backing: "none" }),
+      () => solve(coplanarWaveguideImpedance, "width", { gap: m(1.5e-4), height: m(5e-4), relativePermittivity: 4.4, backing: "none", target: ohm(70) }));
+    back(60, (w) => coupledMicrostripImpedance({ width: m(w), spacing: m(2e-4), height: m(2e-4), relativePermittivity: 4.4, mode: "even" }),
+      () => solve(coupledMicrostripImpedance, "width", { spacing: m(2e-4), height: m(2e-4), relativePermittivity: 4.4, mode: "even", target: ohm(60) }));
     back(40, (w) => coupledMicrostripImpedance({ width: m(w), spacing: m(2e-4), height: m(2e-4), relativePermittivity: 4.4, mode: "odd" }),
       () => solve(coupledMicrostripImpedance, "width", { spacing: m(2e-4), height: m(2e-4), relativePermittivity: 4.4, mode: "odd", target: ohm(40) }));
     back(75, (b) => coaxialImpedance({ innerRadius: m(4.5e-4), outerRadius: m(b), relativePermittivity: 2.25 }),
