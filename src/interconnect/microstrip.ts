@@ -184,6 +184,17 @@ const INPUTS = [
   },
 ] as const;
 
+/**
+ * Below w/h = 1e-6 Hammerstad and Jensen's exponent a(u) heads for zero (it
+ * turns negative near 5.6e-10, and eps_eff then leaves [(epsr+1)/2, epsr]):
+ * a wrong number, so such a strip is refused rather than warned about. Their
+ * stated range starts at w/h = 0.01 (warned from there down).
+ */
+const NARROW_LIMIT = 1e-6;
+const NOT_TOO_NARROW = [
+  { rule: "width >= 1e-6 height (Hammerstad and Jensen's fit fails for narrower strips)", holds: (x: MicrostripInputs) => x.width / x.height >= NARROW_LIMIT },
+];
+
 interface MicrostripInputs {
   readonly width: number;
   readonly height: number;
@@ -273,6 +284,7 @@ export const microstripImpedance = /* @__PURE__ */ defineFormula({
     "Characteristic impedance of a microstrip (a strip on a substrate over a ground plane) by Hammerstad and Jensen (1980) with their strip-thickness correction; above 0 Hz with the frequency dependence of Jansen and Kirschning (1983).",
   equation: "Z0 = (eta0 / (2 pi sqrt(eps_eff))) ln( f(u)/u + sqrt(1 + 4/u^2) ), u = w/h, f(u) = 6 + (2 pi - 6) exp(-(30.666/u)^0.7528)",
   inputs: INPUTS,
+  relations: NOT_TOO_NARROW,
   output: { dimension: "Resistance", description: "Characteristic impedance" },
   validity: [
     ...microstripValidity("Z01 to 0.03 % and eps_eff to 0.2 %"),
@@ -324,6 +336,7 @@ export const microstripEffectivePermittivity = /* @__PURE__ */ defineFormula({
     "Effective relative permittivity of a microstrip by Hammerstad and Jensen (1980) with their strip-thickness correction; above 0 Hz the dispersion model of Kirschning and Jansen (1982).",
   equation: "eps_eff = (epsr + 1)/2 + ((epsr - 1)/2) (1 + 10/u)^(-a(u) b(epsr)); eps_eff(f) = epsr - (epsr - eps_eff(0)) / (1 + P(f))",
   inputs: INPUTS,
+  relations: NOT_TOO_NARROW,
   output: { dimension: "Dimensionless", description: "Effective relative permittivity" },
   validity: microstripValidity("eps_eff to 0.2 %"),
   source: [HAMMERSTAD_JENSEN, KIRSCHNING_JANSEN],

@@ -169,4 +169,18 @@ describe("microstrip through evaluate", () => {
     expect(expectFormulaError(() => evaluate("microstripEffectivePermittivity", { ...good, frequency: -1 })).input).toBe("frequency");
     expect(expectFormulaError(() => evaluate("microstripEffectivePermittivity", { ...good, frequency: "1 mm" })).input).toBe("frequency");
   });
+
+  it("refuses strips narrower than 1e-6 of the substrate, where the fit's exponent fails, and stays between (epsr+1)/2 and epsr down to it", () => {
+    // Bound of H&J eq. (3) for 0 < a(u) b(epsr): the power (1 + 10/u)^(-ab) lies in (0, 1).
+    for (const id of ["microstripImpedance", "microstripEffectivePermittivity"]) {
+      for (const w of [1e-7, 1e-12, 1e-200]) {
+        expect(expectFormulaError(() => evaluate(id, { width: w, height: 1, relativePermittivity: 4.4, frequency: 1e9 })).code).toBe("out_of_domain");
+      }
+    }
+    for (const u of [1e-6, 1e-5, 1e-3]) {
+      const ee = microstripEffectivePermittivity({ width: u as Length, height: 1 as Length, relativePermittivity: 4.4 });
+      expect(ee).toBeGreaterThanOrEqual(2.7);
+      expect(ee).toBeLessThanOrEqual(4.4);
+    }
+  });
 });
