@@ -12,13 +12,17 @@ const CIRCUITS = { authors: "C. K. Alexander, M. N. O. Sadiku", year: 2013, titl
  * is interrupted is treated as a hazard. Below it no caution: an inductor
  * storing microjoules is not a hazard, and a caution on every call protects no one.
  */
-const STORED_ENERGY = {
-  code: "stored_energy",
-  when: (_x: unknown, w: number | readonly number[]) => (w as number) >= HAZARDOUS_ENERGY,
-  measure: (_x: unknown, w: number | readonly number[]) => w as number,
-  message: (_x: unknown, w: number | readonly number[]) =>
-    `${formatNumber(w as number, 3)} J stored, at or above the ${HAZARDOUS_ENERGY} J hazardous energy level (IEC 60950-1:2005, 1.2.8.10; now IEC 62368-1; from memory): interrupting the current releases it as an arc, heat or forces on conductors; provide a rated dump or freewheeling path and discharge before work. ${GOVERN}`,
-} as const;
+export function storedEnergyCaution<X>(energy: (x: X, value: number | readonly number[]) => number) {
+  return {
+    code: "stored_energy",
+    when: (x: X, w: number | readonly number[]) => energy(x, w) >= HAZARDOUS_ENERGY,
+    measure: (x: X, w: number | readonly number[]) => energy(x, w),
+    message: (x: X, w: number | readonly number[]) =>
+      `${formatNumber(energy(x, w), 3)} J stored, at or above the ${HAZARDOUS_ENERGY} J hazardous energy level (IEC 60950-1:2005, 1.2.8.10; now IEC 62368-1; from memory): interrupting the current releases it as an arc, heat or forces on conductors; provide a rated dump or freewheeling path and discharge before work. ${GOVERN}`,
+  } as const;
+}
+/** The caution on a formula whose result is the stored energy. */
+const STORED_ENERGY = /* @__PURE__ */ storedEnergyCaution((_x: unknown, w) => w as number);
 
 /** When the 1e-12 rounding tolerance of the coupling relation admits M above sqrt(L1 L2): k - 1. */
 function couplingExcess(x: { mutualInductance: number; inductance1: number; inductance2: number }): number {

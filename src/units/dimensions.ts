@@ -12,6 +12,7 @@ export const DIMENSIONS = {
   Length: { exps: [1, 0, 0, 0, 0, 0, 0, 0], unit: "m" },
   Area: { exps: [2, 0, 0, 0, 0, 0, 0, 0], unit: "m^2" },
   Volume: { exps: [3, 0, 0, 0, 0, 0, 0, 0], unit: "m^3" },
+  AreaProduct: { exps: [4, 0, 0, 0, 0, 0, 0, 0], unit: "m^4" },
   Time: { exps: [0, 0, 1, 0, 0, 0, 0, 0], unit: "s" },
   Frequency: { exps: [0, 0, -1, 0, 0, 0, 0, 0], unit: "Hz" },
   Mass: { exps: [0, 1, 0, 0, 0, 0, 0, 0], unit: "kg" },

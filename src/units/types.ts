@@ -18,6 +18,8 @@ export type Angle = Quantity<Exps<"Angle">>;
 export type Length = Quantity<Exps<"Length">>;
 export type Area = Quantity<Exps<"Area">>;
 export type Volume = Quantity<Exps<"Volume">>;
+/** Area times area, m^4: a core's window area times its cross-section (McLyman's area product). */
+export type AreaProduct = Quantity<Exps<"AreaProduct">>;
 export type Time = Quantity<Exps<"Time">>;
 export type Frequency = Quantity<Exps<"Frequency">>;
 export type Mass = Quantity<Exps<"Mass">>;
@@ -81,6 +83,7 @@ export interface DimensionTypes {
   Length: Length;
   Area: Area;
   Volume: Volume;
+  AreaProduct: AreaProduct;
   Time: Time;
   Frequency: Frequency;
   Mass: Mass;

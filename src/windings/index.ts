@@ -7,3 +7,5 @@ export { rogowskiMutualInductance } from "./rogowski.js";
 export { temperatureRise } from "./thermal.js";
 export { laminationEddyLoss } from "./lamination.js";
 export { solenoidInductanceRoundWire } from "./solenoid.js";
+export { leakageInductance } from "./leakage.js";
+export { areaProduct, inductorAreaProduct, windowFillFactor } from "./area-product.js";

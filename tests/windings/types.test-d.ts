@@ -1,5 +1,8 @@
 // Compile-time checks for the windings family: each @ts-expect-error line must be a type error.
-import { dowellAcResistanceFactor, dowellRoundWireAcResistanceFactor, laminationEddyLoss, quantity, roundWireAcResistanceFactor, solenoidInductanceRoundWire, wireGaugeDiameter, wireResistance, type Inductance, type Length, type Power, type Resistance } from "../../src/index.js";
+import {
+  areaProduct, dowellAcResistanceFactor, dowellRoundWireAcResistanceFactor, inductorAreaProduct, inUnit, laminationEddyLoss, leakageInductance, quantity, roundWireAcResistanceFactor,
+  solenoidInductanceRoundWire, wireGaugeDiameter, wireResistance, windowFillFactor, type AreaProduct, type Inductance, type Length, type Power, type Resistance, type Volume,
+} from "../../src/index.js";
 
 export const d: Length = wireGaugeDiameter({ gauge: "4/0" });
 export const r: Resistance = wireResistance({ length: quantity(2, "m"), diameter: d, temperature: quantity(350, "K"), material: "aluminium" });
@@ -33,3 +36,13 @@ export const ls: Inductance = solenoidInductanceRoundWire({ turns: 20, radius: q
 solenoidInductanceRoundWire({ turns: 20, radius: quantity(1, "cm"), length: quantity(2, "cm") });
 // @ts-expect-error an inductance is not a length
 export const wrongSolenoid: Length = solenoidInductanceRoundWire({ turns: 20, radius: quantity(1, "cm"), length: quantity(2, "cm"), wireDiameter: quantity(0.8, "mm") });
+export const ll: Inductance = leakageInductance({ turns: 40, meanTurnLength: quantity(8, "cm"), windingHeight: quantity(25, "mm"), innerBuild: quantity(1.5, "mm"), outerBuild: quantity(1.5, "mm"), spacing: quantity(0.5, "mm") });
+export const ap: AreaProduct = areaProduct({ apparentPower: quantity(210, "W"), waveformFactor: 4, windowUtilization: 0.4, peakFluxDensity: quantity(0.15, "T"), frequency: quantity(100, "kHz"), currentDensity: quantity(4, "A/mm^2") });
+export const apCm4: number = inUnit(inductorAreaProduct({ energy: quantity(2, "mJ"), peakFluxDensity: quantity(0.3, "T"), currentDensity: quantity(4, "A/mm^2"), windowUtilization: 0.4 }), "cm^4");
+export const fill: number = windowFillFactor({ turns: 40, wireArea: quantity(0.5, "mm^2"), windowArea: quantity(60, "mm^2") });
+// @ts-expect-error an area product is not a volume
+export const wrongAp: Volume = ap;
+// @ts-expect-error the wire area is an Area, not a diameter
+windowFillFactor({ turns: 40, wireArea: quantity(0.8, "mm"), windowArea: quantity(60, "mm^2") });
+// @ts-expect-error the leakage needs the spacing between the windings
+leakageInductance({ turns: 40, meanTurnLength: quantity(8, "cm"), windingHeight: quantity(25, "mm"), innerBuild: quantity(1.5, "mm"), outerBuild: quantity(1.5, "mm") });
