@@ -13,6 +13,7 @@ import { electron, proton } from "../../src/constants/index.js";
 import { ELEMENTARY_CHARGE, SPEED_OF_LIGHT } from "../../src/constants/si.js";
 import { checkCases, expectClose, relativeError } from "../helpers/reference.js";
 import { codeOf } from "../helpers/errors.js";
+import { createNotebookMath } from "../../src/notebook/index.js";
 import { C, D, ME } from "../force/oracle.js";
 
 const J = (v: number) => v as Energy;
@@ -169,6 +170,8 @@ describe("perveance", () => {
     const s = solveRequest({ formula: "perveance", solveFor: "voltage", target: "2 uA/V^1.5", inputs: { current: "414 A" } });
     expect(relativeError(s.value as number, (414 / 2e-6) ** (2 / 3))).toBeLessThan(1e-9);
     expect(quantity(2, "uA/V^1.5")).toBe(2e-6);
+    // The notebook's mathjs reads and prints the half-integer unit too.
+    expect(String(createNotebookMath().evaluate("perveance(414 A, 350 kV)")).split("\n")[0]).toBe("1.999 uA/V^1.5");
     expect(codeOf(() => solveRequest({ formula: "perveance", solveFor: "voltage", target: "2 uA/V", inputs: { current: "414 A" } }))).toBe("wrong_dimension");
   });
 

@@ -6,7 +6,8 @@
 // 4167 V/m public); ICNIRP 2009 static limits (400 mT public, 2 T occupational)
 // as summarised in the ICES EMF database (study 1840).
 import { describe, expect, it } from "vitest";
-import { evaluate, exposureReferenceLevel, formulaCatalog, solveRequest, sweep, type Frequency } from "../../src/index.js";
+import { evaluate, evaluateDesign, exposureReferenceLevel, formulaCatalog, solveRequest, sweep, type Frequency } from "../../src/index.js";
+import { createNotebookMath } from "../../src/notebook/index.js";
 import { checkCases } from "../helpers/reference.js";
 import { codeOf } from "../helpers/errors.js";
 
@@ -74,6 +75,22 @@ describe("exposure reference levels (ICNIRP 2010 Tables 3 and 4, ICNIRP 2009 sta
     expect(e.value).toBeCloseTo(250, 6);
     expect(codeOf(() => solveRequest({ formula: "exposureReferenceLevel", solveFor: "frequency", target: "1 kV/m", inputs: { group: "public", quantity: "fluxDensity" } }))).toBe("wrong_dimension");
     expect(sweep(exposureReferenceLevel, { vary: { frequency: { from: 1e3, to: 2e3, points: 3 } }, fixed: { group: "occupational", quantity: "electricField" } }).output.unit).toBe("V/m");
+    // A design step's dimension follows the choice word it binds: an electric field is checked against V/m, not T.
+    const d = evaluateDesign({
+      title: "exposure check", inputs: { f: "60 Hz" },
+      steps: { eLimit: { formula: "exposureReferenceLevel", inputs: { frequency: "f", group: "public", quantity: "electricField" } } },
+      checks: ["eLimit > 4 kV/m"],
+    });
+    expect(d.checks[0]!.pass).toBe(true);
+    expect(d.checks[0]!.unit).toBe("V/m");
+    expect(codeOf(() => evaluateDesign({
+      title: "exposure check", inputs: { f: "60 Hz" },
+      steps: { eLimit: { formula: "exposureReferenceLevel", inputs: { frequency: "f", group: "public", quantity: "electricField" } } },
+      checks: ["eLimit > 100 uT"],
+    }))).toBe("wrong_dimension");
+    const nb = createNotebookMath();
+    expect(String(nb.evaluate('exposureReferenceLevel(50 Hz, "public", "electricField")'))).toBe("5 kV/m");
+    expect(String(nb.evaluate('exposureReferenceLevel(50 Hz, "public", "fluxDensity")'))).toBe("200 uT");
     const cat = formulaCatalog("exposure")[0]!;
     expect(cat.output.byChoice?.dimensions.electricField).toEqual({ dimension: "ElectricField", unit: "V/m" });
   });
