@@ -1,2 +1,2 @@
 export { lorentzFactor, particleSpeed, particleMomentum, magneticRigidity, bendingRadius, quadrupoleFocalLength } from "./kinematics.js";
-export { childLangmuirCurrentDensity, plasmaFrequency, debyeLength } from "./space-charge.js";
+export { childLangmuirCurrentDensity, plasmaFrequency, debyeLength, perveance } from "./space-charge.js";

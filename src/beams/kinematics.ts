@@ -183,7 +183,8 @@ export const bendingRadius = /* @__PURE__ */ defineFormula({
   ],
   output: { dimension: "Length", description: "Bending radius" },
   relations: [{ rule: "charge != 0", holds: (x) => x.charge !== 0 }],
-  cautions: [strongFieldCaution((x: { readonly fluxDensity: number }) => x.fluxDensity)],
+  // A bending magnet's field is static: the ICNIRP 2009 lines.
+  cautions: [strongFieldCaution((x: { readonly fluxDensity: number }) => x.fluxDensity, "static")],
   source: { ...WIEDEMANN, locator: "ch. 6, rho = p/(e B) (from memory)" },
   compute: (x) => scaledProduct([x.momentum], [Math.abs(x.charge), x.fluxDensity]),
 });

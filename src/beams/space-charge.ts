@@ -144,3 +144,45 @@ export const debyeLength = /* @__PURE__ */ defineFormula({
   // Scaled: T / n may overflow or underflow while lambda_D does not; within a few ulp.
   compute: (x) => Scaled.of(EPSILON0 * BOLTZMANN).times(x.temperature).div(x.density).sqrt().div(ELEMENTARY_CHARGE).toNumber(),
 });
+
+/**
+ * Perveance of a space-charge-limited gun or diode: its current per voltage to the 3/2.
+ *
+ * K = I / V^(3/2), with I the beam current in A, V the accelerating voltage in V,
+ * K in A/V^1.5 (SI exponents m^-3 kg^-1.5 s^4.5 A^2.5). By the Child-Langmuir law
+ * the current of a space-charge-limited gun grows as V^(3/2), so K depends on
+ * the gun's geometry alone; for a planar diode of area A and gap d,
+ * K = (4 eps0 / 9) sqrt(2 e / m) A / d^2 (2.334e-6 A/d^2 A/V^1.5 for electrons).
+ * Guns are quoted in microperveance, K in units of 1e-6 A/V^1.5: "1.5 uA/V^1.5".
+ *
+ * Validity: a definition; it says something about the gun where the current
+ * is space-charge limited (not temperature limited) and non-relativistic.
+ *
+ * Cautions: voltage bands (IEC 61140); a beam of singly charged particles from 5 keV (common practice).
+ *
+ * Reference: J. R. Pierce, Theory and Design of Electron Beams, 2nd ed. (1954), the
+ * perveance of a gun (from memory).
+ *
+ * @example
+ * perveance({ current: quantity(414, "A"), voltage: quantity(350, "kV") }); // ≈ 2.0e-6 A/V^1.5
+ */
+export const perveance = /* @__PURE__ */ defineFormula({
+  id: "perveance",
+  title: "Perveance",
+  category: "beam",
+  description: "Perveance I / V^(3/2) of a space-charge-limited gun or diode: a property of its geometry, in A/V^1.5 (microperveance is 1e-6 A/V^1.5).",
+  equation: "K = I / V^(3/2)",
+  inputs: [
+    { name: "current", dimension: "Current", description: "Beam (cathode) current", domain: POSITIVE, example: 414 },
+    { name: "voltage", dimension: "Voltage", description: "Accelerating (anode-cathode) voltage", domain: POSITIVE, example: 350e3 },
+  ],
+  output: { dimension: "Perveance", description: "Perveance, current per voltage^(3/2)" },
+  cautions: [
+    ...voltageCautions("dc", (x: { readonly voltage: number }) => x.voltage),
+    beamCautionFor((x: { readonly voltage: number }) => Scaled.of(ELEMENTARY_CHARGE).times(x.voltage).toNumber()),
+  ],
+  source: { authors: "J. R. Pierce", year: 1954, title: "Theory and Design of Electron Beams, 2nd ed.", locator: "perveance I/V^(3/2) of a gun (from memory)" },
+  // Scaled: V^(3/2) overflows past 1e205 V and underflows below 1e-205 V while K may not; sqrt(V) itself
+  // never does. Three roundings and a correctly rounded sqrt: within a few ulp.
+  compute: (x) => Scaled.of(x.current).div(x.voltage).div(Math.sqrt(x.voltage)).toNumber(),
+});

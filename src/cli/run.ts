@@ -3,7 +3,7 @@ import { evaluate } from "../core/evaluate.js";
 import { getFormula, listFormulas } from "../core/registry.js";
 import type { InputSpec, Note } from "../core/spec.js";
 import { didYouMean } from "../core/suggest.js";
-import { catalogEntry } from "../tools/catalog.js";
+import { catalogEntry, outputText } from "../tools/catalog.js";
 import type { NoteSummary } from "../tools/notes.js";
 import { solveRequest } from "../tools/solve.js";
 import { sweepRequest, sweepToCsv, sweepToVegaLite } from "../tools/sweep.js";
@@ -327,7 +327,7 @@ function show(p: Parsed, io: CliIO, json: boolean): number {
     }
     lines.push(`  ${i.name}: ${i.description}`, `      ${facts.join("; ")}`);
   }
-  lines.push("", `Output: ${e.output.description} (${e.output.dimension}${e.output.unit ? ` [${e.output.unit}]` : ""})${e.output.components ? `, components ${e.output.components.join(", ")}` : ""}`);
+  lines.push("", `Output: ${e.output.description} (${outputText(e.output)})${e.output.components ? `, components ${e.output.components.join(", ")}` : ""}`);
   if (e.relations.length) lines.push("", "Relations:", ...e.relations.map((r) => `  ${r}`));
   if (e.validity.length) lines.push("", "Validity warnings:", ...e.validity.map((v) => `  [${v.code}] ${v.message ?? "(text depends on the inputs)"}`));
   if (e.cautions.length) lines.push("", "Cautions:", ...e.cautions.map((v) => `  [${v.code}] ${v.message ?? "(text depends on the inputs)"}${v.always ? " (always)" : ""}`));

@@ -3,7 +3,7 @@ import { convertInputs } from "./convert.js";
 import { FormulaError } from "./errors.js";
 import type { AnyFormula } from "./formula.js";
 import { getFormula } from "./registry.js";
-import type { Note } from "./spec.js";
+import { type Note, outputDimension } from "./spec.js";
 
 /** What `evaluate` returns: the value in coherent SI with its unit symbol and notes. */
 export interface EvaluateResult {
@@ -32,7 +32,8 @@ export function evaluate(id: string, inputs: Readonly<Record<string, unknown>>):
   const x = toSI(formula, inputs);
   const value = formula.run(x);
   const { warnings, cautions } = formula.notes(x, value);
-  const dimension = formula.definition.output.dimension as keyof typeof DIMENSIONS;
+  // A choice input may decide the output's dimension (exposureReferenceLevel's quantity).
+  const dimension = outputDimension(formula.definition.output, x);
   return { id: formula.id, value, unit: DIMENSIONS[dimension].unit, warnings, cautions };
 }
 

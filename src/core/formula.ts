@@ -3,7 +3,7 @@ import { FormulaError } from "./errors.js";
 import { inWords } from "./format.js";
 import { buildFastPath, inputsClass } from "./fast-path.js";
 import type {
-  ComputeInputs, ComputeOutput, Detailed, Domain, FormulaDeclaration, FormulaDefinition, FormulaInputs, FormulaOutput,
+  ChoiceCall, ComputeInputs, ComputeOutput, Detailed, Domain, FormulaDeclaration, FormulaDefinition, FormulaInputs, FormulaOutput,
   InputList, InputsByName, InputSpec, InputSpecs, NamedInput, Note, OutputSpec,
 } from "./spec.js";
 
@@ -63,9 +63,10 @@ export function domainRule(d: Domain): string {
  */
 export function defineFormula<const L extends InputList, const O extends OutputSpec>(
   declaration: FormulaDeclaration<L, O>,
-): Formula<InputsByName<L>, O> {
+): ChoiceCall<InputsByName<L>, O> & Formula<InputsByName<L>, O> {
   type I = InputsByName<L>;
   const def = { ...declaration, inputs: byName(declaration) } as FormulaDefinition<I, O>;
+  checkByChoice(def as unknown as FormulaDefinition<InputSpecs, OutputSpec>);
   const id = def.id;
   const specs: readonly NamedInput[] = declaration.inputs;
   const names = specs.map((s) => s.name);
@@ -159,7 +160,7 @@ export function defineFormula<const L extends InputList, const O extends OutputS
 
   const checked = (inputs: unknown): unknown => run(prepare(inputs as Record<string, unknown>));
   const fast = nComponents === 0 ? buildFastPath(def.inputs, def.compute, def.relations ?? [], checked, Inputs) : undefined;
-  const formula = (fast ?? checked) as unknown as Formula<I, O>;
+  const formula = (fast ?? checked) as unknown as ChoiceCall<I, O> & Formula<I, O>;
   const details = (inputs: FormulaInputs<I>): Detailed<FormulaOutput<O>> => {
     const x = prepare(inputs as Record<string, unknown>);
     const value = run(x);
@@ -195,6 +196,18 @@ function byName(declaration: { readonly id: string; readonly inputs: InputList }
     seen.add(spec.name);
   }
   return Object.freeze(new InputsView(declaration.inputs)) as unknown as InputSpecs;
+}
+
+// An output decided by a choice names a declared choice input and gives a dimension for every choice, the first being `dimension`.
+function checkByChoice(def: FormulaDefinition<InputSpecs, OutputSpec>): void {
+  const by = def.output.byChoice;
+  if (by === undefined) return;
+  const spec = Object.hasOwn(def.inputs, by.input) ? def.inputs[by.input] : undefined;
+  if (spec === undefined || !("choices" in spec)) throw new Error(`${def.id}: output.byChoice names "${by.input}", which is not a choice input`);
+  const keys = Object.keys(by.dimensions);
+  if (keys.length !== spec.choices.length || spec.choices.some((c) => !Object.hasOwn(by.dimensions, c)) || by.dimensions[spec.choices[0]!] !== def.output.dimension) {
+    throw new Error(`${def.id}: output.byChoice needs one dimension per choice of "${by.input}", the first equal to output.dimension`);
+  }
 }
 
 function quoteInputs(x: Readonly<Record<string, unknown>>): string {

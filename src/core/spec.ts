@@ -86,9 +86,25 @@ export type InputsByName<L extends InputList> = { readonly [S in L[number] as S[
 
 /** What a formula returns: a scalar, or named components (a vector is ["x","y","z"]). */
 export interface OutputSpec {
+  /** The output's dimension; with `byChoice`, the dimension of the first choice (the entry's default reading). */
   readonly dimension: DimensionName;
   readonly description: string;
   readonly components?: readonly string[];
+  /**
+   * When a choice input decides what is returned (a flux density or an electric
+   * field): that input's name and the dimension for each of its choices. Every
+   * tool reads the dimension through `outputDimension`, and the typed call
+   * returns the quantity of the choice passed.
+   */
+  readonly byChoice?: { readonly input: string; readonly dimensions: Readonly<Record<string, DimensionName>> };
+}
+
+/** The output's dimension for these inputs (a choice input may decide it; see `OutputSpec.byChoice`). */
+export function outputDimension(output: OutputSpec, inputs: Readonly<Record<string, unknown>>): DimensionName {
+  const by = output.byChoice;
+  if (by === undefined) return output.dimension;
+  const c = Object.hasOwn(inputs, by.input) ? inputs[by.input] : undefined;
+  return typeof c === "string" && Object.hasOwn(by.dimensions, c) ? by.dimensions[c]! : output.dimension;
 }
 
 /** A published source, or "common practice" / a derivation named as such. */
@@ -200,10 +216,26 @@ export type FormulaInputs<I extends InputSpecs> = Simplify<
   }
 >;
 
-/** The typed result of a formula: a quantity, or a readonly array of component quantities. */
+/** The dimension names an output can take: its one dimension, or every choice's. */
+type OutputDimensions<O extends OutputSpec> = O extends { readonly byChoice: { readonly dimensions: infer M } }
+  ? M[keyof M] & DimensionName
+  : O["dimension"];
+
+/** The typed result of a formula: a quantity (a union when a choice decides it), or a readonly array of component quantities. */
 export type FormulaOutput<O extends OutputSpec> = O extends { readonly components: readonly string[] }
-  ? readonly DimensionTypes[O["dimension"]][]
-  : DimensionTypes[O["dimension"]];
+  ? readonly DimensionTypes[OutputDimensions<O>][]
+  : DimensionTypes[OutputDimensions<O>];
+
+/**
+ * The typed call of a formula whose output dimension a choice decides: passing
+ * `quantity: "electricField"` returns an ElectricField. Nothing (unknown) for
+ * every other formula, so their call signature is untouched.
+ */
+export type ChoiceCall<I extends InputSpecs, O extends OutputSpec> = O extends {
+  readonly byChoice: { readonly input: infer N extends string; readonly dimensions: infer M };
+}
+  ? <C extends keyof M & string>(inputs: FormulaInputs<I> & { readonly [K in N]: C }) => DimensionTypes[M[C] & DimensionName]
+  : unknown;
 
 /** A warning or caution attached to a result. */
 export interface Note {

@@ -1,7 +1,7 @@
 import { FormulaError } from "../core/errors.js";
 import type { AnyFormula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
-import type { InputSpec, QuantityInput } from "../core/spec.js";
+import { outputDimension, type InputSpec, type QuantityInput } from "../core/spec.js";
 import { readQuantity } from "../core/convert.js";
 import { readTolerance, type Varied } from "../tools/tolerance.js";
 import { DIMENSIONS, type DimensionName, type Exponents, nameExponents } from "../units/dimensions.js";
@@ -207,7 +207,9 @@ export function compileDesign(spec: DesignSpec): CompiledDesign {
           }
         }
       }
-      const out = DIMENSIONS[node.formula.definition.output.dimension as DimensionName].exps as Exponents;
+      // A choice word bound in the step may decide the output's dimension (OutputSpec.byChoice).
+      const words = Object.fromEntries(node.bindings.flatMap((b) => (b.kind === "choice" ? [[b.input, b.word]] : [])));
+      const out = DIMENSIONS[outputDimension(node.formula.definition.output, words)].exps as Exponents;
       exps.set(node.name, out);
       return { kind: "step", name: node.name, formula: node.formula, bindings: node.bindings, exps: out };
     }

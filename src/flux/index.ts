@@ -14,3 +14,4 @@ export type { MagneticBranch, MagneticCircuit, MagneticCircuitSolution } from ".
 export { biotSavart } from "./biot-savart.js";
 export { closedSurfaceFlux, checkClosedSurface, sphereMesh, boxMesh } from "./surface-flux.js";
 export type { TriangleMesh, VectorField, SurfaceFlux } from "./surface-flux.js";
+export { exposureReferenceLevel } from "./exposure.js";

@@ -12,8 +12,8 @@ const C2 = C * C;
 
 const TWO_PI = 2 * Math.PI;
 
-/** The library's one strong-field rule (ICNIRP thresholds), on the flux-density input. */
-const STRONG_FIELD = strongFieldCaution((x: { readonly fluxDensity: number }) => x.fluxDensity);
+/** The library's one strong-field rule on the flux-density input, a static field (ICNIRP 2009 lines). */
+const STRONG_FIELD = strongFieldCaution((x: { readonly fluxDensity: number }) => x.fluxDensity, "static");
 
 // 2^600 and 2^-600: exact scalings that bring a sum of two tiny or two huge
 // positive numbers into the normal range without changing its digits.

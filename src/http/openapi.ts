@@ -175,7 +175,7 @@ function sharedSchemas(): Record<string, Schema> {
       properties: {
         id: { type: "string" }, title: { type: "string" }, category: { type: "string" }, description: { type: "string" }, equation: { type: "string" },
         inputs: { type: "array", items: { type: "object", required: ["name", "description", "kind", "required"], properties: { name: { type: "string" }, kind: { enum: ["quantity", "choice"] }, required: { type: "boolean" } } } },
-        output: { type: "object", required: ["dimension", "unit", "description"] },
+        output: { type: "object", required: ["dimension", "unit", "description"], properties: { byChoice: { type: "object", description: "when a choice input decides the output: { input, dimensions: { choice: { dimension, unit } } }; dimension and unit above are the first choice's" } } },
         relations: { type: "array", items: { type: "string" } },
         validity: { type: "array", items: { type: "object", required: ["code", "always"] } },
         cautions: { type: "array", items: { type: "object", required: ["code", "always"] } },

@@ -49,7 +49,8 @@ export const cylinderMagnetAxialField = /* @__PURE__ */ defineFormula({
     { name: "axialDistance", dimension: "Length", description: "Signed distance along the axis from the magnet's centre", example: 0.01 },
   ],
   output: { dimension: "FluxDensity", description: "Axial flux density (along the magnetisation)" },
-  cautions: [strongFieldCaution()],
+  // A permanent magnet's field is static: the ICNIRP 2009 lines.
+  cautions: [strongFieldCaution(undefined, "static")],
   source: FURLANI,
   // The field depends on the lengths only through their ratios: bring the largest to [1, 2) by a
   // power of two (exact) so no square overflows or underflows.

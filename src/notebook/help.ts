@@ -1,4 +1,4 @@
-import type { CatalogEntry } from "../tools/catalog.js";
+import { type CatalogEntry, outputText } from "../tools/catalog.js";
 import { formatQuantity } from "../units/display.js";
 
 /**
@@ -17,7 +17,7 @@ export class FormulaHelp {
       const given = i.default !== undefined ? `default ${typeof i.default === "number" ? formatQuantity(i.default, i.unit ?? "") : i.default}` : "required";
       lines.push(`  ${i.name}: ${i.description} (${what}; ${given})`);
     }
-    lines.push("", `Output: ${e.output.description} (${e.output.dimension}${e.output.unit ? ` [${e.output.unit}]` : ""})`);
+    lines.push("", `Output: ${e.output.description} (${outputText(e.output)})`);
     if (e.relations.length) lines.push(`Relations: ${e.relations.join("; ")}`);
     lines.push("Source:", ...e.sources.map((s) => `  ${s.authors}${s.year ? ` (${s.year})` : ""}, ${s.title}${s.locator ? `, ${s.locator}` : ""}`));
     return lines.join("\n");

@@ -2,7 +2,7 @@ import type { MathJsInstance, Unit } from "mathjs";
 import { FormulaError } from "../core/errors.js";
 import type { AnyFormula } from "../core/formula.js";
 import { getFormula, listFormulas } from "../core/registry.js";
-import type { InputSpec, Note } from "../core/spec.js";
+import { outputDimension, type InputSpec, type Note } from "../core/spec.js";
 import { DIMENSIONS, type Exponents, nameExponents, sameExponents } from "../units/dimensions.js";
 import { loadFullMath } from "../units/load-full.js";
 import { addTradeUnits } from "../units/parse.js";
@@ -232,7 +232,7 @@ function call(math: MathJsInstance, f: AnyFormula, args: unknown[], options: Not
   const value = f.run(x);
   const notes = f.notes(x, value);
   if (options.onNotes) options.onNotes(f.id, notes);
-  return withNotes(toUnits(math, f, value), notes);
+  return withNotes(toUnits(math, f, value, x as Record<string, unknown>), notes);
 }
 
 /** One line per note, cautions first, as a notebook prints them under the value. */
@@ -324,8 +324,8 @@ function scalar(math: MathJsInstance, id: string, name: string, dimension: keyof
   return readQuantity(id, name, dimension, raw);
 }
 
-function toUnits(math: MathJsInstance, f: AnyFormula, value: number | readonly number[]): unknown {
-  const unit = DIMENSIONS[f.definition.output.dimension as keyof typeof DIMENSIONS].unit;
+function toUnits(math: MathJsInstance, f: AnyFormula, value: number | readonly number[], x: Readonly<Record<string, unknown>>): unknown {
+  const unit = DIMENSIONS[outputDimension(f.definition.output, x)].unit;
   const one = (v: number): unknown => (unit ? math.unit(v, unit) : v);
   return typeof value === "number" ? one(value) : math.matrix(value.map(one) as never);
 }

@@ -1,7 +1,7 @@
 import { domainRule } from "../core/formula.js";
 import type { AnyFormula } from "../core/formula.js";
 import { getFormula, listFormulas } from "../core/registry.js";
-import type { Condition, InputSpecs, Source } from "../core/spec.js";
+import type { Condition, InputSpecs, OutputSpec, Source } from "../core/spec.js";
 import { siUnit, specsOf } from "./convert.js";
 
 /** One input as plain JSON. */
@@ -37,11 +37,30 @@ export interface CatalogEntry {
   readonly description: string;
   readonly equation: string;
   readonly inputs: readonly CatalogInput[];
-  readonly output: { readonly dimension: string; readonly unit: string; readonly description: string; readonly components?: readonly string[] };
+  readonly output: {
+    readonly dimension: string; readonly unit: string; readonly description: string; readonly components?: readonly string[];
+    /** When a choice input decides the output: that input, and the dimension and unit per choice (`dimension`/`unit` are the first choice's). */
+    readonly byChoice?: { readonly input: string; readonly dimensions: Readonly<Record<string, { readonly dimension: string; readonly unit: string }>> };
+  };
   readonly relations: readonly string[];
   readonly validity: readonly CatalogNote[];
   readonly cautions: readonly CatalogNote[];
   readonly sources: readonly Source[];
+}
+
+function byChoiceJson(by: NonNullable<OutputSpec["byChoice"]>): NonNullable<CatalogEntry["output"]["byChoice"]> {
+  return {
+    input: by.input,
+    dimensions: Object.fromEntries(Object.entries(by.dimensions).map(([c, d]) => [c, { dimension: d, unit: siUnit(d) }])),
+  };
+}
+
+/** "FluxDensity [T]", or per choice: "FluxDensity [T] (quantity fluxDensity) or ElectricField [V/m] (quantity electricField)". */
+export function outputText(output: CatalogEntry["output"]): string {
+  const one = (dimension: string, unit: string): string => `${dimension}${unit ? ` [${unit}]` : ""}`;
+  if (!output.byChoice) return one(output.dimension, output.unit);
+  const by = output.byChoice;
+  return Object.entries(by.dimensions).map(([c, d]) => `${one(d.dimension, d.unit)} (${by.input} ${c})`).join(" or ");
 }
 
 function notesJson(list: readonly Condition<InputSpecs>[] | undefined): CatalogNote[] {
@@ -81,6 +100,7 @@ export function catalogEntry(formula: AnyFormula | string): CatalogEntry {
     output: {
       dimension: def.output.dimension, unit: siUnit(def.output.dimension), description: def.output.description,
       ...(def.output.components ? { components: [...def.output.components] } : {}),
+      ...(def.output.byChoice ? { byChoice: byChoiceJson(def.output.byChoice) } : {}),
     },
     relations: (def.relations ?? []).map((r) => r.rule),
     validity: notesJson(def.validity),

@@ -1,7 +1,7 @@
 import { FormulaError } from "../core/errors.js";
 import type { AnyFormula, Formula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
-import type { FormulaInputs, FormulaOutput, InputSpecs, Note, OutputSpec, QuantityInput } from "../core/spec.js";
+import { outputDimension, type FormulaInputs, type FormulaOutput, type InputSpecs, type Note, type OutputSpec, type QuantityInput } from "../core/spec.js";
 import { countLoop } from "../math/loop-count.js";
 import { brent, signChanges } from "../math/roots.js";
 import type { DimensionName } from "../units/dimensions.js";
@@ -159,7 +159,7 @@ export function solveRequest(request: SolveRequest): SolveResult {
     throw new FormulaError("invalid_argument", { formula: formula.id, input: request.solveFor, detail: "the input solved for must not also be given" });
   }
   const si = convertInputs(formula, inputs, [request.solveFor]);
-  const target = readQuantity(formula.id, "target", formula.definition.output.dimension, request.target);
+  const target = readQuantity(formula.id, "target", outputDimension(formula.definition.output, si), request.target);
   const opts = request.options ?? {};
   if (typeof opts !== "object" || opts === null || Array.isArray(opts)) {
     throw new FormulaError("invalid_argument", { formula: formula.id, input: "options", detail: "options is an object { decades, samplesPerDecade, range }" });
@@ -261,7 +261,7 @@ function solveSI(formula: AnyFormula, name: string, target: unknown, others: Rec
   countLoop(evaluations);
 
   const unit = siUnit(spec.dimension);
-  const outputUnit = siUnit(def.output.dimension);
+  const outputUnit = siUnit(outputDimension(def.output, x));
   const show = (v: number): string => `${v.toPrecision(6)}${unit ? ` ${unit}` : ""}`;
   const showOut = (v: number): string => `${v.toPrecision(6)}${outputUnit ? ` ${outputUnit}` : ""}`;
   if (flat.length > 0) {

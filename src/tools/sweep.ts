@@ -1,7 +1,7 @@
 import { FormulaError } from "../core/errors.js";
 import type { AnyFormula, Formula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
-import type { InputSpecs, OutputSpec, QuantityInput } from "../core/spec.js";
+import { outputDimension, type InputSpecs, type OutputSpec, type QuantityInput } from "../core/spec.js";
 import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
 import { noteConditions, noteSummary, type NoteSummary } from "./notes.js";
 import { axisTitle, axisUnit, largestMagnitude } from "./axis-units.js";
@@ -163,7 +163,7 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
     output: {
       name: id,
       description: def.output.description,
-      unit: siUnit(def.output.dimension),
+      unit: siUnit(outputDimension(def.output, x as Record<string, unknown>)),
       values,
       ...(comps && componentArrays ? { components: Object.fromEntries(comps.map((c, i) => [c, componentArrays[i]!])) } : {}),
     },

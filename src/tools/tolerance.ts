@@ -1,7 +1,7 @@
 import { FormulaError } from "../core/errors.js";
 import type { AnyFormula, Formula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
-import type { InputSpecs, Note, OutputSpec, QuantityInput } from "../core/spec.js";
+import { outputDimension, type InputSpecs, type Note, type OutputSpec, type QuantityInput } from "../core/spec.js";
 import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
 import { NoteCollector, type NoteSummary } from "./notes.js";
 import { createRandom, type Random } from "./random.js";
@@ -217,7 +217,7 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
     const r = b.scalar();
     return r;
   };
-  const outUnit = siUnit(def.output.dimension);
+  const outUnit = siUnit(outputDimension(def.output, prepared as Record<string, unknown>));
 
   // ---- slopes (Richardson-extrapolated central differences) ----
   const derivatives = varied.map((v) => {

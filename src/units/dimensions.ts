@@ -55,17 +55,21 @@ export const DIMENSIONS = {
   Stiffness: { exps: [0, 1, -2, 0, 0, 0, 0, 0], unit: "N/m" },
   MagneticRigidity: { exps: [1, 1, -2, -1, 0, 0, 0, 0], unit: "T m" },
   FluxDensityGradient: { exps: [-1, 1, -2, -1, 0, 0, 0, 0], unit: "T/m" },
+  // Current per voltage^(3/2) of a space-charge-limited gun: the one declared
+  // quantity with half-integer exponents (kg^-1.5 s^4.5 A^2.5); the type-level
+  // tables run in halves for it (scripts/gen-exponent-table.mjs).
+  Perveance: { exps: [-3, -1.5, 4.5, 2.5, 0, 0, 0, 0], unit: "A/V^1.5" },
 } as const;
 
 /** The name of a declared dimension ("Length", "Capacitance", ...). */
 export type DimensionName = keyof typeof DIMENSIONS;
 
-/** Exponent vector [L, M, T, I, Θ, N, J, angle]. */
+/** Exponent vector [L, M, T, I, Θ, N, J, angle]; whole numbers or halves (perveance). */
 export type Exponents = readonly [number, number, number, number, number, number, number, number];
 
 const BASE_SYMBOLS = ["m", "kg", "s", "A", "K", "mol", "cd", "rad"] as const;
 
-/** Readable form of an exponent vector, e.g. "m^2 kg s^-3 A^-1". */
+/** Readable form of an exponent vector, e.g. "m^2 kg s^-3 A^-1", "m^-3 kg^-1.5 s^4.5 A^2.5". */
 export function describeExponents(exps: Exponents): string {
   const parts: string[] = [];
   exps.forEach((e, i) => {

@@ -65,6 +65,8 @@ export type MagneticRigidity = Quantity<Exps<"MagneticRigidity">>;
 /** Field gradient (of a quadrupole), T/m. */
 export type FluxDensityGradient = Quantity<Exps<"FluxDensityGradient">>;
 export type MagneticMoment = Quantity<Exps<"MagneticMoment">>;
+/** Perveance I / V^(3/2) of a space-charge-limited gun, A/V^1.5 (half-integer SI exponents). */
+export type Perveance = Quantity<Exps<"Perveance">>;
 /** Magnetomotive force is measured in amperes (ampere-turns). */
 export type MagnetomotiveForce = Current;
 /**
@@ -126,6 +128,7 @@ export interface DimensionTypes {
   Stiffness: Stiffness;
   MagneticRigidity: MagneticRigidity;
   FluxDensityGradient: FluxDensityGradient;
+  Perveance: Perveance;
 }
 
 /** A 3-vector of quantities of one dimension (Cartesian x, y, z). */

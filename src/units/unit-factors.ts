@@ -48,6 +48,7 @@ export const PREFIXABLE_FACTORS: Readonly<Record<string, number>> = {
   "F/m": 1,
   "C/m": 1,
   "W/m^3": 1,
+  "A/V^1.5": 1,
 };
 
 /** SI factors of the symbols that stand as they are. */

@@ -54,6 +54,8 @@ export const PREFIXABLE = {
   "F/m": ["Permittivity", 1],
   "C/m": ["LineChargeDensity", 1],
   "W/m^3": ["PowerDensity", 1],
+  // The prefix goes on the ampere, as guns are quoted: "1 uA/V^1.5" (one microperveance).
+  "A/V^1.5": ["Perveance", 1],
 } as const;
 type PrefixableSymbol = keyof typeof PREFIXABLE;
 

@@ -6,7 +6,7 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
   bendingRadius, childLangmuirCurrentDensity, debyeLength, lorentzFactor, magneticRigidity, particleMomentum, particleSpeed,
-  plasmaFrequency, quadrupoleFocalLength,
+  perveance, plasmaFrequency, quadrupoleFocalLength,
 } from "../../src/index.js";
 import { constant } from "../../src/constants/index.js";
 import { constantDecimal } from "../../src/constants/decimal.js";
@@ -64,6 +64,13 @@ describe("beam formulas against a decimal.js oracle, 1e-300 to 1e300", () => {
     }), { numRuns: RUNS });
   });
 
+  it("the perveance is within 4 ulp of I / V^(3/2)", () => {
+    fc.assert(fc.property(magnitude, magnitude, (current, voltage) => {
+      const V = exact(voltage);
+      agrees(perveance, { current, voltage }, exact(current).div(V.times(V.sqrt())), 4 * EPS);
+    }), { numRuns: RUNS });
+  });
+
   it("the plasma frequency and Debye length are within 4 ulp of their equations", () => {
     fc.assert(fc.property(magnitude, anySign, magnitude, magnitude, (density, charge, mass, temperature) => {
       agrees(plasmaFrequency, { density, charge, mass }, exact(density).times(exact(charge).pow(2)).div(EPS0.times(exact(mass))).sqrt().div(PI.times(2)), 4 * EPS);
@@ -73,6 +80,6 @@ describe("beam formulas against a decimal.js oracle, 1e-300 to 1e300", () => {
 
   it("reports the worst error measured per formula (in eps)", () => {
     console.log(`beams worst relative error / eps: ${[...worst].map(([id, e]) => `${id} ${(e / EPS).toFixed(2)}`).join(", ")}`);
-    expect(worst.size).toBe(9);
+    expect(worst.size).toBe(10);
   });
 });

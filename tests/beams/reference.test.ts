@@ -5,14 +5,15 @@ import fc from "fast-check";
 import { describe, expect, it } from "vitest";
 import {
   bendingRadius, childLangmuirCurrentDensity, debyeLength, evaluate, lorentzFactor, magneticRigidity, particleMomentum,
-  particleSpeed, plasmaFrequency, quadrupoleFocalLength, gyroradius, relativisticGyroradius,
-  type Energy, type FluxDensity, type FluxDensityGradient, type Length, type MagneticRigidity, type Momentum,
+  particleSpeed, perveance, plasmaFrequency, quantity, solveRequest, quadrupoleFocalLength, gyroradius, relativisticGyroradius, formatQuantity,
+  type Area, type Current, type Energy, type FluxDensity, type FluxDensityGradient, type Length, type MagneticRigidity, type Momentum,
   type NumberDensity, type Temperature, type Voltage,
 } from "../../src/index.js";
 import { electron, proton } from "../../src/constants/index.js";
 import { ELEMENTARY_CHARGE, SPEED_OF_LIGHT } from "../../src/constants/si.js";
 import { checkCases, expectClose, relativeError } from "../helpers/reference.js";
 import { codeOf } from "../helpers/errors.js";
+import { createNotebookMath } from "../../src/notebook/index.js";
 import { C, D, ME } from "../force/oracle.js";
 
 const J = (v: number) => v as Energy;
@@ -129,5 +130,54 @@ describe("space charge and plasma", () => {
       const lhs = debyeLength({ temperature: T as Temperature, density: n as NumberDensity }) * 2 * Math.PI * plasmaFrequency({ density: n as NumberDensity });
       expect(relativeError(lhs, Math.sqrt((1.380649e-23 * T) / (electron.mass as number)))).toBeLessThan(1e-14);
     }));
+  });
+});
+
+describe("perveance", () => {
+  it("gives a planar diode the perveance (4 eps0/9) sqrt(2e/m_e) A/d^2 at every voltage, tying it to the Child-Langmuir law", () => {
+    // decimal.js oracle of the planar-diode perveance (Child 1911, Langmuir 1913; CODATA 2022 eps0, e, m_e): no V left in it.
+    const eps0 = new D("8.8541878188e-12");
+    fc.assert(fc.property(
+      fc.double({ min: -3, max: 6, noNaN: true }), fc.double({ min: -6, max: 0, noNaN: true }), fc.double({ min: -8, max: 2, noNaN: true }),
+      (lv, ld, la) => {
+        const [voltage, gap, area] = [10 ** lv, 10 ** ld, 10 ** la];
+        const current = childLangmuirCurrentDensity({ voltage: voltage as Voltage, gap: gap as Length }) * area;
+        const want = eps0.times(4).div(9).times(new D(eV).times(2).div(ME).sqrt()).times(new D(area)).div(new D(gap).pow(2)).toNumber();
+        // The current density and the product with the area round a few times each: 16 ulp.
+        expect(relativeError(perveance({ current: current as Current, voltage: voltage as Voltage }), want)).toBeLessThan(16 * Number.EPSILON);
+      },
+    ));
+    // The electron constant as handbooks print it: 2.33e-6 A/V^1.5 for A = d^2 (NRL Plasma Formulary, from memory).
+    const k = perveance({ current: childLangmuirCurrentDensity({ voltage: 1e4 as Voltage, gap: 1e-2 as Length }) * 1e-4 as Current, voltage: 1e4 as Voltage });
+    expect(relativeError(k, 2.334e-6)).toBeLessThan(1e-3);
+  });
+
+  it("gives the SLAC 5045 klystron gun, 414 A at 350 kV, its 2.0 microperveance (SLAC klystron data, from memory)", () => {
+    checkCases([
+      { input: [414, 350e3], expected: 2.0e-6, tolerance: 1e-3, source: "SLAC 5045 klystron: 350 kV, 414 A, 2.0 uK (from memory)" },
+      { input: [1, 1], expected: 1, tolerance: 0, source: "K = I / V^(3/2), by hand" },
+      { input: [8, 4], expected: 1, tolerance: 0, source: "8 / 4^(3/2) = 1, by hand" },
+      { input: [1e-3, 1e4], expected: 1e-9, tolerance: 2 * Number.EPSILON, source: "1e-3 / (1e4)^(3/2), by hand" },
+    ], ([i, v]) => perveance({ current: i as Current, voltage: v as Voltage }));
+  });
+
+  it("reads and prints its half-integer unit A/V^1.5 with a prefix on the ampere, as guns are quoted", () => {
+    const r = evaluate("perveance", { current: "414 A", voltage: "350 kV" });
+    expect(r.unit).toBe("A/V^1.5");
+    expect(formatQuantity(r.value as number, r.unit)).toBe("1.999 uA/V^1.5");
+    expect(formatQuantity(2e-9, "A/V^1.5")).toBe("2 nA/V^1.5");
+    // Written back as input (a target for solve), the printed text reads as the same quantity.
+    const s = solveRequest({ formula: "perveance", solveFor: "voltage", target: "2 uA/V^1.5", inputs: { current: "414 A" } });
+    expect(relativeError(s.value as number, (414 / 2e-6) ** (2 / 3))).toBeLessThan(1e-9);
+    expect(quantity(2, "uA/V^1.5")).toBe(2e-6);
+    // The notebook's mathjs reads and prints the half-integer unit too.
+    expect(String(createNotebookMath().evaluate("perveance(414 A, 350 kV)")).split("\n")[0]).toBe("1.999 uA/V^1.5");
+    expect(codeOf(() => solveRequest({ formula: "perveance", solveFor: "voltage", target: "2 uA/V", inputs: { current: "414 A" } }))).toBe("wrong_dimension");
+  });
+
+  it("refuses a current or a voltage that is not positive and a current where the voltage goes, naming the input", () => {
+    expect(codeOf(() => evaluate("perveance", { current: "1 A", voltage: "0 V" }))).toBe("out_of_domain");
+    expect(codeOf(() => evaluate("perveance", { current: "-1 A", voltage: "1 kV" }))).toBe("out_of_domain");
+    expect(codeOf(() => evaluate("perveance", { current: "1 A", voltage: "1 kA" }))).toBe("wrong_dimension");
   });
 });

@@ -36,6 +36,47 @@ describe("the strong-field rule", () => {
   });
 });
 
+describe("the strong-field rule cites the exposure reference levels for the field's waveform", () => {
+  // ICNIRP 2010 Tables 3 and 4 (1 kHz: public 8e-2/f T = 80 uT, workers 0.3/f T = 300 uT); ICNIRP 2009 static
+  // limits 400 mT (public) and 2 T (workers, head and trunk); the 0.5 mT implant line (from memory).
+  const stat = strongFieldCaution(undefined, "static");
+  const kHz = strongFieldCaution<{ readonly frequency: number }>(undefined, (x) => x.frequency);
+  const at1k = { frequency: 1000 };
+
+  it("fires for a static field from the 0.5 mT implant line, not from the 200 uT power-frequency level", () => {
+    expect(stat.when(undefined, 0.4999e-3)).toBe(false);
+    expect(stat.when(undefined, 0.5e-3)).toBe(true);
+    expect(stat.message(undefined, 0.5e-3)).toMatch(/at or above the 0\.5 mT \(5 G\) line/);
+    expect(stat.message(undefined, 0.5e-3)).not.toMatch(/power frequency|50-60 Hz/);
+  });
+
+  it("compares a static field with the ICNIRP 2009 limits: the public's 400 mT, then the workers' 2 T", () => {
+    expect(stat.message(undefined, 0.399)).not.toMatch(/400 mT/);
+    expect(stat.message(undefined, 0.4)).toMatch(/static-field limit for the public \(400 mT\)/);
+    expect(stat.message(undefined, 1.99)).not.toMatch(/for workers/);
+    expect(stat.message(undefined, 2)).toMatch(/for the public \(400 mT\) and for workers \(2 T head and trunk; limbs 8 T\)/);
+  });
+
+  it("fires at a known frequency from the public reference level there (80 uT at 1 kHz) and names the workers' level (300 uT)", () => {
+    expect(kHz.when(at1k, 79.9e-6)).toBe(false);
+    expect(kHz.when(at1k, 80e-6)).toBe(true);
+    expect(kHz.message(at1k, 80e-6)).toMatch(/at 1000 Hz it exceeds the ICNIRP 2010 reference level for the public \(80 uT; workers 300 uT\)/);
+    expect(kHz.message(at1k, 299e-6)).not.toMatch(/and for workers/);
+    expect(kHz.message(at1k, 300e-6)).toMatch(/for the public \(80 uT\) and for workers \(300 uT\)/);
+    // At 50 Hz the public level is 200 uT; below 1 Hz the static lines apply.
+    expect(kHz.when({ frequency: 50 }, 199e-6)).toBe(false);
+    expect(kHz.when({ frequency: 50 }, 200e-6)).toBe(true);
+    expect(kHz.when({ frequency: 0.5 }, 0.4e-3)).toBe(false);
+    expect(kHz.when({ frequency: 0.5 }, 0.5e-3)).toBe(true);
+  });
+
+  it("keeps firing above the tables' 10 MHz end from their last public level and says the radio-frequency guidelines apply", () => {
+    expect(kHz.when({ frequency: 20e6 }, 26e-6)).toBe(false);
+    expect(kHz.when({ frequency: 20e6 }, 27e-6)).toBe(true);
+    expect(kHz.message({ frequency: 20e6 }, 27e-6)).toMatch(/radio-frequency guidelines/);
+  });
+});
+
 describe("the voltage-band rules", () => {
   const codes = (kind: "ac" | "dc", v: number) =>
     voltageCautions(kind).filter((c) => c.when(undefined, v)).map((c) => c.code);

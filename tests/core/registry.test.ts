@@ -1,12 +1,13 @@
 import { describe, expect, it } from "vitest";
 import * as root from "../../src/index.js";
 import { DIMENSIONS } from "../../src/units/dimensions.js";
+import type { OutputSpec } from "../../src/core/spec.js";
 import { evaluate, isFormula, listFormulas } from "../../src/index.js";
 
 const formulas = listFormulas();
 const CATEGORIES = new Set([
   "capacitance", "inductance", "flux", "magnetic circuit", "magnetic field", "electric field",
-  "force", "particle", "displacement", "beam", "magnet",
+  "force", "particle", "displacement", "beam", "magnet", "exposure",
   "transmission line",
   "winding",
 ]);
@@ -57,6 +58,20 @@ describe("the formula registry", () => {
         for (const v of values) expect(Number.isFinite(v)).toBe(true);
         expect(values.length).toBe(d.output.components?.length ?? 1);
         expect(r.unit).toBe(DIMENSIONS[d.output.dimension as keyof typeof DIMENSIONS].unit);
+      });
+
+      it("reports, when a choice decides its output, the unit of that choice's dimension for every choice", () => {
+        const by = (d.output as OutputSpec).byChoice;
+        if (by === undefined) return;
+        const choices = (d.inputs as Record<string, { choices?: readonly string[]; example?: unknown }>)[by.input]!.choices!;
+        expect(Object.keys(by.dimensions).sort()).toEqual([...choices].sort());
+        for (const c of choices) {
+          expect(Object.hasOwn(DIMENSIONS, by.dimensions[c]!)).toBe(true);
+          const inputs: Record<string, unknown> = {};
+          for (const [name, spec] of Object.entries(d.inputs as Record<string, { example?: unknown }>)) inputs[name] = spec.example;
+          inputs[by.input] = c;
+          expect(evaluate(f.id, inputs).unit).toBe(DIMENSIONS[by.dimensions[c]!].unit);
+        }
       });
     });
   }

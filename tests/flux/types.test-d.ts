@@ -1,8 +1,8 @@
 // Compile-time checks for the flux family: each @ts-expect-error line must be a type error.
 import {
-  coreFluxDensity, gappedCoreInductance, inductanceFromFactor, loopField, magneticFlux, quantity, skinDepth,
+  coreFluxDensity, exposureReferenceLevel, gappedCoreInductance, inductanceFromFactor, loopField, magneticFlux, quantity, skinDepth,
   solveMagneticCircuit, transformerPeakFluxDensity,
-  type FluxDensity, type Inductance, type Length, type MagneticFlux,
+  type ElectricField, type FluxDensity, type Inductance, type Length, type MagneticFlux,
 } from "../../src/index.js";
 
 const B = quantity(0.2, "T");
@@ -31,3 +31,17 @@ inductanceFromFactor({ inductanceFactor: 250e-9, turns: 20 });
 export const scalarLoop: FluxDensity = loopField({ current: I, radius: l, radialDistance: g, axialDistance: g });
 // @ts-expect-error the branch reluctance must be a Reluctance, not a length
 solveMagneticCircuit({ branches: [{ from: 0, to: 1, reluctance: l }] });
+
+// The exposure level's output dimension follows the `quantity` choice.
+export const bRef: FluxDensity = exposureReferenceLevel({ frequency: quantity(50, "Hz"), group: "public", quantity: "fluxDensity" });
+export const eRef: ElectricField = exposureReferenceLevel({ frequency: quantity(50, "Hz"), group: "occupational", quantity: "electricField" });
+declare const which: "fluxDensity" | "electricField";
+export const either: FluxDensity | ElectricField = exposureReferenceLevel({ frequency: quantity(50, "Hz"), group: "public", quantity: which });
+// @ts-expect-error an electric-field level is not a flux density
+export const wrongRef: FluxDensity = exposureReferenceLevel({ frequency: quantity(50, "Hz"), group: "public", quantity: "electricField" });
+// @ts-expect-error a level of either kind is not known to be a flux density
+export const unsure: FluxDensity = exposureReferenceLevel({ frequency: quantity(50, "Hz"), group: "public", quantity: which });
+// @ts-expect-error not a group of the guideline
+exposureReferenceLevel({ frequency: quantity(50, "Hz"), group: "workers", quantity: "fluxDensity" });
+// @ts-expect-error a length is not a frequency
+exposureReferenceLevel({ frequency: quantity(50, "m"), group: "public", quantity: "fluxDensity" });

@@ -85,6 +85,7 @@ describe("the formula catalog", () => {
         expect(i.required).toBe(i.default === undefined);
       }
       expect(e.output.unit).toBe(DIMENSIONS[e.output.dimension as keyof typeof DIMENSIONS].unit);
+      for (const d of Object.values(e.output.byChoice?.dimensions ?? {})) expect(d.unit).toBe(DIMENSIONS[d.dimension as keyof typeof DIMENSIONS].unit);
       expect(e.sources.length).toBeGreaterThan(0);
       for (const n of [...e.validity, ...e.cautions]) expect(n.code).toMatch(/^[a-z0-9_]+$/i);
     }
