@@ -115,7 +115,8 @@ export const cylinderMagnetField = /* @__PURE__ */ defineFormula({
   ],
   output: { dimension: "FluxDensity", description: "Flux density components (radial outward, axial along the magnetisation); B inside the magnet", components: ["radial", "axial"] },
   relations: [notOnRim("magnet's faces")],
-  cautions: [strongFieldCaution()],
+  // A permanent magnet's field is static: the implant line and the static limits apply.
+  cautions: [strongFieldCaution(undefined, "static")],
   source: DERBY_OLBERT,
   // B = B_r F: the sheet's F is a ratio of lengths (scaled by a power of two inside sheetField).
   compute: (x) => {
