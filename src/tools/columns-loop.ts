@@ -41,9 +41,9 @@ export type ColumnShape = readonly (readonly [name: string, domain: Domain | und
 type Loop = (s: Rows, from: number, to: number, out: { at: number; thrown: unknown }) => void;
 const loops = new WeakMap<AnyFormula, Map<string, Loop | null>>();
 
-const NOT_FINITE = rowCode("not_finite");
-const OUT_OF_DOMAIN = rowCode("out_of_domain");
-const OUT_OF_RANGE = rowCode("out_of_range");
+const NOT_FINITE = /* @__PURE__ */ rowCode("not_finite");
+const OUT_OF_DOMAIN = /* @__PURE__ */ rowCode("out_of_domain");
+const OUT_OF_RANGE = /* @__PURE__ */ rowCode("out_of_range");
 
 /**
  * Runs rows [from, to). A FormulaError thrown by compute or a relation marks

@@ -23,7 +23,7 @@ export const MAX_COLUMN_ROWS = 4_000_000;
  * ERROR_CODES[k - 1], so the table is fixed and rows from separate calls
  * (shards of one table) mean the same codes.
  */
-export const ROW_ERROR_CODES: readonly ("" | ErrorCode)[] = Object.freeze(["", ...ERROR_CODES]);
+export const ROW_ERROR_CODES: readonly ("" | ErrorCode)[] = /* @__PURE__ */ Object.freeze(["", ...ERROR_CODES]);
 
 /** The row code of a library error code. */
 export function rowCode(code: ErrorCode): number {
