@@ -58,6 +58,12 @@ export async function run(): Promise<BenchRow[]> {
       inputs: Object.fromEntries(names.map((n) => [n, { nominal: examples[n], percent: 1 }])),
       options: { samples: DEFAULT_LIMITS.maxSamples },
     }),
+    // The row limit reached within the body limit: CSV text, one short cell per row (a length in mm, 3 digits).
+    [`columns, ${DEFAULT_LIMITS.maxColumnRows} rows of CSV`]: text({
+      formula: ID,
+      csv: [`${first} (mm)`, ...Array.from({ length: DEFAULT_LIMITS.maxColumnRows }, (_, i) => (ex * 1000 * (0.5 + (i % 100) / 100)).toPrecision(3))].join("\n"),
+      inputs: fixed,
+    }),
     // An unreachable target: the search scans its whole grid before answering no_solution (422).
     [`solve, ${DEFAULT_LIMITS.maxSolveDecades} decades x ${DEFAULT_LIMITS.maxSolveSamplesPerDecade}/decade, no solution`]: text({
       formula: ID, solveFor: first, target: 1e300, inputs: fixed,
@@ -65,7 +71,7 @@ export async function run(): Promise<BenchRow[]> {
     }),
   };
   for (const [name, body] of Object.entries(heavy)) {
-    const path = name.startsWith("sweep") ? "/sweep" : name.startsWith("tolerance") ? "/tolerance" : "/solve";
+    const path = name.startsWith("sweep") ? "/sweep" : name.startsWith("tolerance") ? "/tolerance" : name.startsWith("columns") ? "/columns" : "/solve";
     const status = handle({ method: "POST", path, body }).status;
     const c = compare(
       {

@@ -154,6 +154,9 @@ export function evaluateCsv(
   options: CsvLimits & ColumnsOptions = {},
 ): ColumnsResult {
   const f = isFormula(formula) ? formula : getFormula(formula);
+  if (typeof fixed !== "object" || fixed === null || Array.isArray(fixed)) {
+    throw new FormulaError("wrong_type", { formula: f.id, input: "inputs", value: fixed, expected: "an object of the inputs fixed for every row" });
+  }
   const table = typeof csv === "string" ? readCsvTable(csv, options) : csv;
   for (const name of Object.keys(fixed)) {
     if (table.names.includes(name)) throw new FormulaError("invalid_argument", { formula: f.id, input: name, detail: "given both as a CSV column and as a fixed value" });

@@ -41,9 +41,9 @@ export type ColumnShape = readonly (readonly [name: string, domain: Domain | und
 type Loop = (s: Rows, from: number, to: number, out: { at: number; thrown: unknown }) => void;
 const loops = new WeakMap<AnyFormula, Map<string, Loop | null>>();
 
-const NOT_FINITE = rowCode("not_finite");
-const OUT_OF_DOMAIN = rowCode("out_of_domain");
-const OUT_OF_RANGE = rowCode("out_of_range");
+const NOT_FINITE = /* @__PURE__ */ rowCode("not_finite");
+const OUT_OF_DOMAIN = /* @__PURE__ */ rowCode("out_of_domain");
+const OUT_OF_RANGE = /* @__PURE__ */ rowCode("out_of_range");
 
 /**
  * Runs rows [from, to). A FormulaError thrown by compute or a relation marks
@@ -76,7 +76,10 @@ export function runRows(formula: AnyFormula, s: Rows, shape: ColumnShape, from: 
  */
 function generatedLoop(formula: AnyFormula, s: Rows, shape: ColumnShape): Loop | undefined {
   const nc = s.components.length;
-  const key = `${shape.map(([n, , c]) => (c ? `${n}?` : n)).join(",")}|${nc}|${s.pre ? 1 : 0}|${s.conditions.length}`;
+  // The array kinds are part of the key: one loop reading both Float64Arrays and
+  // number arrays through the same access would be polymorphic there.
+  const kinds = s.numbers.map((d) => (d instanceof Float64Array ? "f" : "a")).join("");
+  const key = `${shape.map(([n, , c]) => (c ? `${n}?` : n)).join(",")}|${kinds}|${nc}|${s.pre ? 1 : 0}|${s.conditions.length}`;
   let byKey = loops.get(formula);
   if (byKey === undefined) loops.set(formula, (byKey = new Map()));
   const hit = byKey.get(key);
@@ -106,7 +109,8 @@ function generatedLoop(formula: AnyFormula, s: Rows, shape: ColumnShape): Loop |
     ni++;
   }
   // One finiteness test for all numeric inputs: their sum is finite only if each is (an overflowing sum goes to the ordered checks, which find nothing).
-  if (nums.length > 0) fast.unshift(`(${nums.join(" + ")}) - (${nums.join(" + ")}) !== 0`);
+  const sum = nums.length > 0 ? `const sum = ${nums.join(" + ")};` : "";
+  if (nums.length > 0) fast.unshift("sum - sum !== 0");
   const miss = `values[i] = NaN; ${count(nc, (c) => `C${c}[i] = NaN;`, " ")}`;
   const check = (c: number): string => {
     const cond = s.conditions[c]!;
@@ -134,6 +138,7 @@ function generatedLoop(formula: AnyFormula, s: Rows, shape: ColumnShape): Loop |
       for (; i < to; i++) {
         ${s.pre ? `if (pre[i] !== 0) { errors[i] = pre[i]; ${miss} continue; }` : ""}
         ${reads.join("\n        ")}
+        ${sum}
         if (${fast.length ? fast.join(" || ") : "false"}) {
           let code = 0;
           ${ordered.map((t, k) => (k === 0 ? t : `if (code === 0) ${t}`)).join("\n          ")}

@@ -23,7 +23,7 @@ export const MAX_COLUMN_ROWS = 4_000_000;
  * ERROR_CODES[k - 1], so the table is fixed and rows from separate calls
  * (shards of one table) mean the same codes.
  */
-export const ROW_ERROR_CODES: readonly ("" | ErrorCode)[] = Object.freeze(["", ...ERROR_CODES]);
+export const ROW_ERROR_CODES: readonly ("" | ErrorCode)[] = /* @__PURE__ */ Object.freeze(["", ...ERROR_CODES]);
 
 /** The row code of a library error code. */
 export function rowCode(code: ErrorCode): number {
@@ -228,7 +228,7 @@ function cellReader(id: string, name: string, spec: QuantityInput, unit: string 
     if (PLAIN.test(cell)) {
       if (unit === undefined) return Number(cell);
       if (factor !== undefined) {
-        const v = scaleDecimal(cell.trim(), factor[0], factor[1]);
+        const v = factor[0] === 1 ? shiftDecimal(cell.trim(), factor[1]) : scaleDecimal(cell.trim(), factor[0], factor[1]);
         if (v !== undefined) return v - v === 0 ? v : "not_finite";
       }
       return textValue(`${cell.trim()} ${unit}`);
@@ -245,6 +245,16 @@ function cellReader(id: string, name: string, spec: QuantityInput, unit: string 
       throw e;
     }
   }
+}
+
+/**
+ * A plain decimal's text times 10^k, correctly rounded: the same decimal with
+ * its exponent moved, read once by Number() (whose reading of a decimal is
+ * correctly rounded), as scaleDecimal gives it without its BigInt product.
+ */
+function shiftDecimal(text: string, k: number): number {
+  const e = text.search(/[eE]/);
+  return e < 0 ? Number(`${text}e${k}`) : Number(`${text.slice(0, e)}e${Number(text.slice(e + 1)) + k}`);
 }
 
 /** A probe for binding the fixed inputs: the column's first value in the domain, or the input's example. */

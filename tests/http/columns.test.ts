@@ -53,6 +53,8 @@ describe("POST /columns", () => {
   it("answers whole-request problems with coded errors: columns of different lengths, unknown fields, a bad csv", () => {
     expect(post({ formula: "parallelPlateCapacitance", inputs: { area: [1, 2], gap: [1] } })).toMatchObject({ status: 422, body: { error: { code: "invalid_argument", input: "gap" } } });
     expect(post({ formula: "parallelPlateCapacitance", columns: {} })).toMatchObject({ status: 400, body: { error: { code: "bad_request" } } });
+    expect(post({ formula: "parallelPlateCapacitance", csv: "gap\n1\n", inputs: "area" })).toMatchObject({ status: 422, body: { error: { code: "wrong_type", input: "inputs" } } });
+    expect(post({ formula: "parallelPlateCapacitance", inputs: "area" })).toMatchObject({ status: 422, body: { error: { code: "wrong_type", input: "inputs" } } });
     expect(post({ formula: "parallelPlateCapacitance", csv: 5 })).toMatchObject({ status: 400, body: { error: { code: "bad_request" } } });
     expect(post({ formula: "parallelPlateCapacitance", csv: "area,gap\n" })).toMatchObject({ status: 422, body: { error: { code: "invalid_argument", input: "csv" } } });
     expect(post({ formula: "parallelPlateCapacitance", csv: "area,gap\n1,1\n", format: "xml" })).toMatchObject({ status: 400 });

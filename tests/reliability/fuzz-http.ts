@@ -21,7 +21,7 @@ export interface HttpCase {
   readonly contentLength?: string | undefined;
 }
 
-const ROUTES = ["/evaluate", "/solve", "/tolerance", "/sweep"] as const;
+const ROUTES = ["/evaluate", "/solve", "/tolerance", "/sweep", "/columns"] as const;
 
 const HOSTILE_URLS = [
   "/formulas/%E0%A4%A", "/formulas/%", "/formulas/%ZZ", "/formulas/%C0%AF", "/formulas/%00", "/formulas/__proto__", "/formulas/constructor",
@@ -49,10 +49,10 @@ const HOSTILE_BODIES = [
 export function httpCase(bodies: Record<(typeof ROUTES)[number] extends `/${infer R}` ? R : never, fc.Arbitrary<unknown>>): fc.Arbitrary<HttpCase> {
   const method = fc.oneof({ weight: 8, arbitrary: fc.constant("POST") }, { weight: 1, arbitrary: fc.constantFrom("GET", "PUT", "DELETE", "HEAD", "OPTIONS", "PATCH", "", "post", "POST ", "\u00e9") });
   // JSON carries no NaN, Infinity or functions: what a client can send of each case.
-  const asJson = (route: "evaluate" | "solve" | "tolerance" | "sweep"): fc.Arbitrary<string | undefined> =>
+  const asJson = (route: "evaluate" | "solve" | "tolerance" | "sweep" | "columns"): fc.Arbitrary<string | undefined> =>
     bodies[route].map((c) => {
       const r = c as Record<string, unknown>;
-      const b = route === "evaluate" ? { formula: r.id, inputs: r.inputs } : route === "solve"
+      const b = route === "evaluate" || route === "columns" ? { formula: r.id, inputs: r.inputs } : route === "solve"
         ? { formula: r.id, solveFor: r.solveFor, target: r.target, inputs: r.inputs, options: r.options }
         : route === "tolerance" ? { formula: r.id, inputs: r.inputs, options: r.options } : { formula: r.id, vary: r.vary, fixed: r.fixed };
       try {
@@ -115,9 +115,11 @@ function request(c: HttpCase): IncomingMessage {
   return req;
 }
 
-const NULL_ALLOWED = /^result\.output\.values\[\d+\]$/;
+// null marks a sweep point not computed or a failed row in output values (and columns' components),
+// and a row that computed in a columns answer's errors (documented in the OpenAPI document).
+const NULL_ALLOWED = /^result\.(output\.values\[\d+\]|output\.components\.\w+\[\d+\]|errors\[\d+\])$/;
 
-/** Every number finite; null only where a sweep marks a point not computed. */
+/** Every number finite; null only where a sweep marks a point not computed or a columns row failed (or, in errors, computed). */
 function jsonViolations(v: unknown, path: string, out: string[], depth = 0): void {
   if (out.length > 5 || depth > 40) return;
   if (v === null) {

@@ -371,7 +371,7 @@ const cliRunner: Runner<string[]> = { cases: cliCases, run: runCliCase };
 // ---- the HTTP example, in process ----
 
 const httpRunner: Runner<Parameters<typeof runHttp>[0]> = {
-  cases: httpCase({ evaluate: evaluateCase, solve: solveCases, tolerance: toleranceCases, sweep: sweepCases }),
+  cases: httpCase({ evaluate: evaluateCase, solve: solveCases, tolerance: toleranceCases, sweep: sweepCases, columns: columnsCases }),
   run: runHttp,
 };
 
