@@ -50,6 +50,8 @@ export class FormulaError extends Error {
   readonly expected: string | undefined;
   readonly received: string | undefined;
   readonly rule: string | undefined;
+  /** The free detail of the message, if any (kept so a wrapper can add to it). */
+  readonly detail: string | undefined;
 
   constructor(code: ErrorCode, fields: FormulaErrorFields = {}) {
     super(buildMessage(code, fields));
@@ -61,6 +63,7 @@ export class FormulaError extends Error {
     this.expected = fields.expected;
     this.received = fields.received;
     this.rule = fields.rule;
+    this.detail = fields.detail;
   }
 
   /** Plain JSON for API responses. */
