@@ -3,7 +3,7 @@ import { evaluate } from "../core/evaluate.js";
 import { getFormula, listFormulas } from "../core/registry.js";
 import type { InputSpec, Note } from "../core/spec.js";
 import { didYouMean } from "../core/suggest.js";
-import { catalogEntry, outputText } from "../tools/catalog.js";
+import { catalogEntry, inputShapeText, outputText } from "../tools/catalog.js";
 import type { NoteSummary } from "../tools/notes.js";
 import { solveRequest } from "../tools/solve.js";
 import { sweepRequest, sweepToCsv, sweepToVegaLite } from "../tools/sweep.js";
@@ -69,7 +69,9 @@ Options:
   --svg FILE        sweep: also draw the chart to an SVG file (axes in mm, pF, ...)
 
 Values are numbers in SI units or numbers with a unit ("0.2 mm", "4.7 uF", "4.7 µF");
-vectors as "[1000, 0, 0] V/m" or "[1 kV/m, 0 V/m, 0 V/m]".
+vectors as "[1000, 0, 0] V/m" or "[1 kV/m, 0 V/m, 0 V/m]"; a series (a waveform over
+one period) the same way with any number of samples: waveform="[0, 0.1, 0, -0.1] T"
+or waveform=0,0.1,0,-0.1 (plain numbers are SI).
 Warnings and cautions are printed with every result; sweeps and tolerance
 analyses say how many points raised each one and where it was worst.`;
 
@@ -130,13 +132,13 @@ function unitOf(spec: InputSpec | undefined): string {
 const BARE_NUMBER = /^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/;
 
 /**
- * A command-line value for an input. Vectors as `show` prints them,
+ * A command-line value for an input. Vectors and series as `show` prints them,
  * "[1000, 0, 0] V/m" (the unit after the brackets applies to every bare
  * number), or with a unit per component "[1 kV/m, 0 V/m, 0 V/m]", or
  * "1000, 0, 0"; other values as typed.
  */
 export function inputValue(spec: InputSpec | undefined, text: string): unknown {
-  if (spec && !("choices" in spec) && spec.vector) {
+  if (spec && !("choices" in spec) && (spec.vector || spec.series)) {
     const m = /^\s*\[(.*)\]\s*(.*?)\s*$/.exec(text);
     const [inner, unit] = m ? [m[1]!, m[2]!] : [text, ""];
     return inner.split(",").map((s) => s.trim()).map((c) => (unit && BARE_NUMBER.test(c) ? `${c} ${unit}` : c));
@@ -318,7 +320,7 @@ function show(p: Parsed, io: CliIO, json: boolean): number {
   for (const i of e.inputs) {
     const facts: string[] = [];
     if (i.kind === "choice") facts.push(`one of ${i.choices!.join(", ")}`);
-    else facts.push(`${i.dimension}${i.unit ? ` [${i.unit}]` : ""}${i.vector ? ", 3-vector" : ""}`);
+    else facts.push(`${i.dimension}${i.unit ? ` [${i.unit}]` : ""}${inputShapeText(i)}`);
     if (i.domain) facts.push(i.domain.rule);
     if (i.default !== undefined) facts.push(`default ${typeof i.default === "number" ? formatQuantity(i.default, i.unit ?? "") : i.default}`);
     else facts.push("required");
@@ -403,7 +405,7 @@ function toleranceCommand(p: Parsed, io: CliIO, json: boolean): number {
   const inputs: Record<string, unknown> = {};
   for (const [k, v] of p.pairs) {
     const s = Object.hasOwn(specs, k) ? specs[k] : undefined;
-    inputs[k] = s && !("choices" in s) && !s.vector ? parseToleranceText(v) : inputValue(s, v);
+    inputs[k] = s && !("choices" in s) && !s.vector && !s.series ? parseToleranceText(v) : inputValue(s, v);
   }
   const samples = intFlag(p, "samples");
   const seed = intFlag(p, "seed");

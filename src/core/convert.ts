@@ -2,9 +2,10 @@ import { DIMENSIONS, type DimensionName, type Exponents, nameExponents, sameExpo
 import { parseQuantity } from "../units/parse.js";
 import { FormulaError } from "./errors.js";
 import type { AnyFormula } from "./formula.js";
+import { atSample, checkSeriesShape } from "./domain.js";
 import type { InputSpecs } from "./spec.js";
 
-// Run-time inputs (numbers in SI, unit strings, choice words, 3-arrays) to SI:
+// Run-time inputs (numbers in SI, unit strings, choice words, 3-arrays, series) to SI:
 // the one conversion shared by evaluate, the design tools, the CLI and the
 // notebook binding.
 
@@ -59,6 +60,12 @@ export function convertInputs(formula: AnyFormula, inputs: unknown, skip: readon
         throw new FormulaError("wrong_type", { formula: id, input: name, value: raw, expected: "a 3-array [x, y, z] of numbers or unit strings" });
       }
       out[name] = raw.map((c: unknown) => toNumber(id, name, spec.dimension, c));
+    } else if (spec.series) {
+      // Length first: a series over its ceiling is refused before any sample is read.
+      checkSeriesShape(id, name, spec.series, raw);
+      const samples = new Array<unknown>(raw.length);
+      for (let i = 0; i < raw.length; i++) samples[i] = toNumber(id, name, spec.dimension, raw[i], i);
+      out[name] = samples;
     } else {
       out[name] = toNumber(id, name, spec.dimension, raw);
     }
@@ -72,8 +79,14 @@ export function convertInputs(formula: AnyFormula, inputs: unknown, skip: readon
  * the same input with the same code (checked here, a NaN in a later input was
  * reported before an earlier input outside its domain). Text is read here.
  */
-function toNumber(formula: string, input: string, dimension: DimensionName, raw: unknown): unknown {
-  return typeof raw === "number" ? raw : readQuantity(formula, input, dimension, raw);
+function toNumber(formula: string, input: string, dimension: DimensionName, raw: unknown, sample?: number): unknown {
+  if (typeof raw === "number") return raw;
+  if (sample === undefined) return readQuantity(formula, input, dimension, raw);
+  try {
+    return readQuantity(formula, input, dimension, raw);
+  } catch (e) {
+    throw atSample(e, sample); // a series sample: the error says which one
+  }
 }
 
 export { inDomain } from "./domain.js";

@@ -52,6 +52,8 @@ export class FormulaError extends Error {
   declare readonly expected: string | undefined;
   declare readonly received: string | undefined;
   declare readonly rule: string | undefined;
+  /** The free detail of the message, if any (kept so a wrapper can add to it). */
+  declare readonly detail: string | undefined;
 
   constructor(code: ErrorCode, fields: FormulaErrorFields = {}) {
     super(buildMessage(code, fields));
@@ -63,6 +65,7 @@ export class FormulaError extends Error {
     this.expected = fields.expected;
     this.received = fields.received;
     this.rule = fields.rule;
+    this.detail = fields.detail;
   }
 
   /** Plain JSON for API responses. */

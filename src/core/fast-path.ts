@@ -9,7 +9,7 @@ import type { Domain, InputSpecs } from "./spec.js";
  *
  * Returns undefined where code generation is unavailable (a strict
  * Content-Security-Policy forbids `new Function`) or the formula has vector
- * inputs; callers then use the generic path, which is correct but slower.
+ * or series inputs; callers then use the generic path, which is correct but slower.
  */
 export function buildFastPath(
   inputs: InputSpecs,
@@ -37,7 +37,7 @@ export function buildFastPath(
       choices.push(spec.choices);
       continue;
     }
-    if (spec.vector) return undefined;
+    if (spec.vector || spec.series) return undefined;
     if (spec.default !== undefined) lines.push(`if (v${i} === undefined) v${i} = ${numberLiteral(spec.default)};`);
     numbers.push(`v${i}`);
     domainTests.push(...domainBounds(`v${i}`, spec.domain));

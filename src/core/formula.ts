@@ -1,10 +1,10 @@
-import { inDomain } from "./domain.js";
+import { checkSeriesShape, inDomain, sampleDetail } from "./domain.js";
 import { FormulaError } from "./errors.js";
 import { inWords } from "./format.js";
 import { buildFastPath, inputsClass } from "./fast-path.js";
 import type {
   ChoiceCall, ComputeInputs, ComputeOutput, Detailed, Domain, FormulaDeclaration, FormulaDefinition, FormulaInputs, FormulaOutput,
-  InputList, InputsByName, InputSpec, InputSpecs, NamedInput, Note, OutputSpec,
+  InputList, InputsByName, InputSpec, InputSpecs, NamedInput, Note, OutputSpec, SeriesLength,
 } from "./spec.js";
 
 /**
@@ -106,14 +106,26 @@ export function defineFormula<const L extends InputList, const O extends OutputS
       for (const c of v) checkNumber(name, spec.domain, c);
       return;
     }
+    if (spec.series) {
+      checkSeries(name, spec.series, spec.domain, v);
+      return;
+    }
     checkNumber(name, spec.domain, v);
   }
 
-  function checkNumber(name: string, domain: Domain | undefined, v: unknown): void {
-    if (typeof v !== "number") throw new FormulaError("wrong_type", { formula: id, input: name, value: v, expected: "a number in SI units" });
-    if (v - v !== 0) throw new FormulaError("not_finite", { formula: id, input: name, value: v });
+  // A series: an array within its length bounds, then each sample as a number. A bad sample's
+  // error names the input and, in its detail, the sample's index (a waveform can be long).
+  function checkSeries(name: string, length: SeriesLength, domain: Domain | undefined, v: unknown): void {
+    checkSeriesShape(id, name, length, v);
+    for (let i = 0; i < v.length; i++) checkNumber(name, domain, v[i], sampleDetail(i));
+  }
+
+  // `detail` says where in a series the value sits (undefined for a scalar).
+  function checkNumber(name: string, domain: Domain | undefined, v: unknown, detail?: string): void {
+    if (typeof v !== "number") throw new FormulaError("wrong_type", { formula: id, input: name, value: v, expected: "a number in SI units", detail });
+    if (v - v !== 0) throw new FormulaError("not_finite", { formula: id, input: name, value: v, detail });
     if (domain !== undefined && !inDomain(v, domain)) {
-      throw new FormulaError("out_of_domain", { formula: id, input: name, value: v, rule: domainRule(domain) });
+      throw new FormulaError("out_of_domain", { formula: id, input: name, value: v, rule: domainRule(domain), detail });
     }
   }
 
@@ -212,6 +224,11 @@ function checkByChoice(def: FormulaDefinition<InputSpecs, OutputSpec>): void {
 
 function quoteInputs(x: Readonly<Record<string, unknown>>): string {
   return Object.entries(x)
-    .map(([k, v]) => `${k} = ${Array.isArray(v) ? `[${v.join(", ")}]` : String(v)}`)
+    .map(([k, v]) => `${k} = ${Array.isArray(v) ? arrayText(v) : String(v)}`)
     .join(", ");
+}
+
+// A series may hold thousands of samples: a message quotes its length and first few.
+function arrayText(v: readonly unknown[]): string {
+  return v.length <= 6 ? `[${v.join(", ")}]` : `[${v.slice(0, 4).join(", ")}, ... (${v.length} samples)]`;
 }

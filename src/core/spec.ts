@@ -41,7 +41,20 @@ export const RELATIVE_PERMEABILITY = {
   example: 2000,
 } as const;
 
-/** An input measured in a dimension (a scalar, or a 3-vector when `vector`). */
+/**
+ * How many samples a series input takes. Every tool's cost grows with the
+ * length, so each series has a ceiling (the HTTP body limit is not enough:
+ * a sweep evaluates the whole series at every grid point).
+ */
+export interface SeriesLength {
+  readonly minLength: number;
+  readonly maxLength: number;
+}
+
+/**
+ * An input measured in a dimension: a scalar, a 3-vector when `vector`, or a
+ * series of samples (a waveform over one period) when `series`.
+ */
 export interface QuantityInput {
   readonly dimension: DimensionName;
   readonly description: string;
@@ -51,7 +64,13 @@ export interface QuantityInput {
   readonly domain?: Domain;
   readonly vector?: boolean;
   /**
-   * A typical SI value (a 3-array for vectors) within the domain and satisfying
+   * A series of samples of any length within these bounds (plain SI numbers in
+   * an array). Each sample must be finite and within `domain`. Only scalar
+   * inputs are solved for, swept or toleranced: a series is held as given.
+   */
+  readonly series?: SeriesLength;
+  /**
+   * A typical SI value (a 3-array for vectors, an array for series) within the domain and satisfying
    * the relations together with the other inputs' examples. Used by the CLI,
    * docs, solve's search start, sweeps and the registry-wide property tests.
    * Every input is expected to have one (a registry test checks).
@@ -123,7 +142,9 @@ export type ComputeInputs<I extends InputSpecs> = {
     ? C
     : I[K] extends { readonly vector: true }
       ? Vec3<number>
-      : number;
+      : I[K] extends { readonly series: SeriesLength }
+        ? readonly number[]
+        : number;
 };
 
 /** A condition on the inputs (and result) under which a warning or caution applies. */
@@ -202,9 +223,11 @@ type InputType<S> = S extends { readonly choices: readonly (infer C)[] }
   ? C
   : S extends { readonly dimension: infer D extends DimensionName; readonly vector: true }
     ? Vec3<DimensionTypes[D]>
-    : S extends { readonly dimension: infer D extends DimensionName }
-      ? DimensionTypes[D]
-      : never;
+    : S extends { readonly dimension: infer D extends DimensionName; readonly series: SeriesLength }
+      ? readonly DimensionTypes[D][]
+      : S extends { readonly dimension: infer D extends DimensionName }
+        ? DimensionTypes[D]
+        : never;
 
 type OptionalKeys<I> = { [K in keyof I]: I[K] extends { readonly default: unknown } ? K : never }[keyof I];
 type Simplify<T> = { [K in keyof T]: T[K] } & {};

@@ -126,6 +126,13 @@ export function compileDesign(spec: DesignSpec): CompiledDesign {
       if (!Object.hasOwn(specs, key)) throw new FormulaError("unknown_input", { formula: formula.id, input: key, detail: `in design step "${name}"` });
     }
     for (const [input, ispec] of Object.entries(specs)) {
+      if (!("choices" in ispec) && ispec.series) {
+        // A design carries scalars (and 3-vectors) between steps, and its tolerance and sweeps vary
+        // scalars: a waveform has no place in that chain, so the step is refused whatever it binds.
+        throw new FormulaError("invalid_argument", {
+          formula: formula.id, input, detail: `in design step "${name}": a series input (a waveform) cannot be bound in a design; evaluate this formula on its own`,
+        });
+      }
       const b = Object.hasOwn(given, input) ? given[input] : undefined;
       if (b === undefined) {
         if (ispec.default === undefined) throw new FormulaError("missing_input", { formula: formula.id, input, detail: `in design step "${name}"` });

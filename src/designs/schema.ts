@@ -29,7 +29,8 @@ function binding(spec: InputSpec): Record<string, unknown> {
 /** JSON Schema of a design file (DesignSpec). */
 export function designSchema(): Record<string, unknown> {
   const steps = listFormulas()
-    .filter((f) => !f.definition.output.components)
+    // Formulas with component outputs or series inputs cannot be design steps (compileDesign refuses them).
+    .filter((f) => !f.definition.output.components && !Object.values(f.definition.inputs as Readonly<Record<string, InputSpec>>).some((s) => !("choices" in s) && s.series))
     .map((f) => {
       const specs = f.definition.inputs as Readonly<Record<string, InputSpec>>;
       const properties: Record<string, unknown> = {};

@@ -4,6 +4,7 @@ export {
   reluctance, gappedCoreInductance, coreFluxDensity, gapFringingFactor, inductanceFactor, inductanceFromFactor,
 } from "./magnetic-circuit.js";
 export { skinDepth, coreLoss } from "./losses.js";
+export { coreLossForWaveform } from "./waveform-loss.js";
 export {
   wireField, loopAxialField, loopField, solenoidAxialField, helmholtzCenterField, toroidField,
 } from "./field-sources.js";

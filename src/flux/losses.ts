@@ -69,6 +69,44 @@ export const skinDepth = /* @__PURE__ */ defineFormula({
       : ONE.div(Scaled.of(PI_MU0).times(x.frequency).times(Scaled.of(x.relativePermeability).times(x.conductivity)).sqrt()).toNumber(),
 });
 
+/** The material's Steinmetz parameters k, alpha, beta as inputs, in calling order: one declaration for every core-loss formula. */
+export const STEINMETZ_PARAMETERS = [
+  { name: "coefficient", dimension: "Dimensionless", description: "Steinmetz coefficient k, in W/m^3 for f in Hz and B in T", domain: POSITIVE, example: 1.5 },
+  { name: "frequencyExponent", dimension: "Dimensionless", description: "Frequency exponent alpha (typically 1 to 2)", domain: POSITIVE, example: 1.4 },
+  { name: "fluxExponent", dimension: "Dimensionless", description: "Flux-density exponent beta (typically 2 to 3)", domain: POSITIVE, example: 2.5 },
+] as const;
+
+/** The core's effective volume as an input of the core-loss formulas. */
+export const CORE_VOLUME = { name: "volume", dimension: "Volume", description: "Effective core volume V_e", domain: POSITIVE, example: 5e-6 } as const;
+
+/** The Steinmetz exponents as a formula's inputs hold them (coreLoss, coreLossForWaveform). */
+interface SteinmetzExponents {
+  readonly frequencyExponent: number;
+  readonly fluxExponent: number;
+}
+
+/** Steinmetz exponents far outside what fitted materials show: a sign of a unit mix-up. Shared by the core-loss formulas. */
+export const STEINMETZ_EXPONENTS = {
+  code: "unusual_exponents",
+  when: (x: SteinmetzExponents): boolean => x.frequencyExponent < 1 || x.frequencyExponent > 3 || x.fluxExponent < 1.5 || x.fluxExponent > 3.5,
+  // How far outside its usual range the worse exponent lies, as a ratio (> 1 when warned).
+  measure: (x: SteinmetzExponents): number =>
+    Math.max(cappedRatio(1, x.frequencyExponent), x.frequencyExponent / 3, cappedRatio(1.5, x.fluxExponent), x.fluxExponent / 3.5),
+  message: "exponents outside the usual ranges (alpha 1 to 3, beta 1.5 to 3.5; common practice): check the coefficients' units (f in Hz, B in T, k in W/m^3)",
+} as const;
+
+/** A core loss (W) over its volume above the hot-core density. Shared by the core-loss formulas. */
+export const HOT_CORE = {
+  code: "hot_core",
+  // ~100-300 kW/m^3 (100-300 mW/cm^3) is a usual ferrite design range for a ~40 K rise (common practice).
+  when: (x: { readonly volume: number }, p: number | readonly number[]): boolean => cappedRatio(p as number, x.volume) > HOT_CORE_DENSITY,
+  measure: (x: { readonly volume: number }, p: number | readonly number[]): number => cappedRatio(p as number, x.volume),
+  message: (x: { readonly volume: number }, p: number | readonly number[]): string =>
+    `loss density ${formatNumber(cappedRatio(p as number, x.volume) / 1e3, 3)} kW/m^3 (mW/cm^3) is above about 500 kW/m^3, where a core in still air ` +
+    "runs well beyond a 40 K rise (common practice): burn risk, ferrite losses rise again above their minimum temperature, possible thermal runaway; " +
+    `check the temperature rise. ${GOVERN}`,
+} as const;
+
 /**
  * Core loss by the Steinmetz equation.
  *
@@ -104,35 +142,14 @@ export const coreLoss = /* @__PURE__ */ defineFormula({
     "other waveforms, DC bias and temperature change the loss.",
   equation: "P = k * f^alpha * B^beta * V  (k in W/m^3 with f in Hz, B in T)",
   inputs: [
-    { name: "coefficient", dimension: "Dimensionless", description: "Steinmetz coefficient k, in W/m^3 for f in Hz and B in T", domain: POSITIVE, example: 1.5 },
-    { name: "frequencyExponent", dimension: "Dimensionless", description: "Frequency exponent alpha (typically 1 to 2)", domain: POSITIVE, example: 1.4 },
-    { name: "fluxExponent", dimension: "Dimensionless", description: "Flux-density exponent beta (typically 2 to 3)", domain: POSITIVE, example: 2.5 },
+    ...STEINMETZ_PARAMETERS,
     { name: "frequency", dimension: "Frequency", description: "Excitation frequency", domain: POSITIVE, example: 100e3 },
     { name: "peakFluxDensity", dimension: "FluxDensity", description: "Peak flux density (half the peak-to-peak swing)", domain: NON_NEGATIVE, example: 0.1 },
-    { name: "volume", dimension: "Volume", description: "Effective core volume V_e", domain: POSITIVE, example: 5e-6 },
+    CORE_VOLUME,
   ],
   output: { dimension: "Power", description: "Core loss" },
-  validity: [
-    {
-      code: "unusual_exponents",
-      when: (x) => x.frequencyExponent < 1 || x.frequencyExponent > 3 || x.fluxExponent < 1.5 || x.fluxExponent > 3.5,
-      // How far outside its usual range the worse exponent lies, as a ratio (> 1 when warned).
-      measure: (x) => Math.max(cappedRatio(1, x.frequencyExponent), x.frequencyExponent / 3, cappedRatio(1.5, x.fluxExponent), x.fluxExponent / 3.5),
-      message: "exponents outside the usual ranges (alpha 1 to 3, beta 1.5 to 3.5; common practice): check the coefficients' units (f in Hz, B in T, k in W/m^3)",
-    },
-  ],
-  cautions: [
-    {
-      code: "hot_core",
-      // ~100-300 kW/m^3 (100-300 mW/cm^3) is a usual ferrite design range for a ~40 K rise (common practice).
-      when: (x, p) => cappedRatio(p as number, x.volume) > HOT_CORE_DENSITY,
-      measure: (x, p) => cappedRatio(p as number, x.volume),
-      message: (x, p) =>
-        `loss density ${formatNumber(cappedRatio(p as number, x.volume) / 1e3, 3)} kW/m^3 (mW/cm^3) is above about 500 kW/m^3, where a core in still air ` +
-        "runs well beyond a 40 K rise (common practice): burn risk, ferrite losses rise again above their minimum temperature, possible thermal runaway; " +
-        `check the temperature rise. ${GOVERN}`,
-    },
-  ],
+  validity: [STEINMETZ_EXPONENTS],
+  cautions: [HOT_CORE],
   source: [
     { authors: "C. P. Steinmetz", year: 1892, title: "On the law of hysteresis, Trans. AIEE 9, 3-64" },
     { authors: "C. W. T. McLyman", year: 2004, title: "Transformer and Inductor Design Handbook, 3rd ed.", locator: "core loss (chapter not checked; from memory)" },

@@ -1,4 +1,4 @@
-import { type CatalogEntry, outputText } from "../tools/catalog.js";
+import { type CatalogEntry, inputShapeText, outputText } from "../tools/catalog.js";
 import { formatQuantity } from "../units/display.js";
 
 /**
@@ -13,7 +13,7 @@ export class FormulaHelp {
     const e = this.entry;
     const lines = [`${e.title} (${e.id})`, `  ${e.equation}`, "", e.description, "", "Inputs, in calling order:"];
     for (const i of e.inputs) {
-      const what = i.kind === "choice" ? `one of ${i.choices!.join(", ")}` : `${i.dimension}${i.unit ? ` [${i.unit}]` : ""}${i.vector ? ", 3-vector" : ""}`;
+      const what = i.kind === "choice" ? `one of ${i.choices!.join(", ")}` : `${i.dimension}${i.unit ? ` [${i.unit}]` : ""}${inputShapeText(i)}`;
       const given = i.default !== undefined ? `default ${typeof i.default === "number" ? formatQuantity(i.default, i.unit ?? "") : i.default}` : "required";
       lines.push(`  ${i.name}: ${i.description} (${what}; ${given})`);
     }

@@ -9,6 +9,7 @@ import { addTradeUnits } from "../units/parse.js";
 import { catalogEntry } from "../tools/catalog.js";
 import { readQuantity } from "../tools/convert.js";
 import { columnsToJson, evaluateColumns } from "../tools/columns.js";
+import { atSample, checkSeriesShape } from "../core/domain.js";
 import { formatQuantity } from "../units/display.js";
 import { notebookDesign } from "./design.js";
 import { BuiltinHelp, FormulaHelp, type MathjsDoc } from "./help.js";
@@ -301,6 +302,11 @@ function inputsFrom(math: MathJsInstance, f: AnyFormula, args: unknown[]): Recor
         throw new FormulaError("wrong_type", { formula: f.id, input: name, value: raw, expected: "a 3-vector [x, y, z]" });
       }
       out[name] = arr.map((c) => scalar(math, f.id, name, spec.dimension, c));
+    } else if (spec.series) {
+      // A mathjs matrix or a plain array; its length is checked before any sample is read.
+      const arr = typeof (raw as { toArray?: unknown }).toArray === "function" ? (raw as { toArray(): unknown[] }).toArray() : raw;
+      checkSeriesShape(f.id, name, spec.series, arr);
+      out[name] = arr.map((c, i) => sample(math, f.id, name, spec.dimension, c, i));
     } else {
       out[name] = scalar(math, f.id, name, spec.dimension, raw);
     }
@@ -322,6 +328,15 @@ function scalar(math: MathJsInstance, id: string, name: string, dimension: keyof
   // Numbers are SI; strings are unit strings; anything else fails with the input's name.
   void math;
   return readQuantity(id, name, dimension, raw);
+}
+
+/** One sample of a series: a scalar whose error, if any, says which sample it was. */
+function sample(math: MathJsInstance, id: string, name: string, dimension: keyof typeof DIMENSIONS, raw: unknown, index: number): number {
+  try {
+    return scalar(math, id, name, dimension, raw);
+  } catch (e) {
+    throw atSample(e, index);
+  }
 }
 
 function toUnits(math: MathJsInstance, f: AnyFormula, value: number | readonly number[], x: Readonly<Record<string, unknown>>): unknown {

@@ -14,11 +14,18 @@ export interface CatalogInput {
   /** SI unit symbol ("" when dimensionless). */
   readonly unit?: string;
   readonly vector?: boolean;
+  /** For a series input (a waveform): how many samples it takes. */
+  readonly series?: { readonly minLength: number; readonly maxLength: number };
   readonly default?: number | string;
   readonly domain?: { readonly min?: number; readonly minExclusive?: boolean; readonly max?: number; readonly maxExclusive?: boolean; readonly integer?: boolean; readonly rule: string };
   readonly example?: number | string | readonly number[];
   readonly choices?: readonly string[];
   readonly required: boolean;
+}
+
+/** How a quantity input is shaped, as the CLI and notebook help print it: "", ", 3-vector", ", series of 2 to 10000 samples". */
+export function inputShapeText(i: CatalogInput): string {
+  return i.vector ? ", 3-vector" : i.series ? `, series of ${i.series.minLength} to ${i.series.maxLength} samples` : "";
 }
 
 /** A warning or caution as plain JSON: its code, and its text when the text does not depend on the inputs. */
@@ -87,6 +94,7 @@ export function catalogEntry(formula: AnyFormula | string): CatalogEntry {
     return {
       name, description: s.description, kind: "quantity", dimension: s.dimension, unit: siUnit(s.dimension),
       ...(s.vector ? { vector: true } : {}),
+      ...(s.series ? { series: { minLength: s.series.minLength, maxLength: s.series.maxLength } } : {}),
       ...(s.default !== undefined ? { default: s.default } : {}),
       ...(s.domain ? { domain: { ...s.domain, rule: domainRule(s.domain) } } : {}),
       ...(s.example !== undefined ? { example: Array.isArray(s.example) ? [...s.example] : s.example } : {}),
@@ -144,7 +152,11 @@ export function inputSchema(formula: AnyFormula | string): Record<string, unknow
     const scalar = {
       anyOf: [number, { type: "string", minLength: 1, maxLength: 200, description: unit ? `a number with a unit of ${s.dimension}, e.g. "1.5 ${unit}"` : "a number (a bare number string is read as is)" }],
     };
-    const body = s.vector ? { type: "array", items: scalar, minItems: 3, maxItems: 3 } : scalar;
+    const body = s.vector
+      ? { type: "array", items: scalar, minItems: 3, maxItems: 3 }
+      : s.series
+        ? { type: "array", items: scalar, minItems: s.series.minLength, maxItems: s.series.maxLength }
+        : scalar;
     properties[name] = {
       description: s.description,
       "x-dimension": s.dimension,

@@ -11,9 +11,14 @@ export function specsOf(formula: AnyFormula): Readonly<Record<string, InputSpec>
   return formula.definition.inputs as InputSpecs;
 }
 
-/** True for a scalar quantity input (not a choice, not a vector). */
+/** True for a scalar quantity input (not a choice, not a vector, not a series). */
 export function isScalarQuantity(spec: InputSpec | undefined): spec is QuantityInput {
-  return spec !== undefined && !("choices" in spec) && !spec.vector;
+  return spec !== undefined && !("choices" in spec) && !spec.vector && !spec.series;
+}
+
+/** What kind of input a non-scalar is, for messages: "a choice", "a vector", "a series". */
+export function inputKind(spec: InputSpec): string {
+  return "choices" in spec ? "a choice" : spec.vector ? "a vector" : spec.series ? "a series" : "a scalar";
 }
 
 /** SI unit symbol of a dimension ("" for dimensionless). */

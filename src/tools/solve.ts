@@ -6,12 +6,12 @@ import { countLoop } from "../math/loop-count.js";
 import { brent, signChanges } from "../math/roots.js";
 import type { DimensionName } from "../units/dimensions.js";
 import type { DimensionTypes } from "../units/types.js";
-import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf, startValue } from "./convert.js";
+import { bind, convertInputs, inDomain, inputKind, isScalarQuantity, readQuantity, siUnit, specsOf, startValue } from "./convert.js";
 
 /** Names of a formula's scalar quantity inputs (the ones solve can find). */
 export type SolvableInput<I extends InputSpecs> = {
   [K in keyof I]: I[K] extends { readonly dimension: DimensionName }
-    ? I[K] extends { readonly vector: true } ? never : K
+    ? I[K] extends { readonly vector: true } | { readonly series: object } ? never : K
     : never;
 }[keyof I] & string;
 
@@ -188,7 +188,7 @@ function solveSI(formula: AnyFormula, name: string, target: unknown, others: Rec
   if (!isScalarQuantity(spec)) {
     throw new FormulaError("invalid_argument", {
       formula: id, input: name,
-      detail: "choices" in spec ? "a choice input cannot be solved for" : "a vector input cannot be solved for",
+      detail: `${inputKind(spec)} input cannot be solved for`,
     });
   }
   if (typeof target !== "number") throw new FormulaError("wrong_type", { formula: id, input: "target", value: target, expected: "a number in SI units" });

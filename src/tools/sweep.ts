@@ -2,7 +2,7 @@ import { FormulaError } from "../core/errors.js";
 import type { AnyFormula, Formula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
 import { outputDimension, type InputSpecs, type OutputSpec, type QuantityInput } from "../core/spec.js";
-import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
+import { bind, convertInputs, inDomain, inputKind, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
 import { noteConditions, noteSummary, type NoteSummary } from "./notes.js";
 import { axisTitle, axisUnit, largestMagnitude } from "./axis-units.js";
 import { computePoints, scanNotes, type Grid } from "./sweep-points.js";
@@ -108,7 +108,7 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
   const plans = names.map((name) => {
     const s = Object.hasOwn(specs, name) ? specs[name] : undefined;
     if (s === undefined) throw new FormulaError("unknown_input", { formula: id, input: name });
-    if (!isScalarQuantity(s)) throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "only scalar quantity inputs can be swept" });
+    if (!isScalarQuantity(s)) throw new FormulaError("invalid_argument", { formula: id, input: name, detail: `only scalar quantity inputs can be swept; ${inputKind(s)} input is held as given` });
     if (typeof fixedRaw === "object" && fixedRaw !== null && Object.hasOwn(fixedRaw, name)) {
       throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "an input cannot be both swept and fixed" });
     }

@@ -2,7 +2,7 @@ import { FormulaError } from "../core/errors.js";
 import type { AnyFormula, Formula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
 import { outputDimension, type InputSpecs, type Note, type OutputSpec, type QuantityInput } from "../core/spec.js";
-import { bind, convertInputs, inDomain, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
+import { bind, convertInputs, inDomain, inputKind, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
 import { NoteCollector, type NoteSummary } from "./notes.js";
 import { createRandom, type Random } from "./random.js";
 
@@ -169,7 +169,10 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
     }
     const spec = specs[name]!;
     if (!isScalarQuantity(spec)) {
-      throw new FormulaError("invalid_argument", { formula: id, input: name, detail: "only scalar quantity inputs can carry a tolerance" });
+      throw new FormulaError("invalid_argument", {
+        formula: id, input: name,
+        detail: `only scalar quantity inputs can carry a tolerance; ${inputKind(spec)} input is held as given`,
+      });
     }
     varied.push(readTolerance(id, name, spec, raw, remarks));
   }
