@@ -2,7 +2,7 @@ import { DIMENSIONS, type DimensionName, type Exponents, nameExponents, sameExpo
 import { parseQuantity } from "../units/parse.js";
 import { FormulaError } from "./errors.js";
 import type { AnyFormula } from "./formula.js";
-import { atSample, checkSeriesShape } from "./domain.js";
+import { atSample, checkSeriesShape } from "./series.js";
 import type { InputSpecs } from "./spec.js";
 
 // Run-time inputs (numbers in SI, unit strings, choice words, 3-arrays, series) to SI:

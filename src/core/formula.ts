@@ -1,10 +1,10 @@
-import { checkSeriesShape, inDomain, sampleDetail } from "./domain.js";
+import { inDomain } from "./domain.js";
 import { FormulaError } from "./errors.js";
 import { inWords } from "./format.js";
 import { buildFastPath, inputsClass } from "./fast-path.js";
 import type {
   ChoiceCall, ComputeInputs, ComputeOutput, Detailed, Domain, FormulaDeclaration, FormulaDefinition, FormulaInputs, FormulaOutput,
-  InputList, InputsByName, InputSpec, InputSpecs, NamedInput, Note, OutputSpec, SeriesLength,
+  InputList, InputsByName, InputSpec, InputSpecs, NamedInput, Note, OutputSpec,
 } from "./spec.js";
 
 /**
@@ -66,7 +66,6 @@ export function defineFormula<const L extends InputList, const O extends OutputS
 ): ChoiceCall<InputsByName<L>, O> & Formula<InputsByName<L>, O> {
   type I = InputsByName<L>;
   const def = { ...declaration, inputs: byName(declaration) } as FormulaDefinition<I, O>;
-  checkByChoice(def as unknown as FormulaDefinition<InputSpecs, OutputSpec>);
   const id = def.id;
   const specs: readonly NamedInput[] = declaration.inputs;
   const names = specs.map((s) => s.name);
@@ -106,26 +105,15 @@ export function defineFormula<const L extends InputList, const O extends OutputS
       for (const c of v) checkNumber(name, spec.domain, c);
       return;
     }
-    if (spec.series) {
-      checkSeries(name, spec.series, spec.domain, v);
-      return;
-    }
+    if (spec.series) return spec.series.check(id, name, spec.series, spec.domain, v, checkNumber);
     checkNumber(name, spec.domain, v);
   }
 
-  // A series: an array within its length bounds, then each sample as a number. A bad sample's
-  // error names the input and, in its detail, the sample's index (a waveform can be long).
-  function checkSeries(name: string, length: SeriesLength, domain: Domain | undefined, v: unknown): void {
-    checkSeriesShape(id, name, length, v);
-    for (let i = 0; i < v.length; i++) checkNumber(name, domain, v[i], sampleDetail(i));
-  }
-
-  // `detail` says where in a series the value sits (undefined for a scalar).
-  function checkNumber(name: string, domain: Domain | undefined, v: unknown, detail?: string): void {
-    if (typeof v !== "number") throw new FormulaError("wrong_type", { formula: id, input: name, value: v, expected: "a number in SI units", detail });
-    if (v - v !== 0) throw new FormulaError("not_finite", { formula: id, input: name, value: v, detail });
+  function checkNumber(name: string, domain: Domain | undefined, v: unknown): void {
+    if (typeof v !== "number") throw new FormulaError("wrong_type", { formula: id, input: name, value: v, expected: "a number in SI units" });
+    if (v - v !== 0) throw new FormulaError("not_finite", { formula: id, input: name, value: v });
     if (domain !== undefined && !inDomain(v, domain)) {
-      throw new FormulaError("out_of_domain", { formula: id, input: name, value: v, rule: domainRule(domain), detail });
+      throw new FormulaError("out_of_domain", { formula: id, input: name, value: v, rule: domainRule(domain) });
     }
   }
 
@@ -210,25 +198,9 @@ function byName(declaration: { readonly id: string; readonly inputs: InputList }
   return Object.freeze(new InputsView(declaration.inputs)) as unknown as InputSpecs;
 }
 
-// An output decided by a choice names a declared choice input and gives a dimension for every choice, the first being `dimension`.
-function checkByChoice(def: FormulaDefinition<InputSpecs, OutputSpec>): void {
-  const by = def.output.byChoice;
-  if (by === undefined) return;
-  const spec = Object.hasOwn(def.inputs, by.input) ? def.inputs[by.input] : undefined;
-  if (spec === undefined || !("choices" in spec)) throw new Error(`${def.id}: output.byChoice names "${by.input}", which is not a choice input`);
-  const keys = Object.keys(by.dimensions);
-  if (keys.length !== spec.choices.length || spec.choices.some((c) => !Object.hasOwn(by.dimensions, c)) || by.dimensions[spec.choices[0]!] !== def.output.dimension) {
-    throw new Error(`${def.id}: output.byChoice needs one dimension per choice of "${by.input}", the first equal to output.dimension`);
-  }
-}
-
 function quoteInputs(x: Readonly<Record<string, unknown>>): string {
   return Object.entries(x)
-    .map(([k, v]) => `${k} = ${Array.isArray(v) ? arrayText(v) : String(v)}`)
+    // A vector is quoted; a series (thousands of samples, perhaps) only counted.
+    .map(([k, v]) => `${k} = ${Array.isArray(v) ? `[${v.length > 3 ? `${v.length} samples` : v.join(", ")}]` : String(v)}`)
     .join(", ");
-}
-
-// A series may hold thousands of samples: a message quotes its length and first few.
-function arrayText(v: readonly unknown[]): string {
-  return v.length <= 6 ? `[${v.join(", ")}]` : `[${v.slice(0, 4).join(", ")}, ... (${v.length} samples)]`;
 }

@@ -9,6 +9,7 @@ import * as magnets from "../magnets/index.js";
 import * as windings from "../windings/index.js";
 import { FormulaError } from "./errors.js";
 import { type AnyFormula, isFormula } from "./formula.js";
+import type { FormulaDefinition, InputSpecs, OutputSpec } from "./spec.js";
 import { didYouMean } from "./suggest.js";
 
 // Every formula module's exports are scanned, so adding a formula to a module's
@@ -24,6 +25,7 @@ function table(): Map<string, AnyFormula> {
     for (const v of Object.values(m)) {
       if (!isFormula(v)) continue;
       if (byId.has(v.id) && byId.get(v.id) !== v) throw new Error(`duplicate formula id ${v.id}`);
+      checkByChoice(v.definition as FormulaDefinition<InputSpecs, OutputSpec>);
       byId.set(v.id, v);
     }
   }
@@ -46,4 +48,21 @@ export function getFormula(id: unknown): AnyFormula {
     throw new FormulaError("unknown_formula", { value: id, ...(hint ? { detail: hint } : {}) });
   }
   return f;
+}
+
+/**
+ * An output decided by a choice names a declared choice input and gives a
+ * dimension for every choice, the first being `dimension`. Checked when the
+ * registry is built (and by tests for any definition), not in defineFormula:
+ * the typed path of a formula without such an output should not carry it.
+ */
+export function checkByChoice(def: FormulaDefinition<InputSpecs, OutputSpec>): void {
+  const by = def.output.byChoice;
+  if (by === undefined) return;
+  const spec = Object.hasOwn(def.inputs, by.input) ? def.inputs[by.input] : undefined;
+  if (spec === undefined || !("choices" in spec)) throw new Error(`${def.id}: output.byChoice names "${by.input}", which is not a choice input`);
+  const keys = Object.keys(by.dimensions);
+  if (keys.length !== spec.choices.length || spec.choices.some((c) => !Object.hasOwn(by.dimensions, c)) || by.dimensions[spec.choices[0]!] !== def.output.dimension) {
+    throw new Error(`${def.id}: output.byChoice needs one dimension per choice of "${by.input}", the first equal to output.dimension`);
+  }
 }

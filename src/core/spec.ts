@@ -49,6 +49,8 @@ export const RELATIVE_PERMEABILITY = {
 export interface SeriesLength {
   readonly minLength: number;
   readonly maxLength: number;
+  /** Made by `seriesOf` (src/core/series.ts): how `defineFormula` checks the series. */
+  readonly check: import("./series.js").SeriesCheck;
 }
 
 /**

@@ -1,5 +1,6 @@
 import { defineFormula } from "../core/formula.js";
 import { formatNumber } from "../core/format.js";
+import { seriesOf } from "../core/series.js";
 import { POSITIVE } from "../core/spec.js";
 import { meanAbsCosinePower } from "../math/gamma-ratio.js";
 import { countLoop } from "../math/loop-count.js";
@@ -152,7 +153,7 @@ export const coreLossForWaveform = /* @__PURE__ */ defineFormula({
       name: "waveform",
       dimension: "FluxDensity",
       description: `Flux density over one period: samples equally spaced in time, joined by straight lines, the last back to the first (2 to ${WAVEFORM_MAX_SAMPLES} samples)`,
-      series: { minLength: 2, maxLength: WAVEFORM_MAX_SAMPLES },
+      series: seriesOf(2, WAVEFORM_MAX_SAMPLES),
       // A symmetric triangle of 0.2 T peak-to-peak.
       example: [0, 0.05, 0.1, 0.05, 0, -0.05, -0.1, -0.05],
     },

@@ -9,7 +9,7 @@ import { addTradeUnits } from "../units/parse.js";
 import { catalogEntry } from "../tools/catalog.js";
 import { readQuantity } from "../tools/convert.js";
 import { columnsToJson, evaluateColumns } from "../tools/columns.js";
-import { atSample, checkSeriesShape } from "../core/domain.js";
+import { atSample, checkSeriesShape } from "../core/series.js";
 import { formatQuantity } from "../units/display.js";
 import { notebookDesign } from "./design.js";
 import { BuiltinHelp, FormulaHelp, type MathjsDoc } from "./help.js";
