@@ -28,12 +28,19 @@ function viaMathjs(text: string): ParsedQuantity | undefined {
   }
 }
 
-/** Fails unless the reader and the mathjs path agree exactly (Object.is: the same double, the same zero). */
+/** How the reader and the mathjs path disagree (Object.is: the same double, the same zero), or undefined when they agree exactly. */
+function difference(text: string, fast: ParsedQuantity | undefined, slow: ParsedQuantity | undefined): string | undefined {
+  if (fast === undefined) return `the reader does not read "${text}"`;
+  if (slow === undefined) return `mathjs refuses "${text}", the reader reads it`;
+  if (!Object.is(fast.si, slow.si)) return `"${text}": reader ${fast.si}, mathjs ${slow.si}`;
+  for (let k = 0; k < 8; k++) if (!Object.is(fast.exps[k], slow.exps[k])) return `"${text}" exponent ${k}: reader ${fast.exps[k]}, mathjs ${slow.exps[k]}`;
+  if (fast.plain) return `"${text}": the reader calls it a plain number`;
+  return undefined;
+}
+
+/** Fails unless the reader and the mathjs path agree exactly. */
 function expectSame(text: string, fast: ParsedQuantity, slow: ParsedQuantity | undefined): void {
-  expect(slow, `mathjs refuses "${text}", the reader reads it`).toBeDefined();
-  expect(Object.is(fast.si, slow!.si), `"${text}": reader ${fast.si}, mathjs ${slow!.si}`).toBe(true);
-  for (let k = 0; k < 8; k++) expect(Object.is(fast.exps[k], slow!.exps[k]), `"${text}" exponent ${k}`).toBe(true);
-  expect(fast.plain).toBe(false);
+  expect(difference(text, fast, slow), text).toBeUndefined();
 }
 
 const SYMBOLS = [...readerSymbols().keys()];
@@ -55,16 +62,18 @@ describe("the reader's symbols are mathjs's", () => {
   });
 
   it("each symbol to the powers -2..3 with a few values reads as the mathjs path reads it", () => {
+    const wrong: string[] = [];
     for (const sym of SYMBOLS) {
       for (const power of ["", "^2", "^3", "^-1", "^-2"]) {
         for (const value of ["1", "10", "0.45", "4.7e-3", "-2.5e7"]) {
           const text = `${value} ${sym}${power}`;
-          const fast = readUnitString(text);
-          expect(fast, text).toBeDefined();
-          expectSame(text, fast!, viaMathjs(text));
+          const why = difference(text, readUnitString(text), viaMathjs(text));
+          if (why !== undefined) wrong.push(why);
         }
       }
     }
+    // One expect for the 12,500 strings, not a dozen per string: the test took a quarter of the time.
+    expect(wrong).toEqual([]);
   });
 });
 
