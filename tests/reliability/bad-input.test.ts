@@ -141,14 +141,14 @@ function checkTarget(t: Target): void {
     }
 
     const unit = siUnit(spec);
-    // Scalar-level cases; for vectors they are applied to one component.
+    // Scalar-level cases; for vectors and series they are applied to one component (one sample).
     const place = (v: unknown): unknown => {
-      if (!spec.vector) return v;
+      if (!spec.vector && !spec.series) return v;
       const c = [...(ex[name] as number[])];
       c[1] = v as number;
       return c;
     };
-    const where = spec.vector ? `${name}[1]` : name;
+    const where = spec.vector || spec.series ? `${name}[1]` : name;
 
     for (const v of [NaN, Infinity, -Infinity]) {
       expectEval(with1(name, place(v)), "not_finite", name, `${where} = ${v}`);
@@ -186,6 +186,18 @@ function checkTarget(t: Target): void {
         const code = Array.isArray(bad) && bad.length === 3 ? "wrong_type" : "wrong_type";
         expectEval(with1(name, bad), code, name, `${name} = ${JSON.stringify(bad)}`);
         expectTyped(with1(name, bad), code, name, `${name} = ${JSON.stringify(bad)}`);
+      }
+    }
+    if (spec.series) {
+      // Not an array: wrong_type; an array outside the length bounds: out_of_domain; both name the input.
+      for (const bad of [5, "1 m", { 0: 1, 1: 2, length: 2 }, new Float64Array(3)]) {
+        expectEval(with1(name, bad), "wrong_type", name, `${name} = ${JSON.stringify(bad)}`);
+        expectTyped(with1(name, bad), "wrong_type", name, `${name} = ${JSON.stringify(bad)}`);
+      }
+      for (const length of [spec.series.minLength - 1, spec.series.maxLength + 1]) {
+        const bad = new Array<number>(Math.max(0, length)).fill(0);
+        expectEval(with1(name, bad), "out_of_domain", name, `${name} of ${length} samples`);
+        expectTyped(with1(name, bad), "out_of_domain", name, `${name} of ${length} samples`);
       }
     }
 
