@@ -2,7 +2,7 @@ import { DIMENSIONS, type DimensionName, type Exponents, nameExponents, sameExpo
 import { parseQuantity } from "../units/parse.js";
 import { FormulaError } from "./errors.js";
 import type { AnyFormula } from "./formula.js";
-import { atSample, checkSeriesShape } from "./series.js";
+import { atSample } from "./series.js";
 import type { InputSpecs } from "./spec.js";
 
 // Run-time inputs (numbers in SI, unit strings, choice words, 3-arrays, series) to SI:
@@ -61,8 +61,13 @@ export function convertInputs(formula: AnyFormula, inputs: unknown, skip: readon
       }
       out[name] = raw.map((c: unknown) => toNumber(id, name, spec.dimension, c));
     } else if (spec.series) {
-      // Length first: a series over its ceiling is refused before any sample is read.
-      checkSeriesShape(id, name, spec.series, raw);
+      // A series of the wrong shape (not an array, or past its length bounds) passes
+      // as it is, no sample read: prepare refuses it in declaration order, naming
+      // the same input with the same code as the typed call does.
+      if (!Array.isArray(raw) || raw.length < spec.series.minLength || raw.length > spec.series.maxLength) {
+        out[name] = raw;
+        continue;
+      }
       const samples = new Array<unknown>(raw.length);
       for (let i = 0; i < raw.length; i++) samples[i] = toNumber(id, name, spec.dimension, raw[i], i);
       out[name] = samples;
