@@ -72,6 +72,9 @@ export function domainsHold(f: AnyFormula, x: Inputs): boolean {
       if (typeof v !== "string" || !spec.choices.includes(v)) return false;
     } else if (spec.vector) {
       if (!Array.isArray(v) || v.length !== 3 || !v.every((c) => typeof c === "number" && inDomain(c, spec.domain))) return false;
+    } else if (spec.series) {
+      const { minLength, maxLength } = spec.series;
+      if (!Array.isArray(v) || v.length < minLength || v.length > maxLength || !v.every((c) => typeof c === "number" && inDomain(c, spec.domain))) return false;
     } else if (typeof v !== "number" || !inDomain(v, spec.domain)) return false;
   }
   return true;

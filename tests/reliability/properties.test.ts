@@ -34,6 +34,7 @@ const registered = new Set(list.map((e) => e.f));
 const NOT_SIMILITUDE_INVARIANT: Readonly<Record<string, string>> = {
   exposureReferenceLevel: "ICNIRP's tables set levels in T and V/m at given frequencies in Hz",
   coreLoss: "the Steinmetz coefficients are empirical, with units fitted to W/m^3 at given f and B",
+  coreLossForWaveform: "the Steinmetz coefficients are empirical, with units fitted to W/m^3 at given f and B",
   debyeLength: "the electron's charge e and Boltzmann's constant are fixed (electron temperature in kelvin, electron density)",
   traceResistance: "copper's resistivity (IEC 60028) is a material constant in ohm m",
   wireGaugeDiameter: "a gauge names a fixed diameter (ASTM B258 defines 36 AWG as 0.005 in)",
@@ -68,7 +69,12 @@ function nearExample(f: AnyFormula, ex: Inputs): fc.Arbitrary<Inputs> {
     }
     const k = fc.double({ min: 0.5, max: 2, noNaN: true });
     const v = ex[name];
-    parts[name] = Array.isArray(v) ? fc.tuple(k, k, k).map((ks) => v.map((c: number, i) => c * ks[i]!)) : k.map((m) => (v as number) * m);
+    // A vector's components vary apart; a series (a waveform) is scaled as a whole, keeping its shape.
+    parts[name] = !Array.isArray(v)
+      ? k.map((m) => (v as number) * m)
+      : spec.series
+        ? k.map((m) => v.map((c: number) => c * m))
+        : fc.tuple(k, k, k).map((ks) => v.map((c: number, i) => c * ks[i]!));
   }
   return fc.record(parts).filter((x) => domainsHold(f, x) && failingRelations(f, x).length === 0);
 }
