@@ -12,3 +12,9 @@ export type { CatalogEntry, CatalogInput, CatalogNote } from "./catalog.js";
 export type { NoteSummary } from "./notes.js";
 export { createRandom } from "./random.js";
 export type { Random } from "./random.js";
+export {
+  MAX_WORKERS, MIN_PARALLEL_FIELD_PAIRS, MIN_PARALLEL_POINTS, MIN_PARALLEL_SAMPLES, MIN_PARALLEL_SEGMENT_PAIRS,
+  biotSavartParallel, mutualInductanceParallel, polylineSelfInductanceParallel, sweepParallel, toleranceParallel,
+} from "./parallel.js";
+export type { BiotSavartParallelOptions, ParallelOptions } from "./parallel.js";
+export { closeWorkers, workerThreads } from "./pool.js";
