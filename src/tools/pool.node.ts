@@ -15,7 +15,7 @@ import type { PoolTask, TaskOutcome } from "./pool-tasks.js";
  */
 
 /** Idle time after which a pool thread ends, ms. */
-const IDLE_MS = 2000;
+const IDLE_MS = 5000;
 /** Most threads the pool holds (several calls at once share it). */
 const MAX_THREADS = 64;
 
