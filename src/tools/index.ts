@@ -18,3 +18,6 @@ export {
 } from "./parallel.js";
 export type { BiotSavartParallelOptions, ParallelOptions } from "./parallel.js";
 export { closeWorkers, workerThreads } from "./pool.js";
+export { MAX_SHARDS, mergeShards, planShards, runShard } from "./shards.js";
+export type { Shard, ShardRequest, ShardResult, SweepShardRequest, SweepShardResult, ToleranceShardRequest, ToleranceShardResult } from "./shards.js";
+export type { CollectedNotes } from "./notes.js";

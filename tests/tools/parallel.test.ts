@@ -64,7 +64,9 @@ describe("worker count and formulas", () => {
   });
 });
 
-describe("parallel calls on the pool give the synchronous result bit for bit", () => {
+// Generous runner timeouts: from source each pool thread loads the library through tsx,
+// which takes tens of seconds on a loaded machine (not a timing check of the results).
+describe("parallel calls on the pool give the synchronous result bit for bit", { timeout: 300_000 }, () => {
   it("tolerance Monte Carlo (uniform and normal inputs, notes) with 1, 2 and 3 workers", async () => {
     const inputs = {
       area: { nominal: 1e-4, percent: 2 },
