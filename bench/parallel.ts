@@ -82,7 +82,7 @@ export async function run(): Promise<BenchRow[]> {
     rows.push({ name: `small job: Monte Carlo ${samples} samples, 2 workers`, value: `${r.speedUp.toFixed(2)}x`, note: `speed-up (below 1: the pool does not pay); ${ms(r.sync)} -> ${ms(r.par)}; ${load()}` });
   }
   for (const k of [1, 4]) {
-    const pts = (k * lib.MIN_PARALLEL_POINTS) / 16;
+    const pts = (k * lib.MIN_PARALLEL_FIELD_PAIRS) / 16;
     const sub = points.subarray(0, 3 * Math.round(pts));
     const r = await pair(() => lib.biotSavart(loop, 1, sub), () => lib.biotSavartParallel(loop, 1, sub, { workers: 2 }), 7);
     rows.push({ name: `small job: field map ${sub.length / 3} points x 16 segments, 2 workers`, value: `${r.speedUp.toFixed(2)}x`, note: `speed-up; ${ms(r.sync)} -> ${ms(r.par)}; ${load()}` });
