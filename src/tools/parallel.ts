@@ -24,7 +24,8 @@ import { finishTolerance, type MonteCarloPart, monteCarloRange, planTolerance, t
  * streams, pair rows) and joined in index order.
  *
  * Below a size where threads do not pay (measured in bench/parallel.ts: the
- * MIN_PARALLEL_* constants) the work runs in the calling thread.
+ * MIN_PARALLEL_* constants, set from a run on a loaded machine: measure again
+ * on an idle one) the work runs in the calling thread.
  *
  * Browser build: there are no worker threads; `workers` given is refused
  * (invalid_argument), left out the call computes in the calling thread.
@@ -46,9 +47,9 @@ export const MAX_WORKERS = 64;
 /** Monte Carlo samples from which toleranceParallel uses the pool (bench/parallel.ts). */
 export const MIN_PARALLEL_SAMPLES = 20_000;
 /** Sweep points from which sweepParallel uses the pool (bench/parallel.ts). */
-export const MIN_PARALLEL_POINTS = 200_000;
+export const MIN_PARALLEL_POINTS = 1_000_000;
 /** Segment-point pairs from which biotSavartParallel uses the pool (bench/parallel.ts). */
-export const MIN_PARALLEL_FIELD_PAIRS = 2_000_000;
+export const MIN_PARALLEL_FIELD_PAIRS = 8_000_000;
 /** Segment pairs from which the Neumann entries use the pool (bench/parallel.ts). */
 export const MIN_PARALLEL_SEGMENT_PAIRS = 5_000;
 
