@@ -104,6 +104,8 @@ export function readColumns(formula: AnyFormula, inputs: unknown): ReadColumns {
       }
       continue;
     }
+    // A series (a waveform) is one value for every row, like a vector: an array here is that series.
+    if (!("choices" in spec) && spec.series) continue;
     const n = column.length;
     if (n > MAX_COLUMN_ROWS) throw new FormulaError("invalid_argument", { formula: id, input: name, value: n, detail: `a column has at most ${MAX_COLUMN_ROWS} rows` });
     if (rows < 0) {
@@ -135,7 +137,7 @@ export function readColumns(formula: AnyFormula, inputs: unknown): ReadColumns {
       texts.set(name, (i) => raw[i]);
       continue;
     }
-    if (spec.vector || (!isColumn(raw) && !isUnitColumn(raw))) {
+    if (spec.vector || spec.series || (!isColumn(raw) && !isUnitColumn(raw))) {
       if (raw !== undefined) fixed[name] = raw;
       continue;
     }

@@ -22,7 +22,7 @@ function rowOf(id: string, inputs: Row, i: number): Row {
   const specs = getFormula(id).definition.inputs as Record<string, InputSpec>;
   const row: Row = {};
   for (const [k, v] of Object.entries(inputs)) {
-    const vector = !("choices" in specs[k]!) && specs[k]!.vector === true;
+    const vector = !("choices" in specs[k]!) && (specs[k]!.vector === true || specs[k]!.series !== undefined);
     const cell = v instanceof Float64Array || (Array.isArray(v) && !vector) ? (v as ArrayLike<unknown>)[i] : v;
     if (cell !== "") row[k] = cell;
   }
@@ -109,7 +109,7 @@ describe("evaluateColumns over a table of parts", () => {
   it("agrees with evaluate row by row for every registry formula, columns of scaled examples with bad rows mixed in", () => {
     let checked = 0;
     for (const { f, ex } of withExamples()) {
-      const quantities = specsOf(f).filter(([, s]) => isQuantity(s) && !s.vector && typeof s.example === "number");
+      const quantities = specsOf(f).filter(([, s]) => isQuantity(s) && !s.vector && !s.series && typeof s.example === "number");
       if (quantities.length === 0) continue;
       const factors = [1, 0.5, 2, 10, 0.1, -1, 0, NaN, 1e200, 1e-200, 3];
       const inputs: Row = { ...ex };
