@@ -10,23 +10,27 @@ export const ENTRIES: Record<string, string> = {
 };
 // The command-line program (ESM only, Node only).
 const BIN = { cli: "src/cli/main.ts" };
+// The module each worker thread of the parallel calls loads (Node only; src/tools/pool.node.ts finds it beside itself).
+const WORKER = { "pool-worker": "src/tools/pool-worker.node.ts" };
 
 const common: Options = {
   target: "es2022",
   sourcemap: false,
   // Dependencies stay external so a consumer's bundler dedupes and tree-shakes them.
   // vega and vega-lite: optional, loaded by the CLI only when it draws a chart (src/cli/chart.ts).
-  external: ["mathjs", "decimal.js", "vega", "vega-lite"],
+  external: ["mathjs", "decimal.js", "piscina", "vega", "vega-lite"],
 };
 
 // In the Node build the loaders (the two of mathjs, the one of decimal.js)
 // become their *.node.ts versions, which require the package (or the prebuilt
 // subset) on first use instead of importing it at load time: `import "emquant"`
-// then loads neither mathjs nor decimal.js.
+// then loads neither mathjs nor decimal.js. Likewise the worker pool
+// (src/tools/pool.ts, none in the browser build) becomes pool.node.ts, which
+// imports piscina on the first parallel call.
 const nodeLoaders = {
   name: "emquant-node-loaders",
   setup(build: { onResolve: (o: { filter: RegExp }, f: (a: { path: string; resolveDir: string }) => { path: string }) => void }) {
-    build.onResolve({ filter: /\/load-(subset|full|decimal)\.js$/ }, (args) => ({
+    build.onResolve({ filter: /\/(load-(subset|full|decimal)|pool)\.js$/ }, (args) => ({
       path: resolve(args.resolveDir, args.path.replace(/\.js$/, ".node.ts")),
     }));
   },
@@ -45,7 +49,7 @@ export default defineConfig([
   // 2. Node: bundled ESM entries (fast to load) and the CLI, sharing chunks.
   {
     ...common,
-    entry: { ...ENTRIES, ...BIN },
+    entry: { ...ENTRIES, ...BIN, ...WORKER },
     format: ["esm"],
     splitting: true,
     outDir: "dist/node",

@@ -82,6 +82,17 @@ export function biotSavart(
   out?: Float64Array,
   options?: BiotSavartOptions,
 ): BiotSavartField {
+  const wireRadius = checkFieldInputs(path, current, points, options);
+  const np = points.length / 3;
+  const result = (out ?? new Float64Array(points.length)) as Float64Array & { warnings: readonly Note[] };
+  if (result.length < points.length) throw bad("out", "output array is shorter than points", result.length);
+  const found = fieldRange(path, current, points, result, wireRadius, 0, np);
+  result.warnings = fieldWarnings(found, np, wireRadius);
+  return result;
+}
+
+/** Checks biotSavart's inputs and limits (all but `out`); returns the wire radius. */
+export function checkFieldInputs(path: unknown, current: unknown, points: unknown, options: BiotSavartOptions | undefined): number {
   checkCoordinates("path", path, 2);
   checkCoordinates("points", points, 0);
   if (typeof current !== "number" || current - current !== 0) throw bad("current", "must be a finite number (A)", current);
@@ -96,12 +107,39 @@ export function biotSavart(
   if (typeof wireRadius !== "number" || !(wireRadius >= 0) || wireRadius === Infinity) {
     throw bad("wireRadius", "must be a finite radius >= 0 (m)", wireRadius);
   }
-  const result = (out ?? new Float64Array(points.length)) as Float64Array & { warnings: readonly Note[] };
-  if (result.length < points.length) throw bad("out", "output array is shorter than points", result.length);
+  return wireRadius;
+}
+
+/** Points inside the conductor found over a range of field points: how many, and the first (-1: none). */
+export interface InsideCount {
+  readonly inside: number;
+  readonly first: number;
+}
+
+/** The `inside_conductor` warning from the count over all np points. */
+export function fieldWarnings(found: InsideCount, np: number, wireRadius: number): Note[] {
+  return found.inside === 0
+    ? []
+    : [
+        {
+          code: "inside_conductor",
+          message: `${found.inside} of ${np} field points (the first is point ${found.first}) lie closer to a segment than the wire radius ${wireRadius} m: inside the conductor the thin-filament field is wrong (the real field falls linearly to zero at the wire's axis)`,
+        },
+      ];
+}
+
+/**
+ * The field at points p0..p1-1 (checked inputs) into `result` at the same
+ * indices. Each point's field depends on that point alone, so any split of the
+ * points into ranges gives the values of one run; errors name the point by its
+ * index in the whole array.
+ */
+export function fieldRange(path: Float64Array, current: number, points: Float64Array, result: Float64Array, wireRadius: number, p0: number, p1: number): InsideCount {
+  const nv = path.length / 3;
   let inside = 0; // points inside the conductor
   let firstInside = -1;
   const k = (MU0 * current) / (4 * Math.PI);
-  for (let p = 0; p < np; p++) {
+  for (let p = p0; p < p1; p++) {
     const px = points[3 * p]!;
     const py = points[3 * p + 1]!;
     const pz = points[3 * p + 2]!;
@@ -168,17 +206,8 @@ export function biotSavart(
     result[3 * p + 1] = k * by;
     result[3 * p + 2] = k * bz;
   }
-  countLoop(np * (nv - 1));
-  result.warnings =
-    inside === 0
-      ? []
-      : [
-          {
-            code: "inside_conductor",
-            message: `${inside} of ${np} field points (the first is point ${firstInside}) lie closer to a segment than the wire radius ${wireRadius} m: inside the conductor the thin-filament field is wrong (the real field falls linearly to zero at the wire's axis)`,
-          },
-        ];
-  return result;
+  countLoop((p1 - p0) * (nv - 1));
+  return { inside, first: firstInside };
 }
 
 /**

@@ -67,7 +67,7 @@ export interface NeumannOptions {
   readonly maxDepth?: number;
 }
 
-interface Segments {
+export interface Segments {
   readonly n: number;
   readonly x: Float64Array; // start points
   readonly y: Float64Array;
@@ -78,7 +78,7 @@ interface Segments {
   readonly len: Float64Array;
 }
 
-function segments(path: Polyline, name: string, tool: string): Segments {
+export function segments(path: Polyline, name: string, tool: string): Segments {
   if (!(path instanceof Float64Array) && !Array.isArray(path)) {
     throw new FormulaError("invalid_argument", { formula: tool, input: name, detail: "expected a Float64Array (or array) of xyz triplets" });
   }
@@ -284,7 +284,7 @@ function pairMutual(A: Segments, i: number, B: Segments, j: number, maxDepth: nu
 }
 
 /** Refuses more segment pairs than MAX_SEGMENT_PAIRS, naming the path input. */
-function checkPairs(pairs: number, input: string, tool: string): void {
+export function checkPairs(pairs: number, input: string, tool: string): void {
   if (pairs > MAX_SEGMENT_PAIRS) {
     throw new FormulaError("invalid_argument", {
       formula: tool,
@@ -295,7 +295,7 @@ function checkPairs(pairs: number, input: string, tool: string): void {
   }
 }
 
-function depthOption(options: NeumannOptions | undefined, tool: string): number {
+export function depthOption(options: NeumannOptions | undefined, tool: string): number {
   const d = options?.maxDepth ?? 40;
   if (!Number.isInteger(d) || d < 0 || d > 60) {
     throw new FormulaError("invalid_argument", { formula: tool, input: "maxDepth", value: d, detail: "a whole number 0..60" });
@@ -325,11 +325,7 @@ export function mutualInductance(pathA: Polyline, pathB: Polyline, options?: Neu
   const A = segments(pathA, "pathA", tool);
   const B = segments(pathB, "pathB", tool);
   checkPairs(A.n * B.n, "pathB", tool);
-  let sum = 0;
-  for (let i = 0; i < A.n; i++) for (let j = 0; j < B.n; j++) sum += pairMutual(A, i, B, j, maxDepth);
-  const M = (MU0 / (4 * Math.PI)) * sum;
-  if (M - M !== 0) throw new FormulaError("out_of_range", { formula: tool, detail: "the paths touch along a common stretch of line" });
-  return M;
+  return finishMutualInductance(sumRows(mutualRows(A, B, maxDepth, 0, A.n)));
 }
 
 /**
@@ -361,6 +357,19 @@ export function mutualInductance(pathA: Polyline, pathB: Polyline, options?: Neu
  * polylineSelfInductance(new Float64Array([0,0,0, 0.1,0,0, 0.1,0.1,0, 0,0.1,0, 0,0,0]), 0.0005); // ≈ 3.82e-7 H
  */
 export function polylineSelfInductance(path: Polyline, wireRadius: number, options?: NeumannOptions): number {
+  const plan = planSelfInductance(path, wireRadius, options);
+  return finishSelfInductance(plan, sumRows(selfRows(plan.S, plan.maxDepth, 0, plan.S.n)));
+}
+
+/** A checked self-inductance request: its segments and the segments' own parts (H). */
+export interface SelfInductancePlan {
+  readonly S: Segments;
+  readonly maxDepth: number;
+  readonly self: number;
+}
+
+/** The checks of polylineSelfInductance and the sum of the segments' own parts. */
+export function planSelfInductance(path: Polyline, wireRadius: number, options?: NeumannOptions): SelfInductancePlan {
   const tool = "polylineSelfInductance";
   const maxDepth = depthOption(options, tool);
   if (typeof wireRadius !== "number" || !(wireRadius > 0) || wireRadius === Infinity) {
@@ -380,9 +389,55 @@ export function polylineSelfInductance(path: Polyline, wireRadius: number, optio
     const end = S.len[S.n - 1]!;
     self += 0.5 * (wirePartialSelf(first, a) - longForm(first) + wirePartialSelf(end, a) - longForm(end));
   }
-  let mutual = 0;
-  for (let i = 0; i < S.n; i++) for (let j = i + 1; j < S.n; j++) mutual += pairMutual(S, i, S, j, maxDepth);
-  const L = self + (2 * MU0 * mutual) / (4 * Math.PI);
-  if (L - L !== 0) throw new FormulaError("out_of_range", { formula: tool, detail: "the path runs back over itself" });
+  return { S, maxDepth, self };
+}
+
+/** L from the plan and the summed pair rows (selfRows), in H; out_of_range when infinite. */
+export function finishSelfInductance(plan: SelfInductancePlan, mutual: number): number {
+  const L = plan.self + (2 * MU0 * mutual) / (4 * Math.PI);
+  if (L - L !== 0) throw new FormulaError("out_of_range", { formula: "polylineSelfInductance", detail: "the path runs back over itself" });
   return L;
+}
+
+/** M from the summed pair rows (mutualRows), in H; out_of_range when infinite. */
+export function finishMutualInductance(rowSum: number): number {
+  const M = (MU0 / (4 * Math.PI)) * rowSum;
+  if (M - M !== 0) throw new FormulaError("out_of_range", { formula: "mutualInductance", detail: "the paths touch along a common stretch of line" });
+  return M;
+}
+
+/*
+ * The double sums are summed row by row: row i is the sum over j of segment
+ * i's pairs, and the result the sum of the rows in order. Rows are
+ * independent, so any split of the rows (worker chunks) gives, bit for bit,
+ * the sum of one run.
+ */
+
+/** Row sums i0..i1-1 of the pair sum of two paths (row i: segment i of A with every segment of B). */
+export function mutualRows(A: Segments, B: Segments, maxDepth: number, i0: number, i1: number): Float64Array {
+  const rows = new Float64Array(i1 - i0);
+  for (let i = i0; i < i1; i++) {
+    let sum = 0;
+    for (let j = 0; j < B.n; j++) sum += pairMutual(A, i, B, j, maxDepth);
+    rows[i - i0] = sum;
+  }
+  return rows;
+}
+
+/** Row sums i0..i1-1 of a path's own pair sum (row i: segment i with the segments after it). */
+export function selfRows(S: Segments, maxDepth: number, i0: number, i1: number): Float64Array {
+  const rows = new Float64Array(i1 - i0);
+  for (let i = i0; i < i1; i++) {
+    let sum = 0;
+    for (let j = i + 1; j < S.n; j++) sum += pairMutual(S, i, S, j, maxDepth);
+    rows[i - i0] = sum;
+  }
+  return rows;
+}
+
+/** The sum of row sums, in order. */
+export function sumRows(rows: Float64Array): number {
+  let sum = 0;
+  for (let i = 0; i < rows.length; i++) sum += rows[i]!;
+  return sum;
 }

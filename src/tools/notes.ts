@@ -25,6 +25,15 @@ export interface NoteSummary {
 }
 
 type Value = number | readonly number[];
+
+/** A NoteCollector's findings as plain data (see NoteCollector.state), per condition. */
+export interface CollectedNotes {
+  readonly counts: readonly number[];
+  readonly index: readonly number[];
+  readonly measure: readonly (number | null)[];
+  readonly inputs: readonly (readonly number[])[];
+  readonly value: readonly number[];
+}
 export type AnyCondition = Condition<InputSpecs>;
 
 /**
@@ -118,6 +127,42 @@ export class NoteCollector {
           arr.length = value.length;
           for (let i = 0; i < value.length; i++) arr[i] = value[i]!;
         }
+      }
+    }
+  }
+
+  /**
+   * The collected counts and worst points as plain data (structured-clone and
+   * JSON safe: a measure of -Infinity, "none yet", may come back as null), for
+   * a worker or a shard to hand back. Scalar results only.
+   */
+  state(): CollectedNotes {
+    return {
+      counts: [...this.counts],
+      index: [...this.worstIndex],
+      measure: [...this.worstMeasure],
+      inputs: this.worstInputs.map((a) => [...a]),
+      value: [...this.worstScalar],
+    };
+  }
+
+  /**
+   * Adds the notes collected over later points (higher indices than any added
+   * so far), as if those points had been added here one by one: counts add up,
+   * and the later worst point wins only with a strictly larger measure (or when
+   * none was found here), the rule of `add`. Scalar results only.
+   */
+  merge(later: CollectedNotes): void {
+    for (let c = 0; c < this.conditions.length; c++) {
+      const count = later.counts[c]!;
+      if (count === 0) continue;
+      this.counts[c]! += count;
+      const m = later.measure[c] ?? -Infinity;
+      if (this.worstIndex[c] === -1 || m > this.worstMeasure[c]!) {
+        this.worstIndex[c] = later.index[c]!;
+        if (m > this.worstMeasure[c]!) this.worstMeasure[c] = m;
+        this.worstInputs[c]!.set(later.inputs[c]!);
+        this.worstScalar[c] = later.value[c]!;
       }
     }
   }

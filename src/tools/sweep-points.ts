@@ -27,18 +27,20 @@ export interface Grid {
 }
 
 /**
- * Computes every point of the grid into `values` (and `components`), marking
- * `computed`; returns the count of points not computed. `g.values`,
- * `g.components` and `g.computed` must start zeroed (fresh arrays).
+ * Computes the grid's points from index `start` to `end - 1` (row-major) into
+ * `values` (and `components`), marking `computed`; returns the count of those
+ * points not computed. Their entries in `g.values`, `g.components` and
+ * `g.computed` must start zeroed (fresh arrays). Points are independent, so
+ * any split of the grid into ranges gives the values of one run.
  */
-export function computePoints(formula: AnyFormula, g: Grid, axis0: SweptInput, axis1: SweptInput | undefined): number {
+export function computePoints(formula: AnyFormula, g: Grid, axis0: SweptInput, axis1: SweptInput | undefined, start = 0, end = g.computed.length): number {
   const generated = generatedLoop(formula, g.holds.length, g.components.length, axis0, axis1);
-  if (generated !== undefined) return runLoop(generated, g);
-  return generalLoop(g, axis0, axis1);
+  if (generated !== undefined) return runLoop(generated, g, start, end);
+  return generalLoop(g, axis0, axis1, start, end);
 }
 
-/** Computes the grid's points in order from index `start`; a FormulaError propagates. */
-type Loop = (g: Grid, start: number) => void;
+/** Computes the grid's points in order from index `start` to `end - 1`; a FormulaError propagates. */
+type Loop = (g: Grid, start: number, end: number) => void;
 const loops = new WeakMap<AnyFormula, Map<string, Loop | null>>();
 
 /**
@@ -49,12 +51,12 @@ const loops = new WeakMap<AnyFormula, Map<string, Loop | null>>();
  * computed: found by this scan instead of recording each point's index in the
  * loop, which cost a third of its time. Returns the count of points not computed.
  */
-function runLoop(loop: Loop, g: Grid): number {
+function runLoop(loop: Loop, g: Grid, from: number, end: number): number {
   const { values, computed, components } = g;
-  let start = 0;
+  let start = from;
   for (;;) {
     try {
-      loop(g, start);
+      loop(g, start, end);
       break;
     } catch (e) {
       if (!(e instanceof FormulaError)) throw e;
@@ -66,8 +68,8 @@ function runLoop(loop: Loop, g: Grid): number {
     }
   }
   let done = 0;
-  for (let k = 0; k < computed.length; k++) done += computed[k]!;
-  return computed.length - done;
+  for (let k = from; k < end; k++) done += computed[k]!;
+  return end - from - done;
 }
 
 /**
@@ -111,7 +113,7 @@ function generatedLoop(formula: AnyFormula, nRelations: number, nComponents: num
   const [name0, dom0] = axis0;
   const loop = axis1 === undefined
     ? `
-    for (let i = start; i < n0; i++) {
+    for (let i = start; i < end; i++) {
       const a = v0[i];
       o.${name0} = a;
       if (${inDomain("a", dom0)}${relations}) {${point("i")}
@@ -120,11 +122,13 @@ function generatedLoop(formula: AnyFormula, nRelations: number, nComponents: num
     }`
     : `
     const i0 = (start / n1) | 0;
-    for (let i = i0; i < n0; i++) {
+    const i1 = Math.ceil(end / n1);
+    for (let i = i0; i < i1; i++) {
       const a = v0[i];
       o.${name0} = a;
       const ok0 = ${inDomain("a", dom0)};
-      for (let j = i === i0 ? start % n1 : 0; j < n1; j++) {
+      const j1 = Math.min(n1, end - i * n1);
+      for (let j = i === i0 ? start % n1 : 0; j < j1; j++) {
         const k = i * n1 + j;
         const b = v1[j];
         o.${axis1[0]} = b;
@@ -141,7 +145,7 @@ function generatedLoop(formula: AnyFormula, nRelations: number, nComponents: num
   let made: Loop | null;
   try {
     // eslint-disable-next-line @typescript-eslint/no-implied-eval
-    made = new Function("g", "start", body) as Loop;
+    made = new Function("g", "start", "end", body) as Loop;
   } catch {
     made = null;
   }
@@ -154,44 +158,42 @@ function generatedLoop(formula: AnyFormula, nRelations: number, nComponents: num
  * store through a variable key, a domain check through `inDomain` and a
  * try/catch per point.
  */
-function generalLoop(g: Grid, axis0: SweptInput, axis1: SweptInput | undefined): number {
+function generalLoop(g: Grid, axis0: SweptInput, axis1: SweptInput | undefined, start: number, end: number): number {
   const { o, compute, holds, v0, v1, values, components, computed } = g;
   const [name0, dom0] = axis0;
-  const n0 = v0.length;
   const n1 = axis1 === undefined ? 1 : v1.length;
   const nc = components.length;
   let failed = 0;
-  for (let i = 0; i < n0; i++) {
+  for (let k = start; k < end; k++) {
+    const i = (k / n1) | 0;
+    const j = k - i * n1;
     o[name0] = v0[i]!;
     const ok0 = inDomain(v0[i]!, dom0);
-    for (let j = 0; j < n1; j++) {
-      const k = i * n1 + j;
-      if (axis1 !== undefined) o[axis1[0]] = v1[j]!;
-      let ok = ok0 && (axis1 === undefined || inDomain(v1[j]!, axis1[1]));
-      for (let r = 0; ok && r < holds.length; r++) ok = holds[r]!(o);
-      let out: unknown;
-      if (ok) {
-        try {
-          out = compute(o);
-        } catch (e) {
-          if (!(e instanceof FormulaError)) throw e;
-        }
+    if (axis1 !== undefined) o[axis1[0]] = v1[j]!;
+    let ok = ok0 && (axis1 === undefined || inDomain(v1[j]!, axis1[1]));
+    for (let r = 0; ok && r < holds.length; r++) ok = holds[r]!(o);
+    let out: unknown;
+    if (ok) {
+      try {
+        out = compute(o);
+      } catch (e) {
+        if (!(e instanceof FormulaError)) throw e;
       }
-      if (nc === 0 && typeof out === "number" && out - out === 0) {
-        values[k] = out;
-        computed[k] = 1;
-        continue;
-      }
-      if (nc > 0 && Array.isArray(out) && out.length >= nc && out.slice(0, nc).every((c: number) => c - c === 0)) {
-        for (let c = 0; c < nc; c++) components[c]![k] = out[c];
-        values[k] = out[0];
-        computed[k] = 1;
-        continue;
-      }
-      values[k] = NaN;
-      for (let c = 0; c < nc; c++) components[c]![k] = NaN;
-      failed++;
     }
+    if (nc === 0 && typeof out === "number" && out - out === 0) {
+      values[k] = out;
+      computed[k] = 1;
+      continue;
+    }
+    if (nc > 0 && Array.isArray(out) && out.length >= nc && out.slice(0, nc).every((c: number) => c - c === 0)) {
+      for (let c = 0; c < nc; c++) components[c]![k] = out[c];
+      values[k] = out[0];
+      computed[k] = 1;
+      continue;
+    }
+    values[k] = NaN;
+    for (let c = 0; c < nc; c++) components[c]![k] = NaN;
+    failed++;
   }
   return failed;
 }

@@ -5,7 +5,7 @@ import { outputDimension, type InputSpecs, type OutputSpec, type QuantityInput }
 import { bind, convertInputs, inDomain, inputKind, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
 import { noteConditions, noteSummary, type NoteSummary } from "./notes.js";
 import { axisTitle, axisUnit, largestMagnitude } from "./axis-units.js";
-import { computePoints, scanNotes, type Grid } from "./sweep-points.js";
+import { computePoints, scanNotes, type Grid, type SweptInput } from "./sweep-points.js";
 import type { QuantityValue } from "./tolerance.js";
 
 /** One swept input: `points` values from `from` to `to`, evenly spaced or geometric. */
@@ -91,9 +91,32 @@ export function sweepRequest(request: { readonly formula: string } & SweepSpec):
   return run(getFormula(request.formula), request);
 }
 
-const MAX_POINTS = 4_000_000;
+/** Most points of one sweep (both axes together). */
+export const MAX_POINTS = 4_000_000;
 
 function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
+  const plan = planSweep(formula, spec);
+  const arrays = layoutSweep(plan, new ArrayBuffer(plan.bytes), true);
+  const grid = bindGrid(plan, arrays);
+  const failed = computePoints(formula, grid.g, grid.axis0, grid.axis1);
+  return finishSweep(plan, arrays, grid, failed);
+}
+
+/** A checked sweep request: its axes, sizes and the layout of its one buffer. */
+export interface SweepPlan {
+  readonly formula: AnyFormula;
+  readonly axes: readonly AxisPlan[];
+  readonly fixed: Readonly<Record<string, unknown>>;
+  readonly n0: number;
+  readonly n1: number;
+  readonly total: number;
+  readonly components: readonly string[] | undefined;
+  /** Bytes of the buffer holding every array of the result. */
+  readonly bytes: number;
+}
+
+/** The checks of a sweep request, before any point is computed. */
+export function planSweep(formula: AnyFormula, spec: SweepSpec): SweepPlan {
   const id = formula.id;
   const def = formula.definition;
   const specs = specsOf(formula);
@@ -119,51 +142,92 @@ function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
   if (n0 * n1 > MAX_POINTS) throw new FormulaError("invalid_argument", { formula: id, input: "points", detail: `at most ${MAX_POINTS} points in all` });
   const comps = def.output.components as readonly string[] | undefined;
   const total = n0 * n1;
+  const fixed = convertInputs(formula, fixedRaw, names);
   // Every array of the result is a view into one buffer: on small and medium
   // sweeps each typed-array allocation costs more than computing its points
   // (bench/sweep.ts), so a sweep allocates once.
   const nc = comps?.length ?? 0;
   const doubles = plans.reduce((sum, p) => sum + p.points, 0) + total * (1 + nc);
-  const buffer = new ArrayBuffer(doubles * 8 + total);
+  return { formula, axes: plans, fixed, n0, n1, total, components: comps, bytes: doubles * 8 + total };
+}
+
+/** The result arrays of a sweep as views into `buffer`. */
+export interface SweepArrays {
+  readonly axes: readonly SweepAxis[];
+  readonly values: Float64Array;
+  readonly components: readonly Float64Array[] | undefined;
+  readonly computed: Uint8Array;
+}
+
+/**
+ * Lays the result arrays out in `buffer` (plan.bytes long): axes, values,
+ * components, computed. With `fill` the axis values are written; a worker
+ * handed a buffer already filled reads them.
+ */
+export function layoutSweep(plan: SweepPlan, buffer: ArrayBufferLike, fill: boolean): SweepArrays {
   let offset = 0;
   const take = (n: number): Float64Array => {
     const view = new Float64Array(buffer, offset, n);
     offset += n * 8;
     return view;
   };
-  const axes = plans.map((p) => fillAxis(p, take(p.points)));
-  const values = take(total);
-  const componentArrays = comps ? comps.map(() => take(total)) : undefined;
-  const computed = new Uint8Array(buffer, offset, total);
+  const axes = plan.axes.map((p) => {
+    const values = take(p.points);
+    return fill ? fillAxis(p, values) : { name: p.name, unit: siUnit(p.spec.dimension), scale: p.scale, values };
+  });
+  const values = take(plan.total);
+  const components = plan.components ? plan.components.map(() => take(plan.total)) : undefined;
+  const computed = new Uint8Array(buffer, offset, plan.total);
+  return { axes, values, components, computed };
+}
 
-  const fixed = convertInputs(formula, fixedRaw, names);
+/** A sweep's grid, bound to its fixed inputs, as the point loops take it. */
+export interface BoundGrid {
+  readonly g: Grid;
+  readonly axis0: SweptInput;
+  readonly axis1: SweptInput | undefined;
+}
+
+/** Checks the fixed inputs (probed with in-domain axis values) and builds the grid the loops run on. */
+export function bindGrid(plan: SweepPlan, arrays: SweepArrays): BoundGrid {
+  const formula = plan.formula;
+  const specs = specsOf(formula);
+  const { axes } = arrays;
   // Probe the fixed inputs with in-domain values of the swept ones: the first in-domain grid value.
   const probes: Record<string, number> = {};
   for (const a of axes) {
     const s = specs[a.name] as QuantityInput;
     probes[a.name] = a.values.find((v) => inDomain(v, s.domain)) ?? a.values[0]!;
   }
-  const b = bind(formula, fixed, probes);
-  const x = b.x;
-  const relations = def.relations ?? [];
-  const compute = def.compute as (x: unknown) => unknown;
+  const b = bind(formula, plan.fixed, probes);
+  const relations = formula.definition.relations ?? [];
+  const compute = formula.definition.compute as (x: unknown) => unknown;
   const name0 = axes[0]!.name;
   const name1 = axes.length === 2 ? axes[1]!.name : undefined;
-  const dom0 = (specs[name0] as QuantityInput).domain;
-  const dom1 = name1 !== undefined ? (specs[name1] as QuantityInput).domain : undefined;
   const v0 = axes[0]!.values;
   const v1 = name1 !== undefined ? axes[1]!.values : new Float64Array(1);
   const holds = relations.map((r) => r.holds) as ((x: unknown) => boolean)[];
-  const grid: Grid = { o: x, compute, holds, v0, v1, values, components: componentArrays ?? [], computed };
-  const failed = computePoints(formula, grid, [name0, dom0], name1 === undefined ? undefined : [name1, dom1]);
-  const notes = gridNotes(formula, grid, name0, name1, failed);
+  const g: Grid = { o: b.x, compute, holds, v0, v1, values: arrays.values, components: arrays.components ?? [], computed: arrays.computed };
+  const axis0: SweptInput = [name0, (specs[name0] as QuantityInput).domain];
+  const axis1: SweptInput | undefined = name1 === undefined ? undefined : [name1, (specs[name1] as QuantityInput).domain];
+  return { g, axis0, axis1 };
+}
+
+/** The result from a computed grid: the notes scan over every computed point, then the result object. */
+export function finishSweep(plan: SweepPlan, arrays: SweepArrays, grid: BoundGrid, failed: number): SweepResult {
+  const formula = plan.formula;
+  const def = formula.definition;
+  const comps = plan.components;
+  const notes = gridNotes(formula, grid.g, grid.axis0[0], grid.axis1?.[0], failed);
+  const { values, computed } = arrays;
+  const componentArrays = arrays.components;
   return {
-    formula: id,
-    axes,
+    formula: formula.id,
+    axes: arrays.axes,
     output: {
-      name: id,
+      name: formula.id,
       description: def.output.description,
-      unit: siUnit(outputDimension(def.output, x as Record<string, unknown>)),
+      unit: siUnit(outputDimension(def.output, grid.g.o as Record<string, unknown>)),
       values,
       ...(comps && componentArrays ? { components: Object.fromEntries(comps.map((c, i) => [c, componentArrays[i]!])) } : {}),
     },
@@ -198,7 +262,7 @@ function gridNotes(formula: AnyFormula, g: Grid, name0: string, name1: string | 
   return out;
 }
 
-interface AxisPlan {
+export interface AxisPlan {
   readonly name: string;
   readonly spec: QuantityInput;
   readonly from: number;

@@ -2,9 +2,9 @@ import { FormulaError } from "../core/errors.js";
 import type { AnyFormula, Formula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
 import { outputDimension, type InputSpecs, type Note, type OutputSpec, type QuantityInput } from "../core/spec.js";
-import { bind, convertInputs, inDomain, inputKind, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
-import { NoteCollector, type NoteSummary } from "./notes.js";
-import { createRandom, type Random } from "./random.js";
+import { type Binding, bind, convertInputs, inDomain, inputKind, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
+import { type CollectedNotes, NoteCollector, type NoteSummary } from "./notes.js";
+import { BlockStreams, MONTE_CARLO_BLOCK, type Random } from "./random.js";
 
 /** A value in SI, or a unit string ("0.2 mm"). */
 export type QuantityValue = number | string;
@@ -149,6 +149,93 @@ function isPlainObject(v: unknown): v is Record<string, unknown> {
 }
 
 function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions): ToleranceResult {
+  const plan = planTolerance(formula, inputs, options);
+  const parts = plan.samples > 0 ? [monteCarloRange(formula, plan.b, plan.varied, plan.seed, plan.sampleOffset, 0, plan.samples)] : [];
+  return finishTolerance(plan, parts);
+}
+
+/**
+ * Everything a tolerance analysis computes before its Monte Carlo (nominal,
+ * slopes, RSS, corners, band scans) and what the Monte Carlo and the summary
+ * need. Cheap next to the Monte Carlo, so workers and shards each make it again
+ * from the request rather than receive it.
+ */
+export interface TolerancePlan {
+  readonly formula: AnyFormula;
+  /** The inputs held at nominal, SI (what `bind` takes). */
+  readonly fixed: Readonly<Record<string, unknown>>;
+  readonly varied: readonly Varied[];
+  readonly samples: number;
+  readonly seed: number;
+  /** Sample number of the first Monte Carlo sample (the nominal, corners and band scans come first). */
+  readonly sampleOffset: number;
+  readonly b: Binding;
+  readonly collector: NoteCollector;
+  readonly notesOver: number;
+  readonly nominal: number;
+  readonly atNominal: { readonly warnings: readonly Note[]; readonly cautions: readonly Note[] };
+  readonly min: number;
+  readonly max: number;
+  readonly method: "corners" | "derivative signs";
+  readonly evaluated: number;
+  readonly rejected: number;
+  readonly remarks: string[];
+  readonly rss: { readonly sd: number; readonly plusMinus: number };
+  readonly sensitivities: readonly Sensitivity[];
+  readonly unit: string;
+}
+
+/** What the Monte Carlo over one range of sample numbers found. */
+export interface MonteCarloPart {
+  /** Samples in the range. */
+  readonly samples: number;
+  /** The computed results, in sample order (rejected samples left out). */
+  readonly values: Float64Array;
+  /** The notes over the range's computed samples. */
+  readonly notes: CollectedNotes;
+}
+
+/**
+ * The Monte Carlo samples start..end-1 (sample numbers counted from the first
+ * Monte Carlo sample). Sample s draws from stream floor(s / MONTE_CARLO_BLOCK)
+ * of the seed (BlockStreams), so every split of 0..samples into ranges gives,
+ * range by range, exactly the samples of one run: a range that starts inside
+ * a block first replays that block's draws up to its start. `b.x` is varied in
+ * place and left at nominal.
+ */
+export function monteCarloRange(formula: AnyFormula, b: Binding, varied: readonly Varied[], seed: number, offset: number, start: number, end: number): MonteCarloPart {
+  const x = b.x;
+  const collector = new NoteCollector(formula, varied.map((v) => v.name));
+  const values = new Float64Array(end - start);
+  let accepted = 0;
+  const n = varied.length;
+  const streams = new BlockStreams(seed);
+  const first = start - (start % MONTE_CARLO_BLOCK);
+  let rng = streams.at(first / MONTE_CARLO_BLOCK);
+  // Bounded by end - first <= samples + MONTE_CARLO_BLOCK.
+  for (let s = first; s < end; s++) {
+    if (s > first && s % MONTE_CARLO_BLOCK === 0) rng = streams.at(s / MONTE_CARLO_BLOCK);
+    let ok = true;
+    for (let i = 0; i < n; i++) {
+      const v = varied[i]!;
+      const t = drawSample(v, rng);
+      // A normal sample can step past the largest double: not a value, rejected.
+      if (t - t !== 0 || !inDomain(t, v.spec.domain)) ok = false;
+      x[v.name] = t;
+    }
+    if (!ok || s < start) continue;
+    const r = b.scalar();
+    if (r === r) {
+      values[accepted++] = r;
+      collector.add(offset + s, x, r);
+    }
+  }
+  for (const v of varied) x[v.name] = v.nominal;
+  return { samples: end - start, values: values.subarray(0, accepted), notes: collector.state() };
+}
+
+/** The tolerance analysis up to its Monte Carlo (see TolerancePlan). */
+export function planTolerance(formula: AnyFormula, inputs: unknown, options: ToleranceOptions): TolerancePlan {
   const id = formula.id;
   const def = formula.definition;
   if (def.output.components) {
@@ -329,34 +416,43 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
   }
   resetNominal();
 
-  // ---- Monte Carlo ----
+  return {
+    formula, fixed, varied, samples, seed, sampleOffset: sampleIndex, b, collector, notesOver, nominal, atNominal,
+    min, max, method, evaluated, rejected, remarks, rss: { sd: rssSd.norm, plusMinus: rssBand.norm }, sensitivities, unit: outUnit,
+  };
+}
+
+/**
+ * The result from the plan and the Monte Carlo parts, in sample order (one
+ * part per range, the ranges covering 0..samples in order).
+ */
+export function finishTolerance(plan: TolerancePlan, parts: readonly MonteCarloPart[]): ToleranceResult {
+  const { formula, varied, samples, seed, b, collector, nominal, atNominal, method, evaluated, rejected, sensitivities } = plan;
+  const id = formula.id;
+  const x = b.x;
+  const remarks = [...plan.remarks];
+  let { min, max } = plan;
+  let notesOver = plan.notesOver;
   let monteCarlo: ToleranceResult["monteCarlo"];
   if (samples > 0) {
-    const rng = createRandom(seed);
-    const values = new Float64Array(samples);
     let accepted = 0;
-    const n = varied.length;
-    for (let s = 0; s < samples; s++, sampleIndex++) {
-      let ok = true;
-      for (let i = 0; i < n; i++) {
-        const v = varied[i]!;
-        const t = drawSample(v, rng);
-        // A normal sample can step past the largest double: not a value, rejected.
-        if (t - t !== 0 || !inDomain(t, v.spec.domain)) ok = false;
-        x[v.name] = t;
-      }
-      if (!ok) continue;
-      const r = b.scalar();
-      if (r === r) {
-        values[accepted++] = r;
-        collect(x, r);
+    for (const p of parts) accepted += p.values.length;
+    // One part (the single-thread run) is used as it is; several are joined in order.
+    let values = parts[0]?.values ?? new Float64Array(0);
+    if (parts.length > 1) {
+      values = new Float64Array(accepted);
+      let at = 0;
+      for (const p of parts) {
+        values.set(p.values, at);
+        at += p.values.length;
       }
     }
-    resetNominal();
+    for (const p of parts) collector.merge(p.notes);
+    notesOver += accepted;
     if (accepted === 0) {
       throw new FormulaError("invalid_argument", { formula: id, detail: "every Monte Carlo sample broke a relation or an input's domain; narrow the tolerances" });
     }
-    const acc = values.subarray(0, accepted).sort();
+    const acc = values.sort();
     const { mean, sd } = scaledMoments(id, acc);
     const pct = (p: number): number => {
       const pos = (p / 100) * (accepted - 1);
@@ -366,7 +462,7 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
       return i + 1 < accepted ? Math.min(acc[i + 1]!, Math.max(acc[i]!, acc[i]! * (1 - f) + acc[i + 1]! * f)) : acc[i]!;
     };
     monteCarlo = {
-      generator: "xoshiro128** seeded by splitmix32; bands uniform, normal inputs by Box-Muller",
+      generator: `xoshiro128** seeded by splitmix32, one stream per ${MONTE_CARLO_BLOCK} samples (jump-ahead by 2^64); bands uniform, normal inputs by Box-Muller`,
       seed, samples, accepted, rejected: samples - accepted, mean, sd,
       p1: pct(1), p5: pct(5), p50: pct(50), p95: pct(95), p99: pct(99),
       min: acc[0]!, max: acc[accepted - 1]!,
@@ -382,6 +478,9 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
       }
     }
   }
+  const resetNominal = (): void => {
+    for (const v of varied) x[v.name] = v.nominal;
+  };
 
   const notes = collector.summaries(x);
   resetNominal();
@@ -392,9 +491,9 @@ function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions
     return out;
   };
   return {
-    formula: id, unit: outUnit, nominal,
+    formula: id, unit: plan.unit, nominal,
     worstCase: { min, max, method, evaluated, rejected },
-    rss: { sd: rssSd.norm, plusMinus: rssBand.norm },
+    rss: plan.rss,
     ...(monteCarlo ? { monteCarlo } : {}),
     sensitivities, remarks,
     warnings: merge(atNominal.warnings, "warning"), cautions: merge(atNominal.cautions, "caution"),

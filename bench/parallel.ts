@@ -1,0 +1,98 @@
+/**
+ * Worker threads: speed-up of the parallel entries at 2 workers over the
+ * synchronous call (a 1e6-sample Monte Carlo of coaxialCoilsMutualInductance,
+ * a 1e6-point Biot-Savart field map), and the small-job overhead near the
+ * pool's thresholds. Runs against the built package (dist/node: the pool and
+ * its worker file exist only there; `npm run build` first). The pool is warmed
+ * (threads started) before timing; its start-up is reported on its own.
+ * Each pair is timed alternately, medians of a few rounds, ratios per round.
+ */
+import { loadavg } from "node:os";
+import { type BenchRow, median, sink } from "./util.js";
+
+type Lib = typeof import("../src/index.js");
+
+async function timeIt(f: () => Promise<unknown> | unknown): Promise<number> {
+  const t0 = process.hrtime.bigint();
+  const v = await f();
+  sink(typeof v === "number" ? v : 1);
+  return Number(process.hrtime.bigint() - t0) / 1e6;
+}
+
+/** Median ms of each, and the median over rounds of (sync time / parallel time). */
+async function pair(sync: () => unknown, par: () => Promise<unknown>, rounds: number): Promise<{ sync: number; par: number; speedUp: number }> {
+  const s: number[] = [];
+  const p: number[] = [];
+  const r: number[] = [];
+  for (let i = 0; i < rounds; i++) {
+    const a = await timeIt(sync);
+    const b = await timeIt(par);
+    s.push(a);
+    p.push(b);
+    r.push(a / b);
+  }
+  return { sync: median(s), par: median(p), speedUp: median(r) };
+}
+
+const ms = (v: number): string => (v >= 1000 ? `${(v / 1000).toFixed(2)} s` : `${v.toFixed(1)} ms`);
+
+export async function run(): Promise<BenchRow[]> {
+  let lib: Lib;
+  try {
+    lib = (await import(new URL("../dist/node/index.js", import.meta.url).href)) as Lib;
+  } catch {
+    return [{ name: "parallel", value: "skipped", note: "needs the built package (npm run build)" }];
+  }
+  const rows: BenchRow[] = [];
+  const load = (): string => `load ${loadavg()[0]!.toFixed(1)}`;
+  const coil = lib.coaxialCoilsMutualInductance;
+  const inputs = {
+    turns1: 100, radius1: { nominal: 0.01, percent: 1 }, length1: { nominal: 0.02, percent: 1 },
+    turns2: 50, radius2: { nominal: 0.015, percent: 1 }, length2: 0.01, distance: { nominal: 0.03, plusMinus: 0.001 },
+  } as const;
+
+  // Pool start-up: the first parallel call starts two threads, each loading the library.
+  const cold = await timeIt(() => lib.toleranceParallel(coil, inputs, { samples: lib.MIN_PARALLEL_SAMPLES, workers: 2 }));
+  rows.push({ name: "pool start-up (2 threads, first call)", value: ms(cold), note: `a ${lib.MIN_PARALLEL_SAMPLES}-sample Monte Carlo including thread start; ${load()}` });
+
+  const big = await pair(
+    () => lib.tolerance(coil, inputs, { samples: 1e6 }),
+    () => lib.toleranceParallel(coil, inputs, { samples: 1e6, workers: 2 }),
+    3,
+  );
+  rows.push({ name: "Monte Carlo 1e6 samples, coaxialCoilsMutualInductance: 2 workers", value: `${big.speedUp.toFixed(2)}x`, note: `speed-up (target >= 1.7x); ${ms(big.sync)} -> ${ms(big.par)}; ${load()}` });
+
+  const loop = new Float64Array(3 * 17);
+  for (let i = 0; i <= 16; i++) loop.set([0.05 * Math.cos((2 * Math.PI * i) / 16), 0.05 * Math.sin((2 * Math.PI * i) / 16), 0], 3 * i);
+  const n = 1_000_000;
+  const points = new Float64Array(3 * n);
+  for (let p = 0; p < n; p++) points.set([-0.1 + 0.2 * ((p % 1000) / 999), -0.1 + 0.2 * (Math.floor(p / 1000) / 999), 0.01], 3 * p);
+  const out = new Float64Array(3 * n);
+  const map = await pair(
+    () => lib.biotSavart(loop, 1, points, out),
+    () => lib.biotSavartParallel(loop, 1, points, { out, workers: 2 }),
+    5,
+  );
+  rows.push({ name: "field map 1e6 points x 16 segments (biotSavart): 2 workers", value: `${map.speedUp.toFixed(2)}x`, note: `speed-up (target >= 1.7x); ${ms(map.sync)} -> ${ms(map.par)}; ${load()}` });
+
+  // Small jobs: at and above the pool's thresholds (below them the parallel entries run in the calling thread).
+  for (const k of [1, 2, 5]) {
+    const samples = k * lib.MIN_PARALLEL_SAMPLES;
+    const r = await pair(() => lib.tolerance(coil, inputs, { samples }), () => lib.toleranceParallel(coil, inputs, { samples, workers: 2 }), 7);
+    rows.push({ name: `small job: Monte Carlo ${samples} samples, 2 workers`, value: `${r.speedUp.toFixed(2)}x`, note: `speed-up (below 1: the pool does not pay); ${ms(r.sync)} -> ${ms(r.par)}; ${load()}` });
+  }
+  for (const k of [1, 4]) {
+    const pts = (k * lib.MIN_PARALLEL_FIELD_PAIRS) / 16;
+    const sub = points.subarray(0, 3 * Math.round(pts));
+    const r = await pair(() => lib.biotSavart(loop, 1, sub), () => lib.biotSavartParallel(loop, 1, sub, { workers: 2 }), 7);
+    rows.push({ name: `small job: field map ${sub.length / 3} points x 16 segments, 2 workers`, value: `${r.speedUp.toFixed(2)}x`, note: `speed-up; ${ms(r.sync)} -> ${ms(r.par)}; ${load()}` });
+  }
+  for (const k of [1, 4]) {
+    const pointsN = k * lib.MIN_PARALLEL_POINTS;
+    const spec = { vary: { gap: { from: 1e-5, to: 1e-3, points: pointsN } }, fixed: { area: 1e-4 } };
+    const r = await pair(() => lib.sweep(lib.parallelPlateCapacitance, spec), () => lib.sweepParallel(lib.parallelPlateCapacitance, spec, { workers: 2 }), 7);
+    rows.push({ name: `small job: sweep ${pointsN} points (parallelPlateCapacitance), 2 workers`, value: `${r.speedUp.toFixed(2)}x`, note: `speed-up; ${ms(r.sync)} -> ${ms(r.par)}; ${load()}` });
+  }
+  await lib.closeWorkers();
+  return rows;
+}

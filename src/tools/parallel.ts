@@ -1,0 +1,286 @@
+import { FormulaError } from "../core/errors.js";
+import type { AnyFormula, Formula } from "../core/formula.js";
+import { getFormula } from "../core/registry.js";
+import type { InputSpecs, Note, OutputSpec } from "../core/spec.js";
+import { type BiotSavartField, type BiotSavartOptions, checkFieldInputs, fieldRange, fieldWarnings, type InsideCount } from "../flux/biot-savart.js";
+import {
+  checkPairs, depthOption, finishMutualInductance, finishSelfInductance, mutualRows, type NeumannOptions, planSelfInductance,
+  type Polyline, segments, selfRows, sumRows,
+} from "../inductance/neumann.js";
+import { defaultWorkers, poolAvailable, runOnPool } from "./pool.js";
+import { type PoolTask, rebuildError, type TaskOutcome } from "./pool-tasks.js";
+import { MONTE_CARLO_BLOCK } from "./random.js";
+import { computePoints } from "./sweep-points.js";
+import { bindGrid, finishSweep, layoutSweep, planSweep, type SweepResult, type SweepSpec } from "./sweep.js";
+import { finishTolerance, type MonteCarloPart, monteCarloRange, planTolerance, type ToleranceOptions, type ToleranceResult, type ToleranceValue } from "./tolerance.js";
+
+/*
+ * The parallel entries: the same work as sweep, tolerance, biotSavart,
+ * mutualInductance and polylineSelfInductance, split by index range over a
+ * pool of worker threads (piscina, Node build only). Each returns a Promise;
+ * the synchronous calls stay as they are. Results are bit-identical to the
+ * synchronous call for any number of workers: the work is split by index
+ * (grid points, field points, Monte Carlo samples with their own random
+ * streams, pair rows) and joined in index order.
+ *
+ * Below a size where threads do not pay (measured in bench/parallel.ts: the
+ * MIN_PARALLEL_* constants, set from a run on a loaded machine: measure again
+ * on an idle one) the work runs in the calling thread.
+ *
+ * Browser build: there are no worker threads; `workers` given is refused
+ * (invalid_argument), left out the call computes in the calling thread.
+ */
+
+/** Options shared by the parallel entries. */
+export interface ParallelOptions {
+  /**
+   * Worker threads to use: a whole number from 1 to MAX_WORKERS. Default: the
+   * cores Node reports (os.availableParallelism()); in the browser build, the
+   * calling thread (and `workers` given is an error there).
+   */
+  readonly workers?: number;
+}
+
+/** Most worker threads one call may ask for. */
+export const MAX_WORKERS = 64;
+
+/** Monte Carlo samples from which toleranceParallel uses the pool (bench/parallel.ts). */
+export const MIN_PARALLEL_SAMPLES = 20_000;
+/** Sweep points from which sweepParallel uses the pool (bench/parallel.ts). */
+export const MIN_PARALLEL_POINTS = 1_000_000;
+/** Segment-point pairs from which biotSavartParallel uses the pool (bench/parallel.ts). */
+export const MIN_PARALLEL_FIELD_PAIRS = 8_000_000;
+/** Segment pairs from which the Neumann entries use the pool (bench/parallel.ts). */
+export const MIN_PARALLEL_SEGMENT_PAIRS = 5_000;
+
+/** Ranges per worker: several, so a thread that finishes early takes more. */
+const CHUNKS_PER_WORKER = 4;
+
+/** The worker count asked for, checked; undefined means the default. */
+function readWorkers(tool: string, options: ParallelOptions | undefined): number {
+  if (options !== undefined && (typeof options !== "object" || options === null)) {
+    throw new FormulaError("invalid_argument", { formula: tool, input: "options", detail: "options is an object" });
+  }
+  const w = options?.workers;
+  if (w === undefined) return Math.min(MAX_WORKERS, defaultWorkers());
+  if (typeof w !== "number" || !Number.isInteger(w) || w < 1 || w > MAX_WORKERS) {
+    throw new FormulaError("invalid_argument", { formula: tool, input: "workers", value: typeof w === "number" ? w : undefined, detail: `workers must be a whole number from 1 to ${MAX_WORKERS}` });
+  }
+  if (!poolAvailable) {
+    throw new FormulaError("invalid_argument", { formula: tool, input: "workers", detail: "worker threads are available in Node only; in this build leave workers out and the call computes in this thread" });
+  }
+  return w;
+}
+
+/**
+ * 0..total split into at most `workers * CHUNKS_PER_WORKER` ranges of nearly
+ * equal size, inner boundaries on multiples of `align`.
+ */
+export function splitRange(total: number, workers: number, align = 1): [number, number][] {
+  const count = Math.max(1, Math.min(workers * CHUNKS_PER_WORKER, Math.ceil(total / align)));
+  const out: [number, number][] = [];
+  let start = 0;
+  for (let c = 1; c <= count && start < total; c++) {
+    const end = c === count ? total : Math.min(total, Math.round((total * c) / count / align) * align);
+    if (end > start) out.push([start, end]);
+    start = Math.max(start, end);
+  }
+  return out;
+}
+
+/** The tasks' values in task order; the first error (lowest range) is thrown as the single-thread call throws it. */
+async function onPool<T>(tool: string, tasks: readonly PoolTask[], workers: number): Promise<T[]> {
+  const outcomes: TaskOutcome[] = await runOnPool(tool, tasks, workers);
+  return outcomes.map((o) => {
+    if (!o.ok) throw rebuildError(o.error);
+    return o.value as T;
+  });
+}
+
+/** Workers load formulas by id, so a parallel call needs the registry's own formula. */
+function registryFormula(tool: string, formula: AnyFormula | string): AnyFormula {
+  if (typeof formula === "string") return getFormula(formula);
+  const f = formula;
+  let found: AnyFormula | undefined;
+  try {
+    found = getFormula(f.id);
+  } catch {
+    found = undefined;
+  }
+  if (found !== f) {
+    throw new FormulaError("invalid_argument", { formula: f.id, input: "formula", detail: `${tool} runs registry formulas only (worker threads look formulas up by id); call the synchronous function for this one` });
+  }
+  return f;
+}
+
+/** A SharedArrayBuffer-backed copy of `a`. */
+function shared(a: ArrayLike<number>): Float64Array {
+  const s = new Float64Array(new SharedArrayBuffer(a.length * 8));
+  s.set(a);
+  return s;
+}
+
+/**
+ * `tolerance` with its Monte Carlo split over worker threads; the same result,
+ * bit for bit, for any `workers`. At MIN_PARALLEL_SAMPLES samples and more the
+ * pool is used; below, the calling thread.
+ *
+ * @example
+ * await toleranceParallel(coaxialCoilsMutualInductance, inputs, { samples: 1e6, workers: 2 });
+ */
+export async function toleranceParallel<I extends InputSpecs, O extends OutputSpec>(
+  formula: Formula<I, O> | string,
+  inputs: { readonly [K in keyof I & string]?: ToleranceValue },
+  options: ToleranceOptions & ParallelOptions = {},
+): Promise<ToleranceResult> {
+  const tool = "toleranceParallel";
+  const f = registryFormula(tool, formula as unknown as AnyFormula | string);
+  const workers = readWorkers(tool, options);
+  const plan = planTolerance(f, inputs, options);
+  const { samples, seed, sampleOffset, varied } = plan;
+  if (samples === 0) return finishTolerance(plan, []);
+  if (samples < MIN_PARALLEL_SAMPLES) {
+    return finishTolerance(plan, [monteCarloRange(f, plan.b, varied, seed, sampleOffset, 0, samples)]);
+  }
+  const variedData = varied.map(({ spec: _spec, ...rest }) => rest);
+  const tasks: PoolTask[] = splitRange(samples, workers, MONTE_CARLO_BLOCK).map(([start, end]) => ({
+    kind: "tolerance", formula: f.id, fixed: plan.fixed, varied: variedData, seed, offset: sampleOffset, start, end,
+  }));
+  return finishTolerance(plan, await onPool<MonteCarloPart>(tool, tasks, workers));
+}
+
+/**
+ * `sweep` with its grid split over worker threads; the same result, bit for
+ * bit, for any `workers`. The result's arrays are views into one
+ * SharedArrayBuffer when the pool was used (`slice()` one for a plain copy).
+ * At MIN_PARALLEL_POINTS points and more the pool is used; below, the calling
+ * thread.
+ */
+export async function sweepParallel<I extends InputSpecs, O extends OutputSpec>(
+  formula: Formula<I, O> | string,
+  spec: SweepSpec<keyof I & string>,
+  options: ParallelOptions = {},
+): Promise<SweepResult> {
+  const tool = "sweepParallel";
+  const f = registryFormula(tool, formula as unknown as AnyFormula | string);
+  const workers = readWorkers(tool, options);
+  const plan = planSweep(f, spec as SweepSpec);
+  const small = plan.total < MIN_PARALLEL_POINTS;
+  const arrays = layoutSweep(plan, small ? new ArrayBuffer(plan.bytes) : new SharedArrayBuffer(plan.bytes), true);
+  const grid = bindGrid(plan, arrays);
+  if (small) return finishSweep(plan, arrays, grid, computePoints(f, grid.g, grid.axis0, grid.axis1));
+  const request: SweepSpec = { vary: spec.vary, ...(spec.fixed !== undefined ? { fixed: spec.fixed } : {}) };
+  const buffer = arrays.values.buffer as SharedArrayBuffer;
+  const tasks: PoolTask[] = splitRange(plan.total, workers).map(([start, end]) => ({ kind: "sweep", formula: f.id, spec: request, buffer, start, end }));
+  const failed = (await onPool<number>(tool, tasks, workers)).reduce((a, b) => a + b, 0);
+  return finishSweep(plan, arrays, grid, failed);
+}
+
+/** biotSavart's options plus `out` (the output array) and `workers`. */
+export interface BiotSavartParallelOptions extends BiotSavartOptions, ParallelOptions {
+  readonly out?: Float64Array;
+}
+
+/**
+ * `biotSavart` with the field points split over worker threads; the same
+ * field and warnings, bit for bit, for any `workers` (an error names the first
+ * bad point, as the synchronous call does). At MIN_PARALLEL_FIELD_PAIRS
+ * segment-point pairs and more the pool is used; below, the calling thread.
+ */
+export async function biotSavartParallel(path: Float64Array, current: number, points: Float64Array, options: BiotSavartParallelOptions = {}): Promise<BiotSavartField> {
+  const tool = "biotSavartParallel";
+  const workers = readWorkers(tool, options);
+  const wireRadius = checkFieldInputs(path, current, points, options);
+  const np = points.length / 3;
+  const nv = path.length / 3;
+  const out = options.out;
+  if (out !== undefined && (!(out instanceof Float64Array) || out.length < points.length)) {
+    throw new FormulaError("invalid_argument", { formula: "biotSavart", input: "out", detail: "output array is shorter than points" });
+  }
+  const result = (out ?? new Float64Array(points.length)) as Float64Array & { warnings: readonly Note[] };
+  let found: InsideCount;
+  if (np * (nv - 1) < MIN_PARALLEL_FIELD_PAIRS) {
+    found = fieldRange(path, current, points, result, wireRadius, 0, np);
+  } else {
+    const sp = shared(path);
+    const spoints = shared(points);
+    const sout = new Float64Array(new SharedArrayBuffer(points.length * 8));
+    const tasks: PoolTask[] = splitRange(np, workers).map(([start, end]) => ({ kind: "field", path: sp, current, points: spoints, out: sout, wireRadius, start, end }));
+    const parts = await onPool<InsideCount>(tool, tasks, workers);
+    let inside = 0;
+    let first = -1;
+    for (const p of parts) {
+      if (first < 0 && p.first >= 0) first = p.first;
+      inside += p.inside;
+    }
+    found = { inside, first };
+    result.set(sout);
+  }
+  result.warnings = fieldWarnings(found, np, wireRadius);
+  return result;
+}
+
+/** Row ranges of a pair sum with about equal numbers of pairs each (rows of `cost(i)` pairs). */
+function rowRanges(rows: number, workers: number, cost: (i: number) => number, total: number): [number, number][] {
+  const count = Math.max(1, Math.min(workers * CHUNKS_PER_WORKER, rows));
+  const out: [number, number][] = [];
+  let start = 0;
+  let acc = 0;
+  for (let i = 0; i < rows; i++) {
+    acc += cost(i);
+    if (acc >= (total * (out.length + 1)) / count && out.length < count - 1) {
+      out.push([start, i + 1]);
+      start = i + 1;
+    }
+  }
+  if (start < rows) out.push([start, rows]);
+  return out;
+}
+
+/**
+ * `mutualInductance` with the segment pairs split by rows over worker threads;
+ * the same M, bit for bit, for any `workers`. At MIN_PARALLEL_SEGMENT_PAIRS
+ * pairs and more the pool is used; below, the calling thread.
+ */
+export async function mutualInductanceParallel(pathA: Polyline, pathB: Polyline, options: NeumannOptions & ParallelOptions = {}): Promise<number> {
+  const tool = "mutualInductance";
+  const workers = readWorkers("mutualInductanceParallel", options);
+  const maxDepth = depthOption(options, tool);
+  const A = segments(pathA, "pathA", tool);
+  const B = segments(pathB, "pathB", tool);
+  checkPairs(A.n * B.n, "pathB", tool);
+  if (A.n * B.n < MIN_PARALLEL_SEGMENT_PAIRS) return finishMutualInductance(sumRows(mutualRows(A, B, maxDepth, 0, A.n)));
+  const a = Float64Array.from(pathA);
+  const b = Float64Array.from(pathB);
+  const tasks: PoolTask[] = rowRanges(A.n, workers, () => B.n, A.n * B.n).map(([start, end]) => ({ kind: "mutual", pathA: a, pathB: b, maxDepth, start, end }));
+  return finishMutualInductance(sumRows(joinRows(await onPool<Float64Array>("mutualInductanceParallel", tasks, workers))));
+}
+
+/**
+ * `polylineSelfInductance` with the segment pairs split by rows over worker
+ * threads; the same L, bit for bit, for any `workers`. At
+ * MIN_PARALLEL_SEGMENT_PAIRS pairs and more the pool is used; below, the
+ * calling thread.
+ */
+export async function polylineSelfInductanceParallel(path: Polyline, wireRadius: number, options: NeumannOptions & ParallelOptions = {}): Promise<number> {
+  const workers = readWorkers("polylineSelfInductanceParallel", options);
+  const plan = planSelfInductance(path, wireRadius, options);
+  const n = plan.S.n;
+  const pairs = (n * (n - 1)) / 2;
+  if (pairs < MIN_PARALLEL_SEGMENT_PAIRS) return finishSelfInductance(plan, sumRows(selfRows(plan.S, plan.maxDepth, 0, n)));
+  const p = Float64Array.from(path);
+  const tasks: PoolTask[] = rowRanges(n, workers, (i) => n - 1 - i, pairs).map(([start, end]) => ({ kind: "self", path: p, maxDepth: plan.maxDepth, start, end }));
+  return finishSelfInductance(plan, sumRows(joinRows(await onPool<Float64Array>("polylineSelfInductanceParallel", tasks, workers))));
+}
+
+function joinRows(parts: readonly Float64Array[]): Float64Array {
+  let n = 0;
+  for (const p of parts) n += p.length;
+  const rows = new Float64Array(n);
+  let at = 0;
+  for (const p of parts) {
+    rows.set(p, at);
+    at += p.length;
+  }
+  return rows;
+}

@@ -1,0 +1,35 @@
+import { FormulaError } from "../core/errors.js";
+import type { PoolTask, TaskOutcome } from "./pool-tasks.js";
+
+/*
+ * The worker pool as the browser (ESM) build has it: none. Node's build
+ * replaces this file with pool.node.ts (tsup.config.ts, vitest.config.ts), so
+ * piscina and node:worker_threads never reach a browser bundle.
+ */
+
+/** False: this build has no worker threads. */
+export const poolAvailable = false;
+
+/** Threads the parallel calls use when `workers` is left out: here the calling thread alone. */
+export function defaultWorkers(): number {
+  return 1;
+}
+
+/** Refuses: there is no pool in this build. */
+export function runOnPool(tool: string, _tasks: readonly PoolTask[], _workers: number): Promise<TaskOutcome[]> {
+  return Promise.reject(
+    new FormulaError("invalid_argument", {
+      formula: tool,
+      input: "workers",
+      detail: "worker threads are available in Node only; in this build leave workers out and the call computes in this thread",
+    }),
+  );
+}
+
+/** Threads alive in the pool: always 0 here. */
+export function workerThreads(): number {
+  return 0;
+}
+
+/** Nothing to shut down here. */
+export async function closeWorkers(): Promise<void> {}

@@ -1,0 +1,156 @@
+import { afterAll, describe, expect, it } from "vitest";
+import { parallelPlateCapacitance } from "../../src/capacitance/index.js";
+import { FormulaError } from "../../src/core/errors.js";
+import { defineFormula } from "../../src/core/formula.js";
+import { biotSavart } from "../../src/flux/biot-savart.js";
+import { mutualInductance, polylineSelfInductance } from "../../src/inductance/neumann.js";
+import {
+  MAX_WORKERS, MIN_PARALLEL_FIELD_PAIRS, MIN_PARALLEL_POINTS, MIN_PARALLEL_SAMPLES, MIN_PARALLEL_SEGMENT_PAIRS,
+  biotSavartParallel, mutualInductanceParallel, polylineSelfInductanceParallel, splitRange, sweepParallel, toleranceParallel,
+} from "../../src/tools/parallel.js";
+import { closeWorkers, workerThreads } from "../../src/tools/pool.node.js";
+import { sweep } from "../../src/tools/sweep.js";
+import { tolerance } from "../../src/tools/tolerance.js";
+
+// Bit-identical results for any worker count: each parallel call is compared
+// with the synchronous call (one thread, in order) by exact equality. The
+// pool's threads are started once (from source they load the library through
+// tsx, which is slow) and shared by the tests below, then closed.
+const COUNTS = [1, 2, 3];
+
+afterAll(async () => {
+  await closeWorkers();
+  expect(workerThreads()).toBe(0);
+});
+
+async function rejection(p: Promise<unknown>): Promise<FormulaError> {
+  try {
+    await p;
+  } catch (e) {
+    expect(e).toBeInstanceOf(FormulaError);
+    return e as FormulaError;
+  }
+  return expect.fail("expected a FormulaError");
+}
+
+describe("worker count and formulas", () => {
+  it("refuses a worker count that is not a whole number from 1 to MAX_WORKERS, naming workers", async () => {
+    for (const workers of [0, -1, 1.5, MAX_WORKERS + 1, Number.NaN, "2"]) {
+      const e = await rejection(toleranceParallel(parallelPlateCapacitance, { area: 1e-4, gap: 1e-4 }, { workers: workers as number }));
+      expect([e.code, e.input], String(workers)).toEqual(["invalid_argument", "workers"]);
+    }
+  });
+
+  it("refuses a formula that is not the registry's own (threads look formulas up by id)", async () => {
+    const own = defineFormula({
+      id: "parallelPlateCapacitance", title: "t", category: "capacitance", description: "d", equation: "C = x",
+      inputs: [{ name: "gap", dimension: "Length", description: "g", example: 1 }],
+      output: { dimension: "Length", description: "o" }, source: { authors: "common practice" }, compute: (x: { gap: number }) => x.gap,
+    } as never);
+    const e = await rejection(sweepParallel(own as never, { vary: { gap: { from: 1, to: 2, points: 3 } } } as never, { workers: 2 }));
+    expect([e.code, e.input]).toEqual(["invalid_argument", "formula"]);
+  });
+
+  it("splits ranges into contiguous pieces on the alignment, covering every index once", () => {
+    for (const [total, workers, align] of [[10, 3, 1], [5000, 2, 1024], [1, 8, 1], [1_000_000, 3, 1024]] as const) {
+      const r = splitRange(total, workers, align);
+      expect(r[0]![0]).toBe(0);
+      expect(r.at(-1)![1]).toBe(total);
+      for (let i = 1; i < r.length; i++) {
+        expect(r[i]![0]).toBe(r[i - 1]![1]);
+        expect(r[i]![0] % align).toBe(0);
+      }
+    }
+  });
+});
+
+// Generous runner timeouts: from source each pool thread loads the library through tsx,
+// which takes tens of seconds on a loaded machine (not a timing check of the results).
+describe("parallel calls on the pool give the synchronous result bit for bit", { timeout: 300_000 }, () => {
+  it("tolerance Monte Carlo (uniform and normal inputs, notes) with 1, 2 and 3 workers", async () => {
+    const inputs = {
+      area: { nominal: 1e-4, percent: 2 },
+      gap: { distribution: "normal", mean: 1e-4, sd: 3e-6 },
+      relativePermittivity: { distribution: "uniform", min: 4.3, max: 4.5 },
+    } as const;
+    const samples = MIN_PARALLEL_SAMPLES + 12_345;
+    const one = tolerance(parallelPlateCapacitance, inputs, { samples, seed: 11 });
+    for (const workers of COUNTS) {
+      const r = await toleranceParallel(parallelPlateCapacitance, inputs, { samples, seed: 11, workers });
+      expect(r, `workers ${workers}`).toStrictEqual(one);
+    }
+    // The pool was used (threads idle until they time out or are closed).
+    expect(workerThreads()).toBeGreaterThan(0);
+  });
+
+  it("sweeps of one and two inputs with 1, 2 and 3 workers, notes included", async () => {
+    const specs = [
+      { vary: { gap: { from: 1e-6, to: 1e-2, points: MIN_PARALLEL_POINTS + 333, scale: "log" as const } }, fixed: { area: "1 cm^2" } },
+      { vary: { gap: { from: -1e-4, to: 1e-2, points: 500 }, area: { from: 1e-6, to: 1, points: 500, scale: "log" as const } } },
+    ];
+    for (const spec of specs) {
+      const one = sweep(parallelPlateCapacitance, spec);
+      for (const workers of COUNTS) {
+        const r = await sweepParallel(parallelPlateCapacitance, spec, { workers });
+        expect(r.notComputed).toBe(one.notComputed);
+        expect(r.notes).toStrictEqual(one.notes);
+        expect(Buffer.compare(Buffer.from(r.output.values.slice().buffer), Buffer.from(one.output.values.slice().buffer)), `workers ${workers}`).toBe(0);
+        expect(Buffer.compare(Buffer.from(r.computed.slice()), Buffer.from(one.computed.slice()))).toBe(0);
+      }
+    }
+  });
+
+  it("Biot-Savart field maps, with the inside-conductor warning, and the first bad point's error", async () => {
+    const loop = new Float64Array([1, 1, 0, -1, 1, 0, -1, -1, 0, 1, -1, 0, 1, 1, 0]);
+    const n = Math.ceil(MIN_PARALLEL_FIELD_PAIRS / 4) + 101;
+    const points = new Float64Array(3 * n);
+    for (let p = 0; p < n; p++) {
+      points[3 * p] = -1.5 + (3 * (p % 997)) / 997 + 1e-7;
+      points[3 * p + 1] = 0.99955 + (p % 13) * 1e-4;
+      points[3 * p + 2] = ((p % 7) - 3) * 1e-3;
+    }
+    const one = biotSavart(loop, 2, points, undefined, { wireRadius: 5e-4 });
+    expect(one.warnings.length).toBe(1);
+    for (const workers of COUNTS) {
+      const r = await biotSavartParallel(loop, 2, points, { wireRadius: 5e-4, workers });
+      expect(Buffer.compare(Buffer.from(r.buffer), Buffer.from(one.buffer)), `workers ${workers}`).toBe(0);
+      expect(r.warnings).toStrictEqual(one.warnings);
+    }
+    // Two points on the filament, both in the second half: the error names the first, as the synchronous call does.
+    const bad = points.slice();
+    bad.set([0, 1, 0], 3 * (n - 50));
+    bad.set([1, 0, 0], 3 * (n - 10));
+    let expected: FormulaError | undefined;
+    try {
+      biotSavart(loop, 2, bad);
+    } catch (e) {
+      expected = e as FormulaError;
+    }
+    const e = await rejection(biotSavartParallel(loop, 2, bad, { workers: 3 }));
+    expect([e.code, e.message]).toEqual([expected!.code, expected!.message]);
+  });
+
+  it("Neumann mutual and self-inductance of polylines with 1, 2 and 3 workers", async () => {
+    const circle = (n: number, r: number, z: number): Float64Array => {
+      const a = new Float64Array(3 * (n + 1));
+      for (let i = 0; i <= n; i++) a.set([r * Math.cos((2 * Math.PI * i) / n), r * Math.sin((2 * Math.PI * i) / n), z], 3 * i);
+      return a;
+    };
+    const a = circle(100, 0.1, 0);
+    const b = circle(60, 0.07, 0.02);
+    expect(100 * 60).toBeGreaterThanOrEqual(MIN_PARALLEL_SEGMENT_PAIRS);
+    const m = mutualInductance(a, b);
+    const coil = circle(130, 0.05, 0);
+    expect((130 * 129) / 2).toBeGreaterThanOrEqual(MIN_PARALLEL_SEGMENT_PAIRS);
+    const l = polylineSelfInductance(coil, 5e-4);
+    for (const workers of COUNTS) {
+      expect(Object.is(await mutualInductanceParallel(a, b, { workers }), m), `workers ${workers}`).toBe(true);
+      expect(Object.is(await polylineSelfInductanceParallel(coil, 5e-4, { workers }), l), `workers ${workers}`).toBe(true);
+    }
+  });
+
+  it("leaves no thread running once the pool is closed", async () => {
+    await closeWorkers();
+    expect(workerThreads()).toBe(0);
+  });
+});
