@@ -34,7 +34,7 @@ const FURLANI = {
  * Reference: Furlani, Permanent Magnet and Electromechanical Devices (2001), ch. 4 (from memory).
  *
  * @example
- * cylinderMagnetAxialField({ remanence: quantity(1.3, "T"), radius: quantity(5, "mm"), length: quantity(10, "mm"), axialDistance: quantity(10, "mm") }); // ≈ 0.172 T
+ * cylinderMagnetAxialField({ remanence: quantity(1.3, "T"), radius: quantity(5, "mm"), length: quantity(10, "mm"), axialDistance: quantity(10, "mm") }); // ≈ 0.157 T
  */
 export const cylinderMagnetAxialField = /* @__PURE__ */ defineFormula({
   id: "cylinderMagnetAxialField",
