@@ -7,6 +7,8 @@ export { defineFormula, isFormula, domainRule } from "./core/formula.js";
 export type { Formula, AnyFormula } from "./core/formula.js";
 export type * from "./core/spec.js";
 export { POSITIVE, NON_NEGATIVE, AT_LEAST_ONE, COUNT, TURNS } from "./core/spec.js";
+export { seriesOf } from "./core/series.js";
+export type { SeriesCheck } from "./core/series.js";
 export { evaluate } from "./core/evaluate.js";
 export type { EvaluateResult, RawInput } from "./core/evaluate.js";
 export { listFormulas, getFormula } from "./core/registry.js";

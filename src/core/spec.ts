@@ -242,7 +242,7 @@ export type FormulaInputs<I extends InputSpecs> = Simplify<
 >;
 
 /** The dimension names an output can take: its one dimension, or every choice's. */
-type OutputDimensions<O extends OutputSpec> = O extends { readonly byChoice: { readonly dimensions: infer M } }
+export type OutputDimensions<O extends OutputSpec> = O extends { readonly byChoice: { readonly dimensions: infer M } }
   ? M[keyof M] & DimensionName
   : O["dimension"];
 
