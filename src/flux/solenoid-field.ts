@@ -12,8 +12,8 @@ const SHEET = /* @__PURE__ */ new Float64Array(2);
 export const DERBY_OLBERT = {
   authors: "N. Derby and S. Olbert",
   year: 2010,
-  title: "Cylindrical magnets and ideal solenoids, Am. J. Phys. 78, 229-235",
-  locator: "the field components B_rho and B_z of an ideal solenoid in terms of Bulirsch's cel, and the appendix algorithm",
+  title: "Cylindrical magnets and ideal solenoids",
+  locator: "Am. J. Phys. 78 (2010) 229-235: B_rho and B_z of an ideal solenoid in terms of Bulirsch's cel; appendix, the cel algorithm",
 } as const;
 
 /**

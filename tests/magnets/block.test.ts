@@ -8,15 +8,13 @@ import { biotSavart, blockMagnetField, type FluxDensity, type Length, type Vec3 
 import { MU0 } from "../../src/constants/si.js";
 import { codeOf } from "../helpers/errors.js";
 import { relativeError } from "../helpers/reference.js";
+import { vectorError } from "../helpers/stacked-loops.js";
 import { blockOracle } from "./block-oracle.js";
 
 const EPS = Number.EPSILON;
 type P = [number, number, number];
 const field = (br: number, s: P, p: P) =>
   blockMagnetField({ remanence: br as FluxDensity, sizeX: s[0] as Length, sizeY: s[1] as Length, sizeZ: s[2] as Length, position: p as unknown as Vec3<Length> }) as unknown as P;
-function vectorError(got: readonly number[], want: readonly number[]): number {
-  return Math.max(...got.map((g, i) => Math.abs(g - want[i]!))) / Math.hypot(...want);
-}
 const decades = (lo: number, hi: number) => fc.double({ min: lo, max: hi, noNaN: true }).map((e) => 10 ** e);
 const dipole = (br: number, s: P, p: P): P => {
   // m = B_r V / mu0 along z: B = (mu0 / 4 pi) (3 (m . r) r / r^5 - m / r^3) = (B_r V / 4 pi) (...)
