@@ -102,9 +102,24 @@ export const solenoidField = /* @__PURE__ */ defineFormula({
       const k = (MU0 * x.turns * x.current) / x.length;
       return [k * f[0]!, k * f[1]!];
     }
-    return [scaledProduct([MU0, x.turns, x.current, f[0]!], [x.length]), scaledProduct([MU0, x.turns, x.current, f[1]!], [x.length])];
+    return [component(x.turns, x.current, x.length, f[0]!), component(x.turns, x.current, x.length, f[1]!)];
   },
 });
+
+/**
+ * mu0 N I f / l scaled. A component whose true size is below the smallest subnormal
+ * (the radial one next to the axis, say) is 0 rather than out of range: the range policy's
+ * Infinity for an underflow would make the whole vector fail while the other component is a
+ * good double. An overflow stays Infinity (out_of_range).
+ */
+function component(turns: number, current: number, length: number, f: number): number {
+  const v = scaledProduct([MU0, turns, current, f], [length]);
+  if (v === Infinity || v === -Infinity) {
+    const log2 = Math.log2(MU0) + Math.log2(turns) + Math.log2(Math.abs(current)) + Math.log2(Math.abs(f)) - Math.log2(length);
+    if (log2 < -1074) return 0;
+  }
+  return v;
+}
 
 /** Turn pitch over the distance from the point to the winding's surface (0 when the pitch is 0 relative). */
 function nearWinding(x: { turns: number; radius: number; length: number; radialDistance: number; axialDistance: number }): number {
