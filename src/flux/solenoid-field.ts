@@ -49,14 +49,17 @@ export function notOnRim(ends: string) {
  * On the winding itself (rho = R, |z| < l/2) B_rho is finite and B_z jumps by mu0 K from
  * inside to outside: the value returned is the mean of the two sides. The rim of
  * either end (rho = R, |z| = l/2) is refused (out_of_domain): B_rho is infinite there.
- * Far away (beyond 4 half-diagonals) the same field is summed from loops of current
- * K dz' (Gauss-Legendre, 24 nodes), where the closed form cancels (see src/flux/current-sheet.ts).
+ * Far away (beyond 4 half-diagonals), and at least a radius from the winding, the same field
+ * is summed from loops of current K dz' (Gauss-Legendre, 24 nodes a panel, panels graded
+ * away from the point), where the closed form cancels (see src/flux/current-sheet.ts).
  *
  * Validity: a uniform current sheet; the turns' ripple is missed where the pitch l/N is
  * not small against the radius or against the distance to the winding (warnings).
  *
  * Accuracy: measured against a 60-digit decimal.js evaluation of the same published
- * expression (tests/flux/solenoid-field.test.ts).
+ * expression (tests/flux/solenoid-field.test.ts): within 20 eps of |B| for lengths / radius
+ * 0.1..10 (random sizes and points out to 1e4 sizes), within 1e-12 for 1e-3..100; about 1e-11
+ * just outside a winding 1000 radii long, where the field is small against its surroundings'.
  *
  * Reference: N. Derby and S. Olbert, Am. J. Phys. 78 (2010) 229, eqs. for B_rho and B_z with cel.
  *
