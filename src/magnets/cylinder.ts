@@ -87,9 +87,10 @@ export const cylinderMagnetAxialField = /* @__PURE__ */ defineFormula({
  * Far away it tends to the dipole field of moment m = B_r pi R^2 L / mu0.
  *
  * Method and accuracy: the current-sheet kernel shared with solenoidField
- * (src/flux/current-sheet.ts): cel for the near zone, Gauss-Legendre over loops beyond four
- * half-diagonals; measured against a 60-digit decimal.js oracle of the published form in
- * tests/magnets/field.test.ts.
+ * (src/flux/current-sheet.ts): cel near the magnet, Gauss-Legendre over loops at least a
+ * radius from its side and beyond four half-diagonals; measured within 3 eps of |B| of a
+ * 60-digit decimal.js oracle of the published form (tests/magnets/field.test.ts: remanences
+ * 1e-300..1e300 T, sizes 1e-150..1e150 m, length / radius 0.1..10, out to 1e4 sizes).
  *
  * Validity: ideal uniform, rigid magnetisation (no demagnetisation of the material itself).
  *

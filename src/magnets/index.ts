@@ -1,1 +1,2 @@
 export { cylinderMagnetAxialField, cylinderMagnetField } from "./cylinder.js";
+export { blockMagnetField } from "./block.js";
