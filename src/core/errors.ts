@@ -17,6 +17,7 @@ export const ERROR_CODES = [
   "no_solution", // solve: no input value in range reaches the target
   "several_solutions", // solve: more than one input value reaches the target
   "invalid_argument", // a tool was called with an unusable option
+  "cancelled", // a long call was cancelled through its AbortSignal
 ] as const;
 
 export type ErrorCode = (typeof ERROR_CODES)[number];
@@ -131,5 +132,7 @@ function messageOf(code: ErrorCode, f: FormulaErrorFields): string {
       return `${where}more than one value of ${inp} reaches the target${tail}`;
     case "invalid_argument":
       return `${where}${f.input ? `${inp}: ` : ""}invalid argument${tail}`;
+    case "cancelled":
+      return `${where}cancelled${tail}`;
   }
 }
