@@ -15,7 +15,10 @@
  */
 import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import { type LongRunOptions, PROGRESS_INTERVAL_MS, type Progress } from "../../src/core/progress.js";
-import { biotSavart, mutualInductance, polylineSelfInductance } from "../../src/index.js";
+import { electron } from "../../src/constants/index.js";
+import {
+  biotSavart, type FluxDensity, type Length, mutualInductance, polylineSelfInductance, type Time, traceParticle, type TraceOptions, type Vec3, type Velocity,
+} from "../../src/index.js";
 import { errorOf } from "../helpers/errors.js";
 import { loopCount, resetLoopCount } from "../helpers/loop-count.js";
 
@@ -39,6 +42,20 @@ function axisPoints(n: number): Float64Array {
   return p;
 }
 
+/** An electron at 1e6 m/s in 1 mT along z (omega dt = 0.018 at dt = 1e-13 s), every 1000th step stored. */
+function electronTrace(steps: number, fluxDensity: TraceOptions["fluxDensity"], o?: LongRunOptions) {
+  return traceParticle({
+    particle: electron,
+    position: [0, 0, 0] as unknown as Vec3<Length>,
+    velocity: [1e6, 0, 0] as unknown as Vec3<Velocity>,
+    fluxDensity,
+    timeStep: 1e-13 as Time,
+    steps,
+    sampleEvery: 1000,
+    ...o,
+  });
+}
+
 interface Solver {
   readonly name: string;
   /** One call of the solver, with the long-run options given (or none). */
@@ -52,6 +69,10 @@ const solvers: Solver[] = [
   { name: "polylineSelfInductance", run: (o) => polylineSelfInductance(polygon(1400, 0.1, 0), 1e-3, o) },
   // 1024 segments: 256 points per tick, 112 ticks (the last at 111/112 > 0.99).
   { name: "biotSavart", run: (o) => biotSavart(polygon(1024, 1, 0), 1, axisPoints(112 * 256), undefined, o) },
+  // Uniform field: a tick every 16384 steps, 128 ticks.
+  { name: "traceParticle (uniform field)", run: (o) => electronTrace(128 * 16_384, [0, 0, 1e-3] as unknown as Vec3<FluxDensity>, o) },
+  // A field function: a tick every 1024 steps, 128 ticks.
+  { name: "traceParticle (field function)", run: (o) => electronTrace(128 * 1024, (_x, _y, z) => [0, 0, 1e-3 * (1 + z)], o) },
 ];
 
 let clock = 0;
