@@ -17,7 +17,7 @@ import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import { type LongRunOptions, PROGRESS_INTERVAL_MS, type Progress } from "../../src/core/progress.js";
 import { electron } from "../../src/constants/index.js";
 import {
-  biotSavart, type FluxDensity, type Length, mutualInductance, polylineSelfInductance, type Time, traceParticle, type TraceOptions, type Vec3, type Velocity,
+  biotSavart, type FluxDensity, type Length, mutualInductance, pathForce, polylineSelfInductance, type Time, traceParticle, type TraceOptions, type Vec3, type Velocity,
 } from "../../src/index.js";
 import { errorOf } from "../helpers/errors.js";
 import { loopCount, resetLoopCount } from "../helpers/loop-count.js";
@@ -69,6 +69,8 @@ const solvers: Solver[] = [
   { name: "polylineSelfInductance", run: (o) => polylineSelfInductance(polygon(1400, 0.1, 0), 1e-3, o) },
   // 1024 segments: 256 points per tick, 112 ticks (the last at 111/112 > 0.99).
   { name: "biotSavart", run: (o) => biotSavart(polygon(1024, 1, 0), 1, axisPoints(112 * 256), undefined, o) },
+  // 128 segments on path 2: one tick per segment.
+  { name: "pathForce", run: (o) => pathForce(polygon(64, 0.1, 0), 3, polygon(128, 0.12, 0.01), -2, o) },
   // Uniform field: a tick every 16384 steps, 128 ticks.
   { name: "traceParticle (uniform field)", run: (o) => electronTrace(128 * 16_384, [0, 0, 1e-3] as unknown as Vec3<FluxDensity>, o) },
   // A field function: a tick every 1024 steps, 128 ticks.
