@@ -17,7 +17,7 @@ import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import { type LongRunOptions, PROGRESS_INTERVAL_MS, type Progress } from "../../src/core/progress.js";
 import { electron } from "../../src/constants/index.js";
 import {
-  biotSavart, coupledLineImpedances, type CrossSection, type FluxDensity, type Length, lineCapacitance, lineImpedance, mutualInductance, pathForce, polylineSelfInductance, type Time, traceParticle, type TraceOptions, type Vec3, type Velocity,
+  biotSavart, closedSurfaceFlux, coupledLineImpedances, type CrossSection, type FluxDensity, type Length, lineCapacitance, lineImpedance, mutualInductance, pathForce, polylineSelfInductance, type Time, sphereMesh, traceParticle, type TraceOptions, type Vec3, type Velocity,
 } from "../../src/index.js";
 import { errorOf } from "../helpers/errors.js";
 import { loopCount, resetLoopCount } from "../helpers/loop-count.js";
@@ -69,6 +69,9 @@ const THREE_WIRES: CrossSection = {
   conductors: [{ x: 0, y: 0, radius: 1e-3 }, { x: 3e-3, y: 0, radius: 1e-3 }, { x: 1.5e-3, y: 2.5e-3, radius: 0.5e-3 }],
 };
 
+let sphere: ReturnType<typeof sphereMesh> | undefined;
+const SPHERE = () => (sphere ??= sphereMesh([0, 0, 0], 1, 5));
+
 interface Solver {
   readonly name: string;
   /** One call of the solver, with the long-run options given (or none). */
@@ -89,6 +92,8 @@ const solvers: Solver[] = [
   { name: "lineCapacitance (round wires)", run: (o) => lineCapacitance(THREE_WIRES, { modes: 40, ...o }) },
   { name: "lineImpedance (two planes)", run: (o) => lineImpedance(STRIPLINE, { panels: 24, ...o }) },
   { name: "coupledLineImpedances (with the vacuum solve)", run: (o) => coupledLineImpedances(MICROSTRIP_PAIR, o) },
+  // 20 * 4^5 = 20,480 triangles: a tick every 128, 160 ticks (the mesh is made once, outside the call).
+  { name: "closedSurfaceFlux", run: (o) => closedSurfaceFlux(SPHERE(), (x, y, z) => [x + 0.2, y * y, -z], o) },
   // Uniform field: a tick every 16384 steps, 128 ticks.
   { name: "traceParticle (uniform field)", run: (o) => electronTrace(128 * 16_384, [0, 0, 1e-3] as unknown as Vec3<FluxDensity>, o) },
   // A field function: a tick every 1024 steps, 128 ticks.
