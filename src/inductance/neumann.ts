@@ -392,7 +392,8 @@ export function polylineSelfInductance(path: Polyline, wireRadius: number, optio
     t.tick(done);
     let i1 = i0;
     let pairs = 0;
-    for (; i1 < n && pairs < PAIRS_PER_TICK; i1++) pairs += n - 1 - i1;
+    // The last row has no pairs: it joins the block before it, so no tick reports all pairs done before finish().
+    for (; i1 < n && (pairs < PAIRS_PER_TICK || i1 === n - 1); i1++) pairs += n - 1 - i1;
     const rows = selfRows(plan.S, plan.maxDepth, i0, i1);
     for (let k = 0; k < rows.length; k++) sum += rows[k]!;
     done += pairs;

@@ -35,12 +35,23 @@
  * Solve: one dense LU with partial pivoting (src/math/lu.ts), one
  * back-substitution per conductor. The unknowns are capped at MAX_UNKNOWNS
  * (the LU costs n^3/3) and the call is refused above it.
+ *
+ * Long calls: every entry takes `signal` and `onProgress` in its options
+ * (core/progress.ts). The meshes of all the call's solves (two with
+ * `extrapolate`, twice that when a layered section is also solved in vacuum)
+ * are built first; progress then counts work in multiply-adds of the LU:
+ * (n - 1) n (2n - 1)/6 for the factorisation of n unknowns, n^2 per conductor
+ * for the back-substitutions, and for the assembly 32 per kernel evaluation
+ * (plus 64 per node of the two-plane remainder), a model of their measured
+ * cost (solver/system.ts, solveWork). Ticks come before every assembled row (or
+ * column of a circle's rows), every LU step and every back-substitution.
  */
 import { EPSILON0, SPEED_OF_LIGHT } from "../constants/si.js";
 import { FormulaError } from "../core/errors.js";
+import { cancelledError, type LongRunOptions, ticker } from "../core/progress.js";
 import { countLoop } from "../math/loop-count.js";
-import { MAX_MODES } from "./solver/mesh.js";
-import { solveSection } from "./solver/system.js";
+import { buildMesh, MAX_MODES, type Mesh } from "./solver/mesh.js";
+import { solveMesh, solveWork, WorkMeter } from "./solver/system.js";
 import { type CrossSection, type NormSection, readSection } from "./solver/section.js";
 
 export type { CrossSection, DielectricLayer, RoundConductor, SectionConductor, StripConductor } from "./solver/section.js";
@@ -132,13 +143,41 @@ function symmetrise(C: Float64Array, n: number, neutral: boolean): Float64Array 
   return C;
 }
 
-/** solveSection with the options applied (Richardson extrapolation over N and 2N panels when asked), symmetrised. */
-function solveWith(s: NormSection, o: Options, tool: string): { C: Float64Array; unknowns: number } {
+/** A section with the meshes its solve needs: N panels, and 2N when extrapolating. */
+interface Planned {
+  readonly s: NormSection;
+  readonly meshes: readonly Mesh[];
+}
+
+/** A signal aborted before the call ends it before the meshes are built (the ticker checks the rest). */
+function abortedEarly(options: LongRunOptions | undefined, tool: string): void {
+  const signal = options?.signal;
+  if (signal?.aborted === true) throw cancelledError(tool, signal);
+}
+
+function plan(s: NormSection, o: Options, tool: string): Planned {
+  const first = buildMesh(s, { panels: o.panels, modes: o.modes }, tool);
+  return { s, meshes: o.extrapolate ? [first, buildMesh(s, { panels: 2 * o.panels, modes: o.modes }, tool)] : [first] };
+}
+
+/** The progress of a call over its planned solves (work counted by solveWork). */
+function meter(tool: string, options: LongRunOptions | undefined, plans: readonly Planned[]): { meter: WorkMeter; finish: () => void } {
+  // The ticker (which also refuses an aborted signal) needs the meshes' sizes; an abort
+  // made before the call is refused before they are built, by abortedEarly.
+  let total = 0;
+  for (const p of plans) for (const m of p.meshes) total += solveWork(p.s, m);
+  const t = ticker(tool, options, total);
+  return { meter: new WorkMeter(t), finish: () => t.finish() };
+}
+
+/** The planned solve (Richardson extrapolation over N and 2N panels when planned), symmetrised. */
+function solveWith(p: Planned, tool: string, w: WorkMeter): { C: Float64Array; unknowns: number } {
+  const { s, meshes } = p;
   const n = s.conductors.length;
   const neutral = s.ground === "none";
-  const first = solveSection(s, o.panels, o.modes, tool);
-  if (!o.extrapolate) return { C: symmetrise(first.C, n, neutral), unknowns: first.unknowns };
-  const fine = solveSection(s, 2 * o.panels, o.modes, tool);
+  const first = solveMesh(s, meshes[0]!, tool, w);
+  if (meshes.length === 1) return { C: symmetrise(first.C, n, neutral), unknowns: first.unknowns };
+  const fine = solveMesh(s, meshes[1]!, tool, w);
   const C = fine.C.map((v, i) => (4 * v - first.C[i]!) / 3);
   return { C: symmetrise(C, n, neutral), unknowns: fine.unknowns };
 }
@@ -171,12 +210,16 @@ function solveWith(s: NormSection, o: Options, tool: string): { C: Float64Array;
  * lineCapacitance({ ground: "none", conductors: [{ x: 0, y: 0, radius: 1e-3 }, { x: 0.01, y: 0, radius: 1e-3 }] }).matrix;
  * // ≈ [1.2134e-11, -1.2134e-11, -1.2134e-11, 1.2134e-11] F/m = pi eps0 / acosh(5)
  */
-export function lineCapacitance(crossSection: CrossSection, options?: FieldSolverOptions): LineCapacitanceResult {
+export function lineCapacitance(crossSection: CrossSection, options?: FieldSolverOptions & LongRunOptions): LineCapacitanceResult {
   const o = readOptions(options, TOOL);
   const s = readSection(crossSection, TOOL);
-  const { C, unknowns } = solveWith(s, o, TOOL);
+  abortedEarly(options, TOOL);
+  const p = plan(s, o, TOOL);
+  const progress = meter(TOOL, options, [p]);
+  const { C, unknowns } = solveWith(p, TOOL, progress.meter);
   for (let i = 0; i < C.length; i++) C[i] = C[i]! * EPSILON0;
-  return { size: s.conductors.length, matrix: C, unknowns };
+  progress.finish();
+  return { size: p.s.conductors.length, matrix: C, unknowns };
 }
 
 /** Parameters of one propagating mode of a lossless line. */
@@ -192,19 +235,21 @@ export interface LineModeParameters {
 }
 
 /** The capacitance matrices of the section and of the same section in vacuum (eps0 = 1 units). */
-function withAir(section: CrossSection, options: FieldSolverOptions | undefined, tool: string): { C: Float64Array; air: Float64Array; s: NormSection } {
+function withAir(
+  section: CrossSection,
+  options: (FieldSolverOptions & LongRunOptions) | undefined,
+  tool: string,
+): { C: Float64Array; air: Float64Array; s: NormSection; finish: () => void } {
   const o = readOptions(options, tool);
   const s = readSection(section, tool);
-  const { C } = solveWith(s, o, tool);
-  let air: Float64Array;
-  if (s.interfaces.length === 0) {
-    // One medium everywhere: C is eps_r times its vacuum value.
-    air = C.map((v) => v / s.topEps);
-  } else {
-    const vac: NormSection = { ...s, interfaces: [], layerEps: s.layerEps.map(() => 1), topEps: 1 };
-    air = solveWith(vac, o, tool).C;
-  }
-  return { C, air, s };
+  abortedEarly(options, tool);
+  const p = plan(s, o, tool);
+  // One medium everywhere: C is eps_r times its vacuum value, no second solve.
+  const vac = s.interfaces.length === 0 ? undefined : plan({ ...s, interfaces: [], layerEps: s.layerEps.map(() => 1), topEps: 1 }, o, tool);
+  const progress = meter(tool, options, vac ? [p, vac] : [p]);
+  const { C } = solveWith(p, tool, progress.meter);
+  const air = vac ? solveWith(vac, tool, progress.meter).C : C.map((v) => v / s.topEps);
+  return { C, air, s, finish: progress.finish };
 }
 
 function mode(c: number, cAir: number): LineModeParameters {
@@ -230,14 +275,18 @@ function mode(c: number, cAir: number): LineModeParameters {
  * // microstrip: 3 mm strip on 1.6 mm of eps_r 4.4
  * lineImpedance({ layers: [{ thickness: 1.6e-3, relativePermittivity: 4.4 }], conductors: [{ x: 0, y: 1.6e-3, width: 3e-3, thickness: 0 }] }).impedance; // ≈ 50.6 ohm
  */
-export function lineImpedance(crossSection: CrossSection, options?: FieldSolverOptions): LineModeParameters {
+export function lineImpedance(crossSection: CrossSection, options?: FieldSolverOptions & LongRunOptions): LineModeParameters {
   const tool = "lineImpedance";
-  const { C, air, s } = withAir(crossSection, options, tool);
+  const { C, air, s, finish } = withAir(crossSection, options, tool);
   const nc = s.conductors.length;
-  if (s.ground !== "none" && nc === 1) return mode(C[0]!, air[0]!);
+  if (s.ground !== "none" && nc === 1) {
+    finish();
+    return mode(C[0]!, air[0]!);
+  }
   if (s.ground === "none" && nc === 2) {
     // Go and return: the capacitance between the two, (C00 + C11 - C01 - C10)/4.
     const pair = (x: Float64Array): number => 0.25 * (x[0]! + x[3]! - x[1]! - x[2]!);
+    finish();
     return mode(pair(C), pair(air));
   }
   throw new FormulaError("invalid_argument", {
@@ -258,9 +307,9 @@ export function lineImpedance(crossSection: CrossSection, options?: FieldSolverO
  *   conductors: [{ x: -2e-3, y: 1.6e-3, width: 3e-3, thickness: 0 }, { x: 2e-3, y: 1.6e-3, width: 3e-3, thickness: 0 }] });
  * // even ≈ 58.4 ohm (eps_eff 3.57), odd ≈ 41.3 ohm (eps_eff 2.97)
  */
-export function coupledLineImpedances(crossSection: CrossSection, options?: FieldSolverOptions): { even: LineModeParameters; odd: LineModeParameters } {
+export function coupledLineImpedances(crossSection: CrossSection, options?: FieldSolverOptions & LongRunOptions): { even: LineModeParameters; odd: LineModeParameters } {
   const tool = "coupledLineImpedances";
-  const { C, air, s } = withAir(crossSection, options, tool);
+  const { C, air, s, finish } = withAir(crossSection, options, tool);
   if (s.ground === "none" || s.conductors.length !== 2) {
     throw new FormulaError("invalid_argument", { formula: tool, input: "crossSection.conductors", value: s.conductors.length, detail: "needs exactly two conductors over ground" });
   }
@@ -271,5 +320,6 @@ export function coupledLineImpedances(crossSection: CrossSection, options?: Fiel
   }
   const a11 = 0.5 * (air[0]! + air[3]!);
   const a12 = 0.5 * (air[1]! + air[2]!);
+  finish();
   return { even: mode(c11 + c12, a11 + a12), odd: mode(c11 - c12, a11 - a12) };
 }

@@ -23,14 +23,19 @@ export interface LuFactors {
   readonly pivotRatio: number;
 }
 
-/** Factorises the n x n row-major matrix `a` in place. */
-export function luFactor(a: Float64Array, n: number): LuFactors {
+/**
+ * Factorises the n x n row-major matrix `a` in place. `beforeStep(k)`, when given, is
+ * called before elimination step k (which updates (n - k - 1)^2 entries): the caller's
+ * progress and cancellation point (it may throw).
+ */
+export function luFactor(a: Float64Array, n: number, beforeStep?: (k: number) => void): LuFactors {
   const pivot = new Int32Array(n);
   let largest = 0;
   for (let i = 0; i < n * n; i++) largest = Math.max(largest, Math.abs(a[i]!));
   let smallestPivot = Infinity;
   let work = 0;
   for (let k = 0; k < n; k++) {
+    if (beforeStep !== undefined) beforeStep(k);
     // Row with the largest entry in column k at or below the diagonal.
     let p = k;
     let best = Math.abs(a[k * n + k]!);

@@ -17,7 +17,7 @@ import { afterEach, beforeEach, describe, expect, it, vi } from "vitest";
 import { type LongRunOptions, PROGRESS_INTERVAL_MS, type Progress } from "../../src/core/progress.js";
 import { electron } from "../../src/constants/index.js";
 import {
-  biotSavart, type FluxDensity, type Length, mutualInductance, pathForce, polylineSelfInductance, type Time, traceParticle, type TraceOptions, type Vec3, type Velocity,
+  biotSavart, closedSurfaceFlux, coupledLineImpedances, type CrossSection, type FluxDensity, type Length, lineCapacitance, lineImpedance, mutualInductance, pathForce, polylineSelfInductance, type Time, sphereMesh, traceParticle, type TraceOptions, type Vec3, type Velocity,
 } from "../../src/index.js";
 import { errorOf } from "../helpers/errors.js";
 import { loopCount, resetLoopCount } from "../helpers/loop-count.js";
@@ -56,6 +56,22 @@ function electronTrace(steps: number, fluxDensity: TraceOptions["fluxDensity"], 
   });
 }
 
+/** A coupled microstrip pair: 3 mm sheets 4 mm apart (centres) on 1.6 mm of relative permittivity 4.4. */
+const MICROSTRIP_PAIR: CrossSection = {
+  layers: [{ thickness: 1.6e-3, relativePermittivity: 4.4 }],
+  conductors: [{ x: -2e-3, y: 1.6e-3, width: 3e-3, thickness: 0 }, { x: 2e-3, y: 1.6e-3, width: 3e-3, thickness: 0 }],
+};
+/** A thick strip centred between two planes 2 mm apart. */
+const STRIPLINE: CrossSection = { ground: "two planes", groundSpacing: 2e-3, conductors: [{ x: 0, y: 0.9e-3, width: 1e-3, thickness: 0.2e-3 }] };
+/** Three round wires without ground. */
+const THREE_WIRES: CrossSection = {
+  ground: "none",
+  conductors: [{ x: 0, y: 0, radius: 1e-3 }, { x: 3e-3, y: 0, radius: 1e-3 }, { x: 1.5e-3, y: 2.5e-3, radius: 0.5e-3 }],
+};
+
+let sphere: ReturnType<typeof sphereMesh> | undefined;
+const SPHERE = () => (sphere ??= sphereMesh([0, 0, 0], 1, 5));
+
 interface Solver {
   readonly name: string;
   /** One call of the solver, with the long-run options given (or none). */
@@ -71,6 +87,13 @@ const solvers: Solver[] = [
   { name: "biotSavart", run: (o) => biotSavart(polygon(1024, 1, 0), 1, axisPoints(112 * 256), undefined, o) },
   // 128 segments on path 2: one tick per segment.
   { name: "pathForce", run: (o) => pathForce(polygon(64, 0.1, 0), 3, polygon(128, 0.12, 0.01), -2, o) },
+  // Field solver: ticks before each assembled row, LU step and back-substitution.
+  { name: "lineCapacitance (extrapolated)", run: (o) => lineCapacitance(MICROSTRIP_PAIR, { panels: 24, extrapolate: true, ...o }) },
+  { name: "lineCapacitance (round wires)", run: (o) => lineCapacitance(THREE_WIRES, { modes: 40, ...o }) },
+  { name: "lineImpedance (two planes)", run: (o) => lineImpedance(STRIPLINE, { panels: 24, ...o }) },
+  { name: "coupledLineImpedances (with the vacuum solve)", run: (o) => coupledLineImpedances(MICROSTRIP_PAIR, o) },
+  // 20 * 4^5 = 20,480 triangles: a tick every 128, 160 ticks (the mesh is made once, outside the call).
+  { name: "closedSurfaceFlux", run: (o) => closedSurfaceFlux(SPHERE(), (x, y, z) => [x + 0.2, y * y, -z], o) },
   // Uniform field: a tick every 16384 steps, 128 ticks.
   { name: "traceParticle (uniform field)", run: (o) => electronTrace(128 * 16_384, [0, 0, 1e-3] as unknown as Vec3<FluxDensity>, o) },
   // A field function: a tick every 1024 steps, 128 ticks.

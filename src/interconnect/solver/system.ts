@@ -5,20 +5,30 @@
  * formulation is described in src/interconnect/field-solver.ts.
  */
 import { FormulaError } from "../../core/errors.js";
+import type { Ticker } from "../../core/progress.js";
 import { countLoop } from "../../math/loop-count.js";
 import { gaussLegendre } from "../../math/quadrature.js";
 import { luFactor, luSolve } from "../../math/lu.js";
 import { type CircleMode, type Element, fieldY, potential, slabRemainder } from "./kernels.js";
-import { buildMesh, type Mesh } from "./mesh.js";
+import type { Mesh } from "./mesh.js";
 import type { NormSection } from "./section.js";
 
 const G8 = /* @__PURE__ */ gaussLegendre(8);
 
+/** Sub-panels of a panel for the two-plane remainder: at most a quarter of the spacing each (S varies on that scale). */
+function remainderParts(e: Element & { kind: "panel" }, spacing: number): number {
+  return Math.max(1, Math.ceil((4 * e.length) / spacing));
+}
+
+/** Trapezoid points on a circle for the two-plane remainder of mode n. */
+function remainderPoints(n: number): number {
+  return Math.max(32, 4 * n + 16);
+}
+
 /** Quadrature nodes (x, y, weight) of an element, for the smooth part of the two-plane kernel. */
 function remainderNodes(e: Element, spacing: number): Float64Array {
   if (e.kind === "panel") {
-    // Sub-panels of at most a quarter of the spacing: S varies on the scale of the spacing.
-    const parts = Math.max(1, Math.ceil((4 * e.length) / spacing));
+    const parts = remainderParts(e, spacing);
     const out = new Float64Array(parts * 8 * 3);
     let k = 0;
     for (let p = 0; p < parts; p++) {
@@ -32,7 +42,7 @@ function remainderNodes(e: Element, spacing: number): Float64Array {
     return out;
   }
   // Trapezoid rule on the circle (spectral for the periodic analytic integrand).
-  const K = Math.max(32, 4 * e.n + 16);
+  const K = remainderPoints(e.n);
   const out = new Float64Array(K * 3);
   for (let k = 0; k < K; k++) {
     const th = (2 * Math.PI * k) / K;
@@ -70,13 +80,78 @@ function makeField(s: NormSection, mesh: Mesh): (j: number, px: number, py: numb
   return (j, px, py) => fieldY(els[j]!, px, py) + fieldY(els[j]!, px, -py);
 }
 
+/*
+ * Work count for progress (core/progress.ts), in units of one multiply-add of the
+ * elimination. Measured on this machine (tsx, loaded, 2026-12-03): one panel's
+ * potential with its image costs about 40 multiply-adds of the LU's inner loop
+ * (270 ns against 6.6 ns), one node of the two-plane remainder about 70; so a
+ * kernel evaluation counts KERNEL_WORK, each remainder node REMAINDER_WORK more. The count is a model of
+ * time, not a measurement: the fraction it gives follows elapsed time to within a
+ * factor of about 2 between the stages (assembly, LU, back-substitution).
+ */
+const KERNEL_WORK = 32;
+const REMAINDER_WORK = 64;
+
+/** Galerkin samples around a circle with M modes (assemble). */
+function circleSamples(modes: number): number {
+  return Math.max(16, 4 * modes + 8);
+}
+
+/** Work of evaluating element j's potential at one point (KERNEL_WORK, plus the two-plane remainder). */
+function potentialWork(s: NormSection, e: Element): number {
+  if (s.ground !== "two planes") return KERNEL_WORK;
+  const nodes = e.kind === "panel" ? 8 * remainderParts(e, s.spacing) : remainderPoints(e.n);
+  return KERNEL_WORK + REMAINDER_WORK * nodes;
+}
+
+/** Sheet panels between two permittivities: their free charge needs the field of every element at them. */
+function isFieldSheet(row: Mesh["rows"][number], e: Element): boolean {
+  return row.kind === "conductor" && row.sheet && row.epsPlus !== row.epsMinus && e.kind === "panel";
+}
+
+/** The whole work count of solveMesh for this mesh (the sum of what it reports). */
+export function solveWork(s: NormSection, mesh: Mesh): number {
+  const els = mesh.elements;
+  const m = els.length;
+  const n = m + (s.ground === "none" ? 1 : 0);
+  let all = 0; // one potential of every element
+  for (const e of els) all += potentialWork(s, e);
+  let work = 0;
+  let sheets = 0;
+  for (let i = 0; i < m; i++) {
+    // The rows assemble fills one by one (circle rows are filled by columns, below).
+    const row = mesh.rows[i]!;
+    if (row.kind === "circle" || els[i]!.kind !== "panel") continue;
+    work += row.kind === "conductor" ? all : m * KERNEL_WORK;
+    if (isFieldSheet(row, els[i]!)) sheets++;
+  }
+  for (const c of mesh.circles) {
+    const K = circleSamples(c.modes);
+    work += K * all + m * K * (2 * c.modes + 1);
+  }
+  work += sheets * m * KERNEL_WORK;
+  work += ((n - 1) * n * (2 * n - 1)) / 6; // LU: sum over k of (n - k - 1)^2
+  work += s.conductors.length * (n * n + sheets * m);
+  return work;
+}
+
+/** The work done so far by a call's solves, reported to its Ticker before each chunk. */
+export class WorkMeter {
+  done = 0;
+  constructor(private readonly ticker: Ticker) {}
+  /** Reports the work so far (and checks for cancellation) before a chunk. */
+  tick(): void {
+    this.ticker.tick(this.done);
+  }
+}
+
 export interface Assembled {
   readonly A: Float64Array;
   readonly n: number;
   readonly field: (j: number, px: number, py: number) => number;
 }
 
-export function assemble(s: NormSection, mesh: Mesh): Assembled {
+export function assemble(s: NormSection, mesh: Mesh, meter?: WorkMeter): Assembled {
   const els = mesh.elements;
   const m = els.length;
   const ref = s.ground === "none";
@@ -84,6 +159,8 @@ export function assemble(s: NormSection, mesh: Mesh): Assembled {
   const A = new Float64Array(n * n);
   const pot = makePotential(s, mesh);
   const field = makeField(s, mesh);
+  let all = 0;
+  if (meter) for (const e of els) all += potentialWork(s, e);
   let work = 0;
   for (let i = 0; i < m; i++) {
     const row = mesh.rows[i]!;
@@ -93,6 +170,10 @@ export function assemble(s: NormSection, mesh: Mesh): Assembled {
     const mx = 0.5 * (e.ax + e.bx);
     const my = 0.5 * (e.ay + e.by);
     const r = i * n;
+    if (meter) {
+      meter.tick();
+      meter.done += row.kind === "conductor" ? all : m * KERNEL_WORK;
+    }
     if (row.kind === "conductor") {
       for (let j = 0; j < m; j++) A[r + j] = pot(j, mx, my);
       if (ref) A[r + m] = 1;
@@ -109,7 +190,7 @@ export function assemble(s: NormSection, mesh: Mesh): Assembled {
     // Galerkin rows: Fourier coefficients of the potential on the circle, from
     // K equally spaced samples (exact for the modes up to K - M - 1).
     const M = c.modes;
-    const K = Math.max(16, 4 * M + 8);
+    const K = circleSamples(M);
     const xs = new Float64Array(K);
     const ys = new Float64Array(K);
     const cosTab = new Float64Array((M + 1) * K);
@@ -125,6 +206,10 @@ export function assemble(s: NormSection, mesh: Mesh): Assembled {
     }
     const vals = new Float64Array(K);
     for (let j = 0; j < m; j++) {
+      if (meter) {
+        meter.tick();
+        meter.done += K * potentialWork(s, els[j]!) + K * (2 * M + 1);
+      }
       for (let k = 0; k < K; k++) vals[k] = pot(j, xs[k]!, ys[k]!);
       let mean = 0;
       for (let k = 0; k < K; k++) mean += vals[k]!;
@@ -164,11 +249,22 @@ export function rightHandSide(mesh: Mesh, c: number, b: Float64Array): void {
   for (const circ of mesh.circles) if (circ.conductor === c) b[circ.first] = 1;
 }
 
-/** Solves the normalised section: the capacitance matrix over eps0 (dimensionless). */
-export function solveSection(s: NormSection, panels: number, modes: number | undefined, tool: string): { C: Float64Array; unknowns: number } {
-  const mesh = buildMesh(s, { panels, modes }, tool);
-  const { A, n, field } = assemble(s, mesh);
-  const lu = luFactor(A, n);
+/**
+ * Solves the normalised section on a mesh (from buildMesh): the capacitance matrix over
+ * eps0. With a meter, reports solveWork(s, mesh) in all, before each row or column of the
+ * assembly, each step of the LU and each back-substitution.
+ */
+export function solveMesh(s: NormSection, mesh: Mesh, tool: string, meter?: WorkMeter): { C: Float64Array; unknowns: number } {
+  const { A, n, field } = assemble(s, mesh, meter);
+  const lu = luFactor(
+    A,
+    n,
+    meter &&
+      ((k) => {
+        meter.tick();
+        meter.done += (n - k - 1) * (n - k - 1);
+      }),
+  );
   if (!(lu.pivotRatio > 1e-15)) {
     throw new FormulaError("out_of_range", { formula: tool, detail: "the moment system is numerically singular for this section (conductors nearly touching?)" });
   }
@@ -178,9 +274,12 @@ export function solveSection(s: NormSection, panels: number, modes: number | und
   // Vertical-field rows at sheet panels between two permittivities (for their free charge).
   const sheetField = new Map<number, Float64Array>();
   mesh.rows.forEach((row, i) => {
-    if (row.kind === "conductor" && row.sheet && row.epsPlus !== row.epsMinus) {
-      const e = mesh.elements[i]!;
-      if (e.kind !== "panel") return;
+    const e = mesh.elements[i]!;
+    if (isFieldSheet(row, e) && e.kind === "panel") {
+      if (meter) {
+        meter.tick();
+        meter.done += m * KERNEL_WORK;
+      }
       const f = new Float64Array(m);
       for (let j = 0; j < m; j++) f[j] = field(j, 0.5 * (e.ax + e.bx), e.ay);
       sheetField.set(i, f);
@@ -188,6 +287,10 @@ export function solveSection(s: NormSection, panels: number, modes: number | und
   });
   const b = new Float64Array(n);
   for (let c = 0; c < nc; c++) {
+    if (meter) {
+      meter.tick();
+      meter.done += n * n + sheetField.size * m;
+    }
     rightHandSide(mesh, c, b);
     luSolve(lu, b);
     for (let i = 0; i < m; i++) {
