@@ -8,6 +8,8 @@ import { countLoop } from "../math/loop-count.js";
  * sphereMesh's (8 subdivisions) 1.3 million.
  */
 export const MAX_TRIANGLES = 20_000_000;
+/** Most vertices of a mesh (2^26: edge keys i * nv + j stay exact doubles). */
+export const MAX_VERTICES = 2 ** 26;
 
 /** A triangulated surface: vertex coordinates (x, y, z triples, m) and triangles (three vertex indices each). */
 export interface TriangleMesh {
@@ -71,29 +73,36 @@ export function checkClosedSurface(mesh: TriangleMesh, formula = "closedSurfaceF
     throw bad(formula, "surface.triangles", `at most ${MAX_TRIANGLES} triangles`, triangles.length / 3);
   }
   const nv = vertices.length / 3;
+  if (nv > MAX_VERTICES) throw bad(formula, "surface.vertices", `at most ${MAX_VERTICES} vertices`, nv);
   for (let i = 0; i < vertices.length; i++) {
     if (vertices[i]! - vertices[i]! !== 0) throw bad(formula, "surface.vertices", `coordinate ${i} is not finite`, vertices[i]);
   }
-  // Directed edges: each must occur once, and its reverse once.
-  const directed = new Set<number>();
+  // Directed edges: each must occur once, and its reverse once. Keys i * nv + j
+  // (exact: nv <= MAX_VERTICES = 2^26, so keys stay below 2^52) in a sorted typed
+  // array, not a Set: a Set holds at most 2^24 entries, fewer than the edges of
+  // a mesh at MAX_TRIANGLES, and a typed array costs 8 bytes an edge.
   const nt = triangles.length / 3;
+  const keys = new Float64Array(3 * nt);
   for (let t = 0; t < nt; t++) {
     for (let e = 0; e < 3; e++) {
       const i = triangles[3 * t + e]!;
       const j = triangles[3 * t + ((e + 1) % 3)]!;
       if (i >= nv || j >= nv) throw bad(formula, "surface.triangles", `triangle ${t} refers to vertex ${Math.max(i, j)} of ${nv}`);
       if (i === j) throw bad(formula, "surface.triangles", `triangle ${t} repeats vertex ${i}`);
-      const key = i * nv + j;
-      if (directed.has(key)) {
-        throw bad(formula, "surface.triangles", `edge ${i}-${j} is traversed twice in the same direction: triangles are not consistently oriented, or more than two triangles share the edge`);
-      }
-      directed.add(key);
+      keys[3 * t + e] = i * nv + j;
     }
   }
-  for (const key of directed) {
-    const i = Math.floor(key / nv);
-    const j = key - i * nv;
-    if (!directed.has(j * nv + i)) throw bad(formula, "surface.triangles", `edge ${i}-${j} belongs to one triangle only: the surface is not closed`);
+  keys.sort();
+  for (let k = 1; k < keys.length; k++) {
+    if (keys[k] === keys[k - 1]) {
+      const i = Math.floor(keys[k]! / nv);
+      throw bad(formula, "surface.triangles", `edge ${i}-${keys[k]! - i * nv} is traversed twice in the same direction: triangles are not consistently oriented, or more than two triangles share the edge`);
+    }
+  }
+  for (let k = 0; k < keys.length; k++) {
+    const i = Math.floor(keys[k]! / nv);
+    const j = keys[k]! - i * nv;
+    if (!sortedHas(keys, j * nv + i)) throw bad(formula, "surface.triangles", `edge ${i}-${j} belongs to one triangle only: the surface is not closed`);
   }
   // Signed volume (divergence theorem with F = r / 3), relative to the first vertex to limit rounding.
   const ox = vertices[0]!;
@@ -112,6 +121,18 @@ export function checkClosedSurface(mesh: TriangleMesh, formula = "closedSurfaceF
   vol /= 6;
   if (!(vol !== 0)) throw bad(formula, "surface", "the surface encloses no volume");
   return vol;
+}
+
+/** Whether the ascending array `a` holds `x` (binary search: at most 32 steps for 2^32 entries). */
+function sortedHas(a: Float64Array, x: number): boolean {
+  let lo = 0;
+  let hi = a.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >>> 1;
+    if (a[mid]! < x) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo < a.length && a[lo] === x;
 }
 
 /**
