@@ -4,6 +4,7 @@
 // expressions as they stand (ln(b/a), acosh(D/2a), ab/(b-a)): at 50 digits the
 // cancellation that hurts doubles costs nothing.
 import Decimal from "decimal.js";
+import { exactDecimal } from "../helpers/exact-decimal.js";
 import { expect } from "vitest";
 import type { FormulaError } from "../../src/core/errors.js";
 import { constant } from "../../src/constants/index.js";
@@ -12,22 +13,9 @@ import { constantDecimal } from "../../src/constants/decimal.js";
 export const D = Decimal.clone({ precision: 50, toExpNeg: -9e15, toExpPos: 9e15, minE: -9e15, maxE: 9e15 });
 export type Dec = Decimal;
 
-const view = new DataView(new ArrayBuffer(8));
-
 /** The exact value of a double as a decimal (no rounding: decimal.js keeps constructed digits). */
 export function exact(x: number): Dec {
-  if (!Number.isFinite(x)) throw new Error(`not finite: ${x}`);
-  if (x === 0) return new D(0);
-  view.setFloat64(0, x);
-  const b = view.getBigUint64(0);
-  const negative = b >> 63n === 1n;
-  const expBits = Number((b >> 52n) & 0x7ffn);
-  const frac = b & ((1n << 52n) - 1n);
-  const m = expBits === 0 ? frac : frac | (1n << 52n);
-  const e = (expBits === 0 ? 1 : expBits) - 1075; // x = m * 2^e
-  // m 2^e = m 5^k / 10^k for e = -k < 0: an exact decimal string.
-  const s = e >= 0 ? (m << BigInt(e)).toString() : `${m * 5n ** BigInt(-e)}e-${-e}`;
-  return new D(negative ? `-${s}` : s);
+  return exactDecimal(x, D);
 }
 
 export const EPS0 = constantDecimal(constant("vacuumPermittivity"), D);

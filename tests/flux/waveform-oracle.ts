@@ -5,23 +5,15 @@
 // (K. Venkatachalam, C. R. Sullivan, T. Abdallah, H. Tacca, IEEE COMPEL 2002), with the
 // integral of |cos|^alpha from the Beta function and ln Gamma from Stirling's series.
 import Decimal from "decimal.js";
+import { exactDecimal } from "../helpers/exact-decimal.js";
 
 export const W = Decimal.clone({ precision: 60, toExpNeg: -9e15, toExpPos: 9e15, minE: -9e15, maxE: 9e15 });
 export type WDec = Decimal;
 export const WPI = W.acos(-1);
 
-const view = new DataView(new ArrayBuffer(8));
 /** The exact value of a double as a decimal (its full binary expansion). */
 export function exactW(x: number): WDec {
-  if (x === 0) return new W(0);
-  view.setFloat64(0, x);
-  const b = view.getBigUint64(0);
-  const expBits = Number((b >> 52n) & 0x7ffn);
-  const frac = b & ((1n << 52n) - 1n);
-  const m = expBits === 0 ? frac : frac | (1n << 52n);
-  const e = (expBits === 0 ? 1 : expBits) - 1075;
-  const s = e >= 0 ? (m << BigInt(e)).toString() : `${m * 5n ** BigInt(-e)}e-${-e}`;
-  return new W(x < 0 ? `-${s}` : s);
+  return exactDecimal(x, W);
 }
 
 /** B_2 .. B_30, the Bernoulli numbers (exact rationals; DLMF Table 24.2.1). */

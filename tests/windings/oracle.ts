@@ -12,6 +12,7 @@
 //   for a / delta >= 25 where its error, about e^{-2|z|}, is below 1e-30.
 // The two agree to 30 digits where both apply (tests/windings/extremes-accuracy.test.ts).
 import Decimal from "decimal.js";
+import { exactDecimal } from "../helpers/exact-decimal.js";
 
 export const D = Decimal.clone({ precision: 90, toExpNeg: -9e15, toExpPos: 9e15, minE: -9e15, maxE: 9e15 });
 export type Dec = InstanceType<typeof D>;
@@ -100,16 +101,7 @@ export function acRatio(x: Dec | number): Dec {
   return new D(x).lte(25) ? kelvinRatio(x) : hankelRatio(x);
 }
 
-const view = new DataView(new ArrayBuffer(8));
 /** The exact value of a double as a decimal. */
 export function exact(x: number): Dec {
-  if (x === 0) return new D(0);
-  view.setFloat64(0, x);
-  const bits = view.getBigUint64(0);
-  const expBits = Number((bits >> 52n) & 0x7ffn);
-  const frac = bits & ((1n << 52n) - 1n);
-  const m = expBits === 0 ? frac : frac | (1n << 52n);
-  const e = (expBits === 0 ? 1 : expBits) - 1075;
-  const s = e >= 0 ? (m << BigInt(e)).toString() : `${m * 5n ** BigInt(-e)}e-${-e}`;
-  return new D(x < 0 ? `-${s}` : s);
+  return exactDecimal(x, D);
 }
