@@ -24,6 +24,14 @@ import { monteCarloRange, type MonteCarloPart, type Varied } from "./tolerance.j
  * long tasks and a cancel stops a running task within one block.
  */
 
+/** How a caller of runOnPool follows and stops its tasks (see pool.node.ts). */
+export interface PoolWatch {
+  /** Aborting it cancels the call: no more tasks start, running ones stop within one block, the promise rejects "cancelled". */
+  readonly signal?: AbortSignal;
+  /** Items done so far over all tasks (each task's own unit, summed); throwing cancels the call with that error. */
+  readonly progress?: (done: number) => void;
+}
+
 /**
  * A parallel call's shared control: Int32 cells in a SharedArrayBuffer.
  * Cell CANCEL_CELL is the cancel flag (1: stop). Task i has two cells:

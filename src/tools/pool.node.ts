@@ -2,8 +2,7 @@ import { availableParallelism } from "node:os";
 import { createRequire } from "node:module";
 import type { Piscina } from "piscina";
 import { cancelledError, PROGRESS_INTERVAL_MS } from "../core/progress.js";
-import { CANCEL_CELL, controlCells, finalCell, type PoolTask, progressCell, type TaskOutcome } from "./pool-tasks.js";
-import type { PoolWatch } from "./pool.js";
+import { CANCEL_CELL, controlCells, finalCell, type PoolTask, type PoolWatch, progressCell, type TaskOutcome } from "./pool-tasks.js";
 
 /*
  * The worker pool of the Node build (it replaces pool.ts there): one piscina
