@@ -32,9 +32,21 @@ export function tickBelow(t: Ticker, done: number, total: number): void {
   else t.check();
 }
 
+/**
+ * Most items in one piece. A test seam, not exported from the package: tests
+ * lower it (and restore it) to get a piece boundary near any fraction of the
+ * work whatever the machine's speed.
+ */
+export const pieceLimit = { items: 2 ** 24 };
+
+/** The largest piece: pieceLimit on a multiple of `align` (at least `align`). */
+function largest(align: number): number {
+  return Math.max(align, pieceLimit.items - (pieceLimit.items % align));
+}
+
 /** Next piece size: doubled when a piece took under half the aim, halved (not below `align`) when over twice. */
 function resize(size: number, ms: number, align: number): number {
-  if (ms < CHUNK_MS / 2 && size < 2 ** 24) return size * 2;
+  if (ms < CHUNK_MS / 2) return Math.min(largest(align), size * 2);
   if (ms > CHUNK_MS * 2 && size > align) return Math.max(align, Math.floor(size / 2 / align) * align);
   return size;
 }
@@ -46,15 +58,24 @@ function resize(size: number, ms: number, align: number): number {
  * on from + multiples of `align`. Bounded: every piece covers at least one item.
  */
 export function inPieces(from: number, to: number, work: (start: number, end: number) => void, between: (done: number) => void, first = 256, align = 1): void {
-  let size = Math.max(align, first - (first % align));
+  let size = firstSize(first, align);
   for (let start = from; start < to;) {
     const end = Math.min(to, start + size);
-    const t0 = now();
-    work(start, end);
-    size = resize(size, now() - t0, align);
+    size = timed(work, start, end, size, align);
     if (end < to) between(end);
     start = end;
   }
+}
+
+function firstSize(first: number, align: number): number {
+  return Math.min(largest(align), Math.max(align, first - (first % align)));
+}
+
+/** Runs one piece and returns the size of the next. */
+function timed(work: (start: number, end: number) => void, start: number, end: number, size: number, align: number): number {
+  const t0 = now();
+  work(start, end);
+  return resize(size, now() - t0, align);
 }
 
 /**
@@ -63,16 +84,13 @@ export function inPieces(from: number, to: number, work: (start: number, end: nu
  * another event reaches the loop within one piece.
  */
 export async function inPiecesAsync(from: number, to: number, work: (start: number, end: number) => void, between: (done: number) => void, first = 256, align = 1): Promise<void> {
-  let size = Math.max(align, first - (first % align));
-  for (let start = from; start < to;) {
+  let size = firstSize(first, align);
+  for (let start = from; start < to; ) {
     const end = Math.min(to, start + size);
-    const t0 = now();
-    work(start, end);
-    size = resize(size, now() - t0, align);
-    if (end < to) {
-      between(end);
-      await nextTurn();
-    }
+    size = timed(work, start, end, size, align);
+    if (end === to) break;
+    between(end);
+    await nextTurn();
     start = end;
   }
 }

@@ -3,6 +3,7 @@ import { type AnyFormula, isFormula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
 import { type ColumnsOptions, type ColumnsResult, evaluateColumns, MAX_COLUMN_ROWS, ROW_ERROR_CODES } from "./columns.js";
 import type { UnitColumn } from "./columns-read.js";
+import type { LongRunOptions } from "../core/progress.js";
 
 /*
  * CSV text in and out of evaluateColumns. The header names the inputs; a
@@ -142,6 +143,8 @@ function* splitRecords(text: string): Generator<{ cells: string[]; line: number 
  * Evaluate a formula over the rows of CSV text (or a table readCsvTable read);
  * `fixed` gives inputs that are the same for every row (numbers in SI or
  * unit strings). Each row gets its value or an error code, as evaluateColumns.
+ * `options.signal` and `options.onProgress` go to evaluateColumns (progress
+ * in rows; reading the text, bounded by maxChars, is not counted).
  *
  * @example
  * const r = evaluateCsv("parallelPlateCapacitance", "area (cm^2),gap\n1,0.1 mm\n2,0.2 mm\n", {});
@@ -151,7 +154,7 @@ export function evaluateCsv(
   formula: AnyFormula | string,
   csv: string | CsvTable,
   fixed: Readonly<Record<string, unknown>> = {},
-  options: CsvLimits & ColumnsOptions = {},
+  options: CsvLimits & ColumnsOptions & LongRunOptions = {},
 ): ColumnsResult {
   const f = isFormula(formula) ? formula : getFormula(formula);
   if (typeof fixed !== "object" || fixed === null || Array.isArray(fixed)) {

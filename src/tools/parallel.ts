@@ -10,7 +10,7 @@ import {
 import { type LongRunOptions, type Ticker, ticker } from "../core/progress.js";
 import { inPiecesAsync, tickBelow, watched } from "./chunks.js";
 import { defaultWorkers, poolAvailable, runOnPool } from "./pool.js";
-import { type PoolTask, rebuildError, selfPairs, type TaskOutcome } from "./pool-tasks.js";
+import { fieldPieces, type PoolTask, rebuildError, selfPairs, type TaskOutcome } from "./pool-tasks.js";
 import { MONTE_CARLO_BLOCK } from "./random.js";
 import { computePoints } from "./sweep-points.js";
 import { bindGrid, finishSweep, layoutSweep, planSweep, type SweepResult, type SweepSpec } from "./sweep.js";
@@ -247,15 +247,9 @@ export async function biotSavartParallel(path: Float64Array, current: number, po
     if (!watched(options)) found = fieldRange(path, current, points, result, wireRadius, 0, np);
     else {
       // Points are independent: the pieces give the field, count and first point of one call.
-      let inside = 0;
-      let first = -1;
-      const work = (a: number, b: number): void => {
-        const r = fieldRange(path, current, points, result, wireRadius, a, b);
-        inside += r.inside;
-        if (first < 0) first = r.first;
-      };
-      await inPiecesAsync(0, np, work, (done) => tickBelow(t, done, np), 16);
-      found = { inside, first };
+      const field = fieldPieces(path, current, points, result, wireRadius);
+      await inPiecesAsync(0, np, field.work, (done) => tickBelow(t, done, np), 16);
+      found = field.found();
     }
   } else {
     const sp = shared(path);

@@ -24,6 +24,14 @@ import { monteCarloRange, type MonteCarloPart, type Varied } from "./tolerance.j
  * long tasks and a cancel stops a running task within one block.
  */
 
+/** How a caller of runOnPool follows and stops its tasks (see pool.node.ts). */
+export interface PoolWatch {
+  /** Aborting it cancels the call: no more tasks start, running ones stop within one block, the promise rejects "cancelled". */
+  readonly signal?: AbortSignal;
+  /** Items done so far over all tasks (each task's own unit, summed); throwing cancels the call with that error. */
+  readonly progress?: (done: number) => void;
+}
+
 /**
  * A parallel call's shared control: Int32 cells in a SharedArrayBuffer.
  * Cell CANCEL_CELL is the cancel flag (1: stop). Task i has two cells:
@@ -123,21 +131,29 @@ export function rowsInPieces(i0: number, i1: number, rows: (a: number, b: number
 }
 
 /**
- * Field points p0..p1-1 in pieces (points are independent), reporting the
- * points done through `hook`; the count inside the conductor and the first
- * such point are those of one call.
+ * A field map computed piece by piece (points are independent): `work`
+ * computes points [a, b); `found` gives the count inside the conductor and
+ * the first such point, as one call over all the pieces would.
  */
-export function fieldInPieces(path: Float64Array, current: number, points: Float64Array, out: Float64Array, wireRadius: number, p0: number, p1: number, hook: ((done: number) => void) | undefined): InsideCount {
-  if (hook === undefined) return fieldRange(path, current, points, out, wireRadius, p0, p1);
+export function fieldPieces(path: Float64Array, current: number, points: Float64Array, out: Float64Array, wireRadius: number): { work(a: number, b: number): void; found(): InsideCount } {
   let inside = 0;
   let first = -1;
-  const work = (a: number, b: number): void => {
-    const r = fieldRange(path, current, points, out, wireRadius, a, b);
-    inside += r.inside;
-    if (first < 0) first = r.first;
+  return {
+    work(a: number, b: number): void {
+      const r = fieldRange(path, current, points, out, wireRadius, a, b);
+      inside += r.inside;
+      if (first < 0) first = r.first;
+    },
+    found: () => ({ inside, first }),
   };
-  inPieces(p0, p1, work, (at) => hook(at - p0), 16);
-  return { inside, first };
+}
+
+/** Field points p0..p1-1 in pieces, reporting the points done through `hook`. */
+function fieldInPieces(path: Float64Array, current: number, points: Float64Array, out: Float64Array, wireRadius: number, p0: number, p1: number, hook: ((done: number) => void) | undefined): InsideCount {
+  if (hook === undefined) return fieldRange(path, current, points, out, wireRadius, p0, p1);
+  const field = fieldPieces(path, current, points, out, wireRadius);
+  inPieces(p0, p1, field.work, (at) => hook(at - p0), 16);
+  return field.found();
 }
 
 function compute(task: PoolTask, hook: ((done: number) => void) | undefined): MonteCarloPart | number | InsideCount | Float64Array {

@@ -2,8 +2,7 @@ import { availableParallelism } from "node:os";
 import { createRequire } from "node:module";
 import type { Piscina } from "piscina";
 import { cancelledError, PROGRESS_INTERVAL_MS } from "../core/progress.js";
-import { CANCEL_CELL, controlCells, finalCell, type PoolTask, progressCell, type TaskOutcome } from "./pool-tasks.js";
-import type { PoolWatch } from "./pool.js";
+import { CANCEL_CELL, controlCells, finalCell, type PoolTask, type PoolWatch, progressCell, type TaskOutcome } from "./pool-tasks.js";
 
 /*
  * The worker pool of the Node build (it replaces pool.ts there): one piscina
@@ -46,6 +45,9 @@ async function thePool(): Promise<Piscina> {
   return pool;
 }
 
+/** Wait before a cancel takes tasks that have not started out of piscina's queue, ms. */
+const WITHDRAW_MS = 20;
+
 /** Tasks of parallel calls handed to the pool and not yet settled (queued in piscina or running). */
 let inFlight = 0;
 
@@ -59,8 +61,9 @@ let inFlight = 0;
  * completes and every PROGRESS_INTERVAL_MS while tasks run. A cancel (the
  * signal's abort, at any time, or `progress` throwing, as Ticker.tick does
  * for an abort from onProgress) sets the cancel flag, which running tasks
- * read between blocks; queues no more tasks; withdraws tasks the pool has not
- * started; waits for the running ones to stop (within one block); and then
+ * read between blocks; queues no more tasks; withdraws from piscina's queue
+ * the tasks no thread has started (after WITHDRAW_MS); waits for the running
+ * ones to stop (within one block); and then
  * rejects with "cancelled" (or what `progress` threw). So when the promise
  * settles, none of this call's tasks is queued or running.
  *
@@ -79,13 +82,20 @@ export async function runOnPool(tool: string, tasks: readonly PoolTask[], worker
   // The reason the call stops early (set once), and the piscina withdrawals of the tasks in flight.
   let stop: { readonly error: unknown } | undefined;
   const withdraw = new Map<number, AbortController>();
+  const withdrawTimers: ReturnType<typeof setTimeout>[] = [];
   const cancel = (error: unknown): void => {
     if (stop !== undefined) return;
     stop = { error };
     Atomics.store(control, CANCEL_CELL, 1);
-    // Not started (-1): take it out of piscina's queue. A task that started meanwhile
-    // ends its thread instead (piscina's abort of a running task): still none left running.
-    for (const [i, c] of withdraw) if (Atomics.load(control, progressCell(i)) < 0) c.abort();
+    // A task not started yet (-1) is either posted to an idle thread, where it starts within
+    // moments, reads the flag and returns, or still in piscina's queue waiting for a thread to
+    // load (seconds from source): after WITHDRAW_MS, take what has not started out of the
+    // queue. piscina ends the thread of a task that started meanwhile: none is left running
+    // either way; the wait only spares idle threads a restart.
+    const late = setTimeout(() => {
+      for (const [i, c] of withdraw) if (Atomics.load(control, progressCell(i)) < 0) c.abort();
+    }, WITHDRAW_MS);
+    withdrawTimers.push(late);
   };
   const report = (): void => {
     if (progress === undefined || stop !== undefined) return;
@@ -126,6 +136,7 @@ export async function runOnPool(tool: string, tasks: readonly PoolTask[], worker
     await Promise.all(Array.from({ length: Math.min(workers, tasks.length) }, lane));
   } finally {
     if (timer !== undefined) clearInterval(timer);
+    for (const w of withdrawTimers) clearTimeout(w);
     signal?.removeEventListener("abort", onAbort);
   }
   if (stop !== undefined) throw stop.error;

@@ -1,13 +1,5 @@
 import { FormulaError } from "../core/errors.js";
-import type { PoolTask, TaskOutcome } from "./pool-tasks.js";
-
-/** How a caller of runOnPool follows and stops its tasks (see pool.node.ts). */
-export interface PoolWatch {
-  /** Aborting it cancels the call: no more tasks start, running ones stop within one block, the promise rejects "cancelled". */
-  readonly signal?: AbortSignal;
-  /** Items done so far over all tasks (each task's own unit, summed); throwing cancels the call with that error. */
-  readonly progress?: (done: number) => void;
-}
+import type { PoolTask, PoolWatch, TaskOutcome } from "./pool-tasks.js";
 
 /*
  * The worker pool as the browser (ESM) build has it: none. Node's build

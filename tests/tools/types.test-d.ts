@@ -30,3 +30,12 @@ tolerance(parallelPlateCapacitance, { radius: 1 });
 sweep(parallelPlateCapacitance, { vary: { gap: { from: 1e-4, to: 1e-3, points: 5 } }, fixed: { area: 1e-4 } });
 // @ts-expect-error only inputs of the formula can be swept
 sweep(parallelPlateCapacitance, { vary: { radius: { from: 1, to: 2, points: 5 } } });
+
+// Progress and cancellation: signal and onProgress in the options of the long calls.
+const stop = new AbortController().signal;
+sweep(parallelPlateCapacitance, { vary: { gap: { from: 1e-4, to: 1e-3, points: 5 } } }, { signal: stop, onProgress: (p) => void p.fraction });
+tolerance(parallelPlateCapacitance, { gap: { nominal: 1e-4, percent: 1 } }, { samples: 100, signal: stop });
+// @ts-expect-error onProgress receives a Progress object, not a number
+sweep(parallelPlateCapacitance, { vary: { gap: { from: 1e-4, to: 1e-3, points: 5 } } }, { onProgress: (p: number) => void p });
+// @ts-expect-error signal is an AbortSignal
+tolerance(parallelPlateCapacitance, { gap: 1e-4 }, { signal: true });

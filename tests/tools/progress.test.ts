@@ -1,0 +1,117 @@
+import { afterEach, beforeEach, describe, expect, it } from "vitest";
+import { parallelPlateCapacitance } from "../../src/capacitance/index.js";
+import { getFormula } from "../../src/core/registry.js";
+import { pieceLimit } from "../../src/tools/chunks.js";
+import { evaluateColumns } from "../../src/tools/columns.js";
+import { CANCEL_CELL, controlCells, finalCell, progressCell, runTask, type PoolTask } from "../../src/tools/pool-tasks.js";
+import { layoutSweep, planSweep, sweep, sweepRequest } from "../../src/tools/sweep.js";
+import { planTolerance, tolerance, toleranceRequest } from "../../src/tools/tolerance.js";
+import { expectCancelled, expectReports, expectStoppedAt, steppedClock, watch } from "./progress-harness.js";
+
+// Progress and cancellation of the synchronous tools. Every call is made
+// three ways: plainly, watched to the end (the same result, bit for bit, and
+// reports that are monotone and end at 1 once), and aborted from onProgress at
+// 10 %, 50 % and 99 % (a "cancelled" error carrying the signal's reason, no
+// report after the abort). Pieces are capped at 1/200 of the work through the
+// test seam (pieceLimit), so a piece boundary lies within 1 % of any fraction.
+
+const AT = [0.1, 0.5, 0.99];
+let clock: { restore(): void };
+const limit = pieceLimit.items;
+beforeEach(() => {
+  clock = steppedClock();
+});
+afterEach(() => {
+  clock.restore();
+  pieceLimit.items = limit;
+});
+
+interface Case {
+  readonly name: string;
+  /** Items of the call: the piece cap is set to 1/200 of them. */
+  readonly items: number;
+  readonly call: (options: object | undefined) => unknown;
+}
+
+const N = 100_000;
+const gaps = Float64Array.from({ length: N }, (_, i) => 1e-5 + i * 1e-9);
+const plates = { area: { nominal: 1e-4, percent: 2 }, gap: { nominal: 1e-4, plusMinus: 2e-6 } } as const;
+const cases: Case[] = [
+  { name: "sweep (one axis)", items: N, call: (o) => sweep(parallelPlateCapacitance, { vary: { gap: { from: 1e-5, to: 1e-3, points: N } }, fixed: { area: 1e-4 } }, o) },
+  {
+    name: "sweepRequest (two axes, unit strings, points outside the domain)", items: 300 * 300,
+    call: (o) => sweepRequest({ formula: "parallelPlateCapacitance", vary: { area: { from: "1 mm^2", to: "1 cm^2", points: 300 }, gap: { from: "-0.1 mm", to: "1 mm", points: 300 } } }, o),
+  },
+  // 200 blocks of 1024 samples: a check at every block boundary.
+  { name: "tolerance", items: 204_800, call: (o) => tolerance(parallelPlateCapacitance, plates, { samples: 204_800, seed: 5, ...o }) },
+  { name: "toleranceRequest", items: 204_800, call: (o) => toleranceRequest({ formula: "parallelPlateCapacitance", inputs: plates, options: { samples: 204_800 } }, o as never) },
+  { name: "evaluateColumns", items: N, call: (o) => evaluateColumns(parallelPlateCapacitance, { area: "1 cm^2", gap: gaps }, o ?? {}) },
+  { name: "evaluateColumns over a range of rows", items: N / 2, call: (o) => evaluateColumns(parallelPlateCapacitance, { area: "1 cm^2", gap: gaps }, { from: N / 4, to: (3 * N) / 4, ...o }) },
+];
+
+describe.each(cases)("$name", ({ items, call }) => {
+  it("gives the plain result bit for bit when watched, with monotone reports ending at 1 once", () => {
+    pieceLimit.items = Math.floor(items / 200);
+    const plain = call(undefined);
+    const w = watch();
+    expect(call(w.options)).toStrictEqual(plain);
+    expectReports(w, true);
+    // Not every piece: the clock steps, so every tick reported; there were many.
+    expect(w.reports.length).toBeGreaterThan(50);
+  });
+
+  it.each(AT)("stops with 'cancelled' when aborted from onProgress at %s of the work", (at) => {
+    pieceLimit.items = Math.floor(items / 200);
+    const w = watch(at);
+    expectCancelled(() => call(w.options), w);
+    expectStoppedAt(w, at);
+  });
+
+  it("does no work with a signal aborted before the call, and reports nothing", () => {
+    const w = watch();
+    w.controller.abort(w.reason);
+    expectCancelled(() => call(w.options), w);
+    expect(w.reports).toEqual([]);
+  });
+
+  it("refuses a signal that is not an AbortSignal and an onProgress that is not a function, naming them", () => {
+    for (const [key, value] of [["signal", { aborted: "no" }], ["onProgress", 3]] as const) {
+      let code: unknown;
+      let input: unknown;
+      try {
+        call({ [key]: value });
+      } catch (e) {
+        ({ code, input } = e as { code: unknown; input: unknown });
+      }
+      expect([code, input]).toEqual(["invalid_argument", key]);
+    }
+  });
+});
+
+describe("a pool task's block hook", () => {
+  it("stores the samples done at each block boundary, then the task's size when finished", () => {
+    const f = getFormula("parallelPlateCapacitance");
+    const plan = planTolerance(f, plates, { samples: 10 * 1024 });
+    const control = new Int32Array(new SharedArrayBuffer(4 * controlCells(1))).fill(-1);
+    control[CANCEL_CELL] = 0;
+    const varied = plan.varied.map(({ spec: _spec, ...rest }) => rest);
+    const task: PoolTask = { kind: "tolerance", formula: f.id, fixed: plan.fixed, varied, seed: 1, offset: plan.sampleOffset, start: 0, end: 10 * 1024, control, slot: 0 };
+    const out = runTask(task);
+    expect(out.ok).toBe(true);
+    // The last boundary inside the range is the start of the tenth block.
+    expect([control[progressCell(0)], control[finalCell(0)]]).toEqual([9 * 1024, 10 * 1024]);
+  });
+
+  it("ends a task before its work when the cancel flag is set, as a cancelled outcome", () => {
+    const f = getFormula("parallelPlateCapacitance");
+    const plan = planSweep(f, { vary: { gap: { from: 1e-5, to: 1e-3, points: 5000 } }, fixed: { area: 1e-4 } });
+    const buffer = new SharedArrayBuffer(plan.bytes);
+    layoutSweep(plan, buffer, true);
+    const control = new Int32Array(new SharedArrayBuffer(4 * controlCells(1))).fill(-1);
+    control[CANCEL_CELL] = 1;
+    const out = runTask({ kind: "sweep", formula: f.id, spec: { vary: { gap: { from: 1e-5, to: 1e-3, points: 5000 } }, fixed: { area: 1e-4 } }, buffer, start: 0, end: 5000, control, slot: 0 });
+    expect(out.ok ? "ok" : out.error.code).toBe("cancelled");
+    expect([control[progressCell(0)], control[finalCell(0)]]).toEqual([0, -1]);
+    expect(new Uint8Array(buffer, plan.bytes - 5000).every((c) => c === 0)).toBe(true);
+  });
+});
