@@ -223,79 +223,68 @@ function panelField(a: number, b: number, c: number, x: number, y: number, z: nu
   PANEL_COUNT[1] = axisPanels(b, y, dist, PANELS[1]!);
   PANEL_COUNT[2] = axisPanels(c, z, dist, PANELS[2]!);
   if (PANEL_COUNT[0]! < 0 || PANEL_COUNT[1]! < 0 || PANEL_COUNT[2]! < 0) return undefined;
-  const { nodes, weights } = gaussLegendre(FAR_NODES);
   const [px, py, pz] = PANELS as [Float64Array, Float64Array, Float64Array];
-  let fx = 0;
-  let fy = 0;
-  let fz = 0;
+  SUM[0] = 0;
+  SUM[1] = 0;
+  SUM[2] = 0;
   for (let ip = 0; ip < PANEL_COUNT[0]!; ip++) {
-    const cx = px[2 * ip]!, hx = px[2 * ip + 1]!;
     for (let jp = 0; jp < PANEL_COUNT[1]!; jp++) {
-      const cy = py[2 * jp]!, hy = py[2 * jp + 1]!;
       for (let kp = 0; kp < PANEL_COUNT[2]!; kp++) {
-        const cz = pz[2 * kp]!, hz = pz[2 * kp + 1]!;
-        let sx = 0;
-        let sy = 0;
-        let sz = 0;
-        for (let i = 0; i < FAR_NODES; i++) {
-          const rx = x - (cx + hx * nodes[i]!);
-          for (let j = 0; j < FAR_NODES; j++) {
-            const ry = y - (cy + hy * nodes[j]!);
-            const wij = weights[i]! * weights[j]!;
-            for (let k = 0; k < FAR_NODES; k++) {
-              const rz = z - (cz + hz * nodes[k]!);
-              const r2 = rx * rx + ry * ry + rz * rz;
-              const r = Math.sqrt(r2);
-              const inv3 = 1 / (r2 * r);
-              const t = (3 * rz * inv3) / r2; // 3 R_z / |R|^5
-              const w = wij * weights[k]!;
-              sx += w * t * rx;
-              sy += w * t * ry;
-              sz += w * (t * rz - inv3);
-            }
-          }
-        }
-        const vol = hx * hy * hz;
-        fx += vol * sx;
-        fy += vol * sy;
-        fz += vol * sz;
+        dipoleBox(px[2 * ip]!, px[2 * ip + 1]!, py[2 * jp]!, py[2 * jp + 1]!, pz[2 * kp]!, pz[2 * kp + 1]!, x, y, z);
       }
     }
   }
-  OUT[0] = INV_FOUR_PI * fx;
-  OUT[1] = INV_FOUR_PI * fy;
-  OUT[2] = INV_FOUR_PI * fz;
+  OUT[0] = INV_FOUR_PI * SUM[0]!;
+  OUT[1] = INV_FOUR_PI * SUM[1]!;
+  OUT[2] = INV_FOUR_PI * SUM[2]!;
   return OUT;
 }
 
-/** The dipole-density integral by Gauss-Legendre on each axis, as fractions of B_r. */
-function farField(a: number, b: number, c: number, x: number, y: number, z: number): Float64Array {
+/** Running sums of dipoleBox. */
+const SUM = /* @__PURE__ */ new Float64Array(3);
+
+/**
+ * Adds to SUM the integral of the dipole-density kernel 3 (R . z) R / |R|^5 - z / |R|^3 over the
+ * box centred at (cx, cy, cz) with half-widths (hx, hy, hz), by FAR_NODES-point Gauss-Legendre
+ * on each axis (dV = hx hy hz dn dn dn).
+ */
+function dipoleBox(cx: number, hx: number, cy: number, hy: number, cz: number, hz: number, x: number, y: number, z: number): void {
   const { nodes, weights } = gaussLegendre(FAR_NODES);
-  let fx = 0;
-  let fy = 0;
-  let fz = 0;
+  let sx = 0;
+  let sy = 0;
+  let sz = 0;
   for (let i = 0; i < FAR_NODES; i++) {
-    const rx = x - a * nodes[i]!;
+    const rx = x - (cx + hx * nodes[i]!);
     for (let j = 0; j < FAR_NODES; j++) {
-      const ry = y - b * nodes[j]!;
+      const ry = y - (cy + hy * nodes[j]!);
       const wij = weights[i]! * weights[j]!;
       for (let k = 0; k < FAR_NODES; k++) {
-        const rz = z - c * nodes[k]!;
+        const rz = z - (cz + hz * nodes[k]!);
         const r2 = rx * rx + ry * ry + rz * rz;
         const r = Math.sqrt(r2);
         const inv3 = 1 / (r2 * r);
         const t = (3 * rz * inv3) / r2; // 3 R_z / |R|^5
         const w = wij * weights[k]!;
-        fx += w * t * rx;
-        fy += w * t * ry;
-        fz += w * (t * rz - inv3);
+        sx += w * t * rx;
+        sy += w * t * ry;
+        sz += w * (t * rz - inv3);
       }
     }
   }
-  // dV = a b c dn dn dn; the kernel carries 1 / (4 pi).
-  const scale = a * b * c * INV_FOUR_PI;
-  OUT[0] = scale * fx;
-  OUT[1] = scale * fy;
-  OUT[2] = scale * fz;
+  const vol = hx * hy * hz;
+  SUM[0] = SUM[0]! + vol * sx;
+  SUM[1] = SUM[1]! + vol * sy;
+  SUM[2] = SUM[2]! + vol * sz;
+}
+
+/** The dipole-density integral by Gauss-Legendre on each axis, as fractions of B_r (one box, the kernel carries 1 / (4 pi)). */
+function farField(a: number, b: number, c: number, x: number, y: number, z: number): Float64Array {
+  SUM[0] = 0;
+  SUM[1] = 0;
+  SUM[2] = 0;
+  dipoleBox(0, a, 0, b, 0, c, x, y, z);
+  OUT[0] = INV_FOUR_PI * SUM[0]!;
+  OUT[1] = INV_FOUR_PI * SUM[1]!;
+  OUT[2] = INV_FOUR_PI * SUM[2]!;
   return OUT;
 }
