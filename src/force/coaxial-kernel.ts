@@ -4,6 +4,7 @@
 import { ellipticByComplement } from "../math/elliptic.js";
 import { countLoop } from "../math/loop-count.js";
 import { gaussLegendre } from "../math/quadrature.js";
+import { type Corner, cornerWidth, linearWeightPanel, sum3 } from "../math/sum3.js";
 
 /** Scratch for ellipticByComplement's [K, E, D, E - 1]. */
 const ELLIPTIC = /* @__PURE__ */ new Float64Array(4);
@@ -61,6 +62,16 @@ export function loopForceTerms(a: number, b: number, d: number): { factors: numb
   return { factors: base, divisors: [r1, r2] };
 }
 
+/**
+ * v A(v), the attraction times the distance, for v far below the coils' size: flat in v there
+ * (a for equal radii, up to O(v^2 ln v)); below 2^-500 taken at 2^-500, where the plain product
+ * of loopAttraction would underflow (subnormal distances).
+ */
+function flatAttraction(a: number, b: number, v: number): number {
+  const at = Math.max(v, 2 ** -500);
+  return at * loopAttraction(a, b, at);
+}
+
 /** -dM/dd / mu0 as a plain double (for the quadrature, at unit scale). */
 function loopAttraction(a: number, b: number, v: number): number {
   const { factors, divisors } = loopForceTerms(a, b, v);
@@ -72,36 +83,6 @@ function loopAttraction(a: number, b: number, v: number): number {
 
 const GRADE = 0.25; // ratio of successive graded panels towards v = 0
 const ORDER = 20; // Gauss-Legendre points per panel
-
-/**
- * a + b + c for doubles a, b, c, with error at most about eps |sum| + eps^2 max(|a|, |b|, |c|)
- * (Knuth's two-sum twice; the error terms added last).
- */
-function sum3(a: number, b: number, c: number): number {
-  const s1 = a + b;
-  const z1 = s1 - a;
-  const e1 = a - (s1 - z1) + (b - z1);
-  const s2 = s1 + c;
-  const z2 = s2 - s1;
-  const e2 = s1 - (s2 - z2) + (c - z2);
-  return s2 + (e1 + e2);
-}
-
-/**
- * A corner of the integration: the argument of the filament attraction at
- * x hmax + y hmin + z d (hmax, hmin the coils' half lengths, d the centre
- * distance), where the overlap weight kinks, with the weight there. Positions
- * and the widths between corners are formed from the whole coefficients, so a
- * short piece far out (a short coil at the end of a long one: widths of l2
- * at distances of l1) or a near-touching gap keeps its digits.
- */
-interface Corner {
-  readonly x: number;
-  readonly y: number;
-  readonly z: number;
-  readonly at: number;
-  readonly weight: number;
-}
 
 /**
  * The attraction of two coaxial current sheets, -dM/dd / (mu0 N1 N2), for
@@ -150,50 +131,72 @@ export function coaxialSheetsAttraction(a: number, l1: number, b: number, l2: nu
     if (innerMinusD > 0) corners.push(corner(1, -1, -1, 0)); // v = inner - d: v + d = inner
     else if (innerMinusD < 0) corners.push(corner(-1, 1, 1, Math.min(-2 * innerMinusD, lmin))); // v = d - inner: |v - d| = inner
   }
-  const width = (p: Corner, q: Corner): number => sum3((q.x - p.x) * hmax, (q.y - p.y) * hmin, (q.z - p.z) * d);
+  const width = (p: Corner, q: Corner): number => cornerWidth(p, q, hmax, hmin, d);
   corners.sort((p, q) => width(q, p));
-  const { nodes, weights } = gaussLegendre(ORDER);
+  const rule = gaussLegendre(ORDER);
+  const { nodes, weights } = rule;
+  const attraction = (v: number): number => loopAttraction(a, b, v);
   let total = 0;
   for (let i = 0; i + 1 < corners.length; i++) {
     const p = corners[i]!;
     const q = corners[i + 1]!;
     const span = width(p, q);
-    if (!(span > 0)) continue; // coinciding corners (equal lengths, d = |h1 - h2|)
+    // A piece shorter than 2^-64 of the windings' span: its nodes could round onto u = 0 itself
+    // (centre distances of a few subnormal steps). Away from u = 0 it adds below about 1e-18 of
+    // the integral: skipped (as are coinciding corners). From u = 0 (nearly concentric equal
+    // coils) it adds int_0^span (slope o) A(o) do = weight(span) (v A(v)), v A(v) flat there
+    // (the touching-filament limit a of the attraction, or ~0 for unequal radii): 1/ln(l/d) of
+    // the whole, not negligible.
+    if (!(span > (hmax + hmin) * 2 ** -64)) {
+      if (p.at === 0 && span > 0) total += q.weight * flatAttraction(a, b, span);
+      continue;
+    }
     const slope = (q.weight - p.weight) / span;
     // One panel at offsets [lo, hi] from the piece's start.
-    const panel = (lo: number, hi: number): number => {
-      const c = 0.5 * (lo + hi);
-      const hw = 0.5 * (hi - lo);
-      let s = 0;
-      for (let j = 0; j < ORDER; j++) {
-        const o = c + hw * nodes[j]!;
-        const weight = p.weight + slope * o;
-        if (weight > 0) s += weights[j]! * weight * loopAttraction(a, b, p.at + o);
-      }
-      return s * hw;
-    };
+    const panel = (lo: number, hi: number): number => linearWeightPanel(rule, p.weight, slope, p.at, lo, hi, attraction);
     const near = p.at;
     const far = near + span;
     // Graded in the position itself towards u = 0 (offsets from near; near < far / 4, so no digits are lost).
-    total += near >= GRADE * far ? panel(0, span) : graded(near, far, (lo, hi) => panel(lo === near ? 0 : lo - near, hi - near));
+    // One panel in s = ln u over [near, hi] (for the tail below 1e-16 of the piece, see graded).
+    const logPanel = (hi: number): number => {
+      const s0 = Math.log(near);
+      const hs = 0.5 * (Math.log(hi) - s0);
+      let sum = 0;
+      for (let j = 0; j < ORDER; j++) {
+        const v = Math.exp(s0 + hs * (1 + nodes[j]!));
+        const weight = p.weight + slope * (v - near);
+        if (weight > 0) sum += weights[j]! * weight * flatAttraction(a, b, v);
+      }
+      return sum * hs;
+    };
+    total += near >= GRADE * far ? panel(0, span) : graded(near, far, (lo, hi) => panel(lo === near ? 0 : lo - near, hi - near), logPanel);
   }
   return total / (l1 * l2);
 }
 
 /**
  * Panels [GRADE hi, hi] from v = far down to v = near (singular end at v = 0).
- * Bound: hi shrinks by 4 each step and the loop stops once hi GRADE < far 1e-16
- * (the integrand is bounded, or logarithmic at worst, so what is left is below
- * 1e-16 of the piece): at most ceil(16 / log10(4)) + 1 = 28 iterations (cap 60).
+ * Bound: hi shrinks by 4 each step and the loop stops once hi GRADE < far 1e-16:
+ * at most ceil(16 / log10(4)) + 1 = 28 iterations (cap 60). What is left, [near, hi]
+ * with hi below 1e-16 of the piece, is one panel in v when near = 0 (the integrand
+ * is bounded there, so it adds below 1e-16) and otherwise one panel in ln v
+ * (`tail`): nearly concentric equal coils (d < 1e-16 l) carry a weight 2d against
+ * the filament attraction ~ 1/v from v = d up, 2d ln(l/d) in all, whose decades
+ * below 1e-16 l are no small part (the sum came out 10 times low at d = 1e-200 l,
+ * 0 before the weights were exact); v A(v) is flat there, as ln v runs.
  */
-function graded(near: number, far: number, panel: (lo: number, hi: number) => number): number {
+function graded(near: number, far: number, panel: (lo: number, hi: number) => number, tail: (hi: number) => number): number {
   let total = 0;
   let hi = far;
   let j = 0;
   for (; j < 60; j++) {
     const lo = hi * GRADE;
-    if (lo <= near || lo < far * 1e-16) {
+    if (lo <= near) {
       total += panel(near, hi);
+      break;
+    }
+    if (lo < far * 1e-16) {
+      total += near > 0 ? tail(hi) : panel(near, hi);
       break;
     }
     total += panel(lo, hi);

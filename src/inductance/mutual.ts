@@ -3,6 +3,7 @@ import { defineFormula } from "../core/formula.js";
 import { COUNT, NON_NEGATIVE, POSITIVE } from "../core/spec.js";
 import { countLoop } from "../math/loop-count.js";
 import { gaussLegendre } from "../math/quadrature.js";
+import { type Corner, cornerWidth, linearWeightPanel, sum3 } from "../math/sum3.js";
 import { cappedRatio } from "../math/ratios.js";
 import { Scaled, moderate } from "../math/scaled.js";
 import { maxwellMutual } from "./shared.js";
@@ -59,88 +60,75 @@ export const coaxialLoopsMutualInductance = /* @__PURE__ */ defineFormula({
   compute: (x) => maxwellMutual(x.radius1, x.radius2, x.distance),
 });
 
-const GRADE = 0.2; // ratio of successive graded panels towards u = 0
+const GRADE = 0.25; // ratio of successive graded panels towards u = 0
 const ORDER = 20; // Gauss-Legendre points per panel
 
 /**
  * (1/(l1 l2)) times the double integral over both windings of the filament
- * mutual inductance: int w(t) M(a, b, d + t) dt, where t = u - d is the axial
- * offset measured from the centre distance d and w(t) is the overlap length of
- * the first winding with the second shifted by u = d + t (piecewise linear, with
- * corners at t = +-(h1 + h2) and +-|h1 - h2|). Writing the weight in t, not u,
- * keeps d out of it: for coils far apart (d >> l) the weights and panel widths
- * carry no rounding of order ulp(d), which would cost ulp(d)/l relative.
+ * mutual inductance: int w(t) M(a, b, |d + t|) dt, where w(t) is the overlap
+ * length of the first winding with the second shifted by u = d + t (a trapezoid
+ * with corners at t = +-(h1 + h2), +-|h1 - h2|).
  *
- * M has a logarithmic singularity (a = b) or a peak of width |a - b| at u = 0
- * (t = -d), where the integral is also split. A piece that reaches within a
- * fifth of its far end's distance from u = 0 is integrated in v = |u| on
- * panels that shrink geometrically towards u = 0 (ratio 0.2; there d is of the
- * order of l, so t = +-v - d is exact enough), keeping the singularity at least
- * half a panel away; 20 Gauss-Legendre points per panel.
+ * The weight is linear between corners (and the point u = 0, where M has a
+ * logarithmic singularity for a = b, or a peak of width |a - b|), and is taken
+ * by linear interpolation from the corners' exact weights at each node's offset
+ * from its piece's start; the corners' positions and the widths between them are
+ * formed from whole coefficients of the half lengths and d (sum3). A weight or a
+ * width of the size of the shorter coil next to positions of the size of the
+ * longer one would otherwise carry ulp(l1) (9e-13 relative for a coil 0.01 long
+ * at the end of one 1000 long, measured against tests/inductance/oracle.ts), and
+ * far apart ulp(d) (the reason the weight was first written in t, not u).
+ * A piece that reaches within a quarter of its far end's |u| from u = 0 is
+ * integrated on panels shrinking geometrically towards it; 20 Gauss-Legendre
+ * points per panel.
  */
 export function coaxialSheetsMutual(a: number, l1: number, b: number, l2: number, d: number): number {
-  const h1 = l1 / 2;
-  const h2 = l2 / 2;
-  const w = (t: number): number => Math.max(0, Math.min(h1, h2 - t) - Math.max(-h1, -h2 - t));
-  const outer = h1 + h2;
-  const inner = Math.abs(h1 - h2);
-  const cuts = [-outer, -inner, inner, outer];
-  if (-d > -outer && -d < outer) cuts.push(-d); // u = 0 inside the overlap range
-  cuts.sort((p, q) => p - q);
-  const { nodes, weights } = gaussLegendre(ORDER);
-  // One Gauss panel over t in [lo, hi]: no d in the nodes or weights.
-  const panelT = (lo: number, hi: number): number => {
-    const c = 0.5 * (lo + hi);
-    const h = 0.5 * (hi - lo);
-    let s = 0;
-    for (let i = 0; i < ORDER; i++) {
-      const t = c + h * nodes[i]!;
-      s += weights[i]! * w(t) * maxwellMutual(a, b, Math.abs(d + t));
-    }
-    return s * h;
-  };
-  // One Gauss panel over v = |u| in [lo, hi] on the side `sign` of u = 0: v
-  // itself stays exact near the singularity; d is of the order of l here.
-  const panelV = (lo: number, hi: number, sign: number): number => {
-    const c = 0.5 * (lo + hi);
-    const h = 0.5 * (hi - lo);
-    let s = 0;
-    for (let i = 0; i < ORDER; i++) {
-      const v = c + h * nodes[i]!;
-      s += weights[i]! * w(sign * v - d) * maxwellMutual(a, b, v);
-    }
-    return s * h;
-  };
+  const hmax = Math.max(l1, l2) / 2;
+  const hmin = Math.min(l1, l2) / 2;
+  const lmin = 2 * hmin;
+  const corner = (x: number, y: number, z: number, weight: number): Corner => ({ x, y, z, at: sum3(x * hmax, y * hmin, z * d), weight });
+  // u = d + t at the trapezoid's corners; weights 0, l_min, l_min, 0.
+  const corners = [corner(-1, -1, 1, 0), corner(-1, 1, 1, lmin), corner(1, -1, 1, lmin), corner(1, 1, 1, 0)];
+  const gap = corners[0]!.at; // d - (h1 + h2)
+  if (gap < 0) {
+    // u = 0 (t = -d) lies inside: w(d) = l_min up to |h1 - h2|, then (h1 + h2) - d.
+    corners.push(corner(0, 0, 0, sum3(hmax, -hmin, -d) >= 0 ? lmin : -gap));
+  }
+  const width = (p: Corner, q: Corner): number => cornerWidth(p, q, hmax, hmin, d);
+  corners.sort((p, q) => width(q, p));
+  const rule = gaussLegendre(ORDER);
+  const mutual = (v: number): number => maxwellMutual(a, b, v);
   let total = 0;
-  for (let i = 0; i + 1 < cuts.length; i++) {
-    const p = cuts[i]!;
-    const q = cuts[i + 1]!;
-    // A piece shorter than 2^-64 of the winding span adds below about 1e-18 of the
-    // integral even on the logarithmic singularity (length times ln(1/length)), and
-    // its Gauss nodes could round onto u = 0 itself (centre distances of a few
-    // subnormal steps): skip it.
-    if (!(q - p > outer * 2 ** -64)) continue;
-    const up = d + p; // u at the ends: one sign on the piece (the cut at u = 0 is a piece end)
-    const uq = d + q;
-    const near = Math.min(Math.abs(up), Math.abs(uq));
-    const far = Math.max(Math.abs(up), Math.abs(uq));
+  for (let i = 0; i + 1 < corners.length; i++) {
+    const p = corners[i]!;
+    const q = corners[i + 1]!;
+    const span = width(p, q);
+    // A piece shorter than 2^-64 of the windings' span adds below about 1e-18 of the integral even
+    // next to the logarithmic singularity (length times ln(1/length)), and its nodes could round
+    // onto u = 0 itself (centre distances of a few subnormal steps): skip it (and coinciding corners).
+    if (!(span > (hmax + hmin) * 2 ** -64)) continue;
+    // Integrate in v = |u| from the end nearer to u = 0 (pieces do not straddle it).
+    const [start, end] = q.at <= 0 ? [q, p] : [p, q];
+    const near = Math.abs(start.at);
+    const slope = (end.weight - start.weight) / span;
+    // One panel at offsets [lo, hi] from the near end.
+    const panel = (lo: number, hi: number): number => linearWeightPanel(rule, start.weight, slope, near, lo, hi, mutual);
+    const far = near + span;
     if (near >= GRADE * far) {
-      total += panelT(p, q);
+      total += panel(0, span);
       continue;
     }
-    const sign = up + uq > 0 ? 1 : -1;
-    // Panels [GRADE hi, hi] from v = far down to v = near. Bound: hi shrinks by
-    // 5 each step and the loop stops once hi * GRADE < far * 1e-16, so at most
-    // ceil(16 / log10(5)) + 1 = 24 iterations.
+    // Panels [GRADE hi, hi] from v = far down to v = near. Bound: hi shrinks by 4 each step and
+    // the loop stops once hi GRADE < far 1e-16, so at most ceil(16 / log10(4)) + 1 = 28 iterations.
     let hi = far;
     let j = 0;
     for (; j < 60; j++) {
       const lo = hi * GRADE;
       if (lo <= near || lo < far * 1e-16) {
-        total += panelV(near, hi, sign);
+        total += panel(0, hi - near);
         break;
       }
-      total += panelV(lo, hi, sign);
+      total += panel(lo - near, hi - near);
       hi = lo;
     }
     countLoop(j + 1);

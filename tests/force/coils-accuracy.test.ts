@@ -103,6 +103,7 @@ describe("coaxialCoilsForce against a decimal.js oracle of the integrated filame
       [1, 1, 1, 0.7, 0.3],
       [1, 1, 1, 0.7, 1e-6],
       [1, 511.984, 1, 8.42628, 216.49],
+      [1, 1e-5, 1, 1e-5, 1e-20], // 1e-15 of a length off centre: the 1/v attraction below 1e-16 of the piece (was 1.6e-3 low)
     ]);
   });
 

@@ -411,17 +411,27 @@ describe("coaxialCoilsMutualInductance from touching to far apart (decimal.js or
     expect(worst).toBeLessThan(4e-15);
   });
 
+  it("keeps 4e-15 for a short coil within or at the end of a long one (lengths 1e5 apart)", () => {
+    // Was 9.1e-13 at d = 499, l1 = 1000, l2 = 0.01: the overlap weight and the piece widths of the
+    // size of l2 were formed next to positions of the size of l1.
+    for (const [l1, l2, d] of [[1000, 0.01, 499], [1000, 0.01, 1], [171, 0.0157, 2], [300, 1, 150.4]] as const) {
+      const ex = coaxialSheetsOracle(1, l1, l2, d);
+      const got = coaxialCoilsMutualInductance({ turns1: 1, radius1: m(1), length1: m(l1), turns2: 1, radius2: m(1), length2: m(l2), distance: m(d) });
+      expect(Math.abs(got - ex.toNumber()) / ex.toNumber(), `${l1}, ${l2}, ${d}`).toBeLessThan(4e-15);
+    }
+  });
+
   it("keeps its digits for the issue's 0.1 mm coils 100 m apart", () => {
     const ex = coaxialSheetsOracle(1e-4, 1e-4, 1e-4, 100);
     const got = coaxialCoilsMutualInductance({ turns1: 1, radius1: m(1e-4), length1: m(1e-4), turns2: 1, radius2: m(1e-4), length2: m(1e-4), distance: m(100) });
     expect(Math.abs(got - ex.toNumber()) / ex.toNumber()).toBeLessThan(4e-15);
   });
 
-  it("runs a bounded number of graded panels per call (at most 24 per piece)", () => {
+  it("runs a bounded number of graded panels per call (at most 28 per piece)", () => {
     for (const ratio of [0, 0.5, 1, 1e8]) {
       resetLoopCount();
       coils(1e-3, 1e-3, ratio * 1e-3);
-      expect(loopCount().largest).toBeLessThanOrEqual(24);
+      expect(loopCount().largest).toBeLessThanOrEqual(28);
     }
   });
 });

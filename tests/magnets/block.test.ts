@@ -54,6 +54,37 @@ describe("blockMagnetField", () => {
     console.log(`blockMagnetField worst error over random blocks (relative to |B|): ${(worst / EPS).toFixed(1)} eps`);
   });
 
+  it("keeps 1e-13 of |B| beside flat plates and thin bars of side ratio 100, and 1e-12 for plates of 1000, inside and out", () => {
+    // Formerly up to 2.7e-11 (100:1:1 bars) and 6e-12 (1000:1 plates): the corner sums cancel like
+    // (distance / thin size)^2 there; such points now take the dipole-density integral on panels.
+    const cases: [P, number][] = [
+      [[1, 1, 0.01], 1e-13], [[1, 0.01, 1], 1e-13], [[0.01, 1, 1], 1e-13],
+      [[1, 0.01, 0.01], 1e-13], [[0.01, 0.01, 1], 1e-13], [[0.01, 1, 0.01], 1e-13],
+      [[1, 1, 0.001], 1e-12], [[1, 0.001, 1], 1e-12],
+    ];
+    const wrong: string[] = [];
+    let worst = 0;
+    for (const [s, bound] of cases) {
+      const h = s.map((v) => v / 2) as P;
+      const thin = s.indexOf(Math.min(...s));
+      const pts: P[] = [];
+      for (const f of [[0, 0.3, 0.7], [0.49, 0.7, 0.3], [0.51, 0, 0.51], [1.2, 2, 0], [3, 0, 0], [0.2, 0.2, 0.2]] as P[]) pts.push(f.map((v) => v * Math.max(...s)) as P);
+      for (const d of [1e-3, 1e-2, 0.1, 0.3]) for (const t of [0, 0.2, 0.45]) {
+        const p: P = [t * s[0], t * s[1], t * s[2]];
+        p[thin] = h[thin]! + d * Math.max(...s); // just beside the thin size, over the broad face or along the bar
+        pts.push(p);
+      }
+      for (const p of pts) {
+        const want = blockOracle(1.1, s, p).map((v) => v.toNumber());
+        const err = vectorError(field(1.1, s, p), want);
+        worst = Math.max(worst, err);
+        if (!(err < bound)) wrong.push(`${s} at ${p}: ${err.toExponential(2)}`);
+      }
+    }
+    console.log(`blockMagnetField worst error beside plates and bars (relative to |B|): ${(worst / EPS).toFixed(1)} eps`);
+    expect(wrong).toEqual([]);
+  });
+
   it("a cube's field 1000 sizes away is its dipole's, B_r V / mu0, to 1e-10 (the cube's octupole vanishes; the next term is (size/distance)^4)", () => {
     const s: P = [0.01, 0.01, 0.01];
     for (const dir of [[0, 0, 1], [1, 0, 0], [0.6, 0.48, 0.64], [-0.36, 0.48, -0.8], [0.8, 0, 0.6]] as P[]) {
