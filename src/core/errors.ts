@@ -84,14 +84,9 @@ export class FormulaError extends Error {
  */
 function show(v: unknown): string {
   if (typeof v === "string") return JSON.stringify(v.length > 60 ? `${v.slice(0, 57)}...` : v);
-  if (typeof v === "number") {
-    if (v !== v) return "not a number";
-    if (v === Infinity) return "an infinite value";
-    if (v === -Infinity) return "a negative infinite value";
-    return String(v);
-  }
-  if (v === undefined) return "nothing";
-  if (typeof v === "boolean" || v === null) return String(v);
+  // NaN, the infinities and undefined come out as "NaN", "Infinity", "undefined"
+  // here and in words once buildMessage's inWords has run.
+  if (typeof v === "number" || typeof v === "boolean" || v == null) return String(v);
   if (Array.isArray(v)) return "an array";
   return `a value of type ${typeof v}`;
 }

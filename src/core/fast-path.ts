@@ -22,7 +22,8 @@ export function buildFastPath(
   // Arrays go to the careful path too: an array has a numeric `length`, so a
   // formula whose only required input is named `length` (propagationDelay)
   // would otherwise accept [inputs] as its inputs.
-  const lines: string[] = ['if (typeof x !== "object" || x === null || Array.isArray(x)) return slow(x);'];
+  // The generated source is written without spaces: it ships in every bundle.
+  const lines: string[] = ['if(typeof x!="object"||x===null||Array.isArray(x))return slow(x)'];
   const choices: (readonly string[])[] = [];
   const numbers: string[] = [];
   const domainTests: string[] = [];
@@ -30,34 +31,34 @@ export function buildFastPath(
     const name = names[i]!;
     const spec = inputs[name]!;
     const key = JSON.stringify(name);
-    lines.push(`let v${i} = x[${key}];`);
+    lines.push(`let v${i}=x[${key}]`);
     if ("choices" in spec) {
-      if (spec.default !== undefined) lines.push(`if (v${i} === undefined) v${i} = ${JSON.stringify(spec.default)};`);
-      lines.push(`if (!choices[${choices.length}].includes(v${i})) return slow(x);`);
+      if (spec.default !== undefined) lines.push(`if(v${i}===undefined)v${i}=${JSON.stringify(spec.default)}`);
+      lines.push(`if(!choices[${choices.length}].includes(v${i}))return slow(x)`);
       choices.push(spec.choices);
       continue;
     }
     if (spec.vector || spec.series) return undefined;
-    if (spec.default !== undefined) lines.push(`if (v${i} === undefined) v${i} = ${numberLiteral(spec.default)};`);
+    if (spec.default !== undefined) lines.push(`if(v${i}===undefined)v${i}=${numberLiteral(spec.default)}`);
     numbers.push(`v${i}`);
     domainTests.push(...domainBounds(`v${i}`, spec.domain));
   }
   if (numbers.length > 0) {
-    lines.push(`if (${numbers.map((v) => `typeof ${v} !== "number"`).join(" || ")}) return slow(x);`);
+    lines.push(`if(${numbers.map((v) => `typeof ${v}!="number"`).join("||")})return slow(x)`);
     // One finiteness test for all inputs: the sum is NaN or infinite when any input
     // is (a finite sum that overflows only sends the call down the careful path).
     // Per-input tests cost about a third more per call on a short formula (bench/typed.ts).
-    lines.push(`const finite = ${numbers.join(" + ")};`);
-    lines.push(`if (finite - finite !== 0${domainTests.map((t) => ` || !(${t})`).join("")}) return slow(x);`);
+    lines.push(`const finite=${numbers.join("+")}`);
+    lines.push(`if(finite-finite!==0${domainTests.map((t) => `||!(${t})`).join("")})return slow(x)`);
   }
-  lines.push(`const o = new Inputs(${names.map((_, i) => `v${i}`).join(", ")});`);
-  relations.forEach((_, i) => lines.push(`if (!relations[${i}].holds(o)) return slow(x);`));
-  lines.push("const r = compute(o);");
-  lines.push('if (typeof r !== "number" || r - r !== 0) return slow(x);');
-  lines.push("return r;");
+  lines.push(`const o=new Inputs(${names.map((_, i) => `v${i}`).join()})`);
+  relations.forEach((_, i) => lines.push(`if(!relations[${i}].holds(o))return slow(x)`));
+  lines.push("const r=compute(o)");
+  lines.push('if(typeof r!="number"||r-r!==0)return slow(x)');
+  lines.push("return r");
   try {
     // eslint-disable-next-line @typescript-eslint/no-implied-eval
-    const factory = new Function("compute", "relations", "slow", "choices", "Inputs", `return function fast(x) {\n${lines.join("\n")}\n};`);
+    const factory = new Function("compute", "relations", "slow", "choices", "Inputs", `return function fast(x){${lines.join(";")}}`);
     return factory(compute, relations, slow, choices, Inputs) as (x: unknown) => unknown;
   } catch {
     return undefined;
@@ -78,11 +79,11 @@ export type InputsClass = new (...values: unknown[]) => Record<string, unknown>;
  * (checked by defineFormula).
  */
 export function inputsClass(names: readonly string[]): InputsClass {
-  const params = names.map((_, i) => `v${i}`).join(", ");
-  const body = names.map((n, i) => `this.${n} = v${i};`).join(" ");
+  const params = names.map((_, i) => `v${i}`).join();
+  const body = names.map((n, i) => `this.${n}=v${i}`).join(";");
   try {
     // eslint-disable-next-line @typescript-eslint/no-implied-eval
-    return new Function(`return class Inputs { constructor(${params}) { ${body} } };`)() as InputsClass;
+    return new Function(`return class Inputs{constructor(${params}){${body}}}`)() as InputsClass;
   } catch {
     // No code generation (strict Content-Security-Policy): the same names stored
     // in the same order still give every instance one hidden class.
@@ -104,8 +105,8 @@ function numberLiteral(v: number): string {
 /** Source text of the bound tests of a domain on variable `v` (finiteness is tested apart). */
 export function domainBounds(v: string, d: Domain | undefined): string[] {
   const parts: string[] = [];
-  if (d?.min !== undefined) parts.push(`${v} ${d.minExclusive ? ">" : ">="} ${numberLiteral(d.min)}`);
-  if (d?.max !== undefined) parts.push(`${v} ${d.maxExclusive ? "<" : "<="} ${numberLiteral(d.max)}`);
+  if (d?.min !== undefined) parts.push(`${v}${d.minExclusive ? ">" : ">="}${numberLiteral(d.min)}`);
+  if (d?.max !== undefined) parts.push(`${v}${d.maxExclusive ? "<" : "<="}${numberLiteral(d.max)}`);
   if (d?.integer) parts.push(`Number.isInteger(${v})`);
   return parts;
 }

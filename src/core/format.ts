@@ -27,7 +27,7 @@ export const NOT_A_NUMBER = "not a number";
  * formatNumber(Infinity); // "a value beyond the double range"
  */
 export function formatNumber(v: number, significant = 2): string {
-  if (v - v !== 0 || v === 0) return formatEngineering(v, significant);
+  // Zero, NaN and the infinities fall through to formatEngineering below (mag is 0 or NaN).
   const digits = Math.min(21, Math.max(1, Math.round(significant)));
   // Round first: rounding may carry into the next decade (999.6 -> "1.0e+3"),
   // and the rounded value decides the notation. Number() reads either form.

@@ -181,21 +181,20 @@ export function defineFormula<const L extends InputList, const O extends OutputS
  * (measured 1.3 -> 1.9 us per call).
  */
 class InputsView {
-  constructor(list: InputList) {
-    for (const spec of list) (this as unknown as Record<string, InputSpec>)[spec.name] = spec;
+  constructor(id: string, list: InputList) {
+    for (const spec of list) {
+      const name = spec.name;
+      // Whole words, each once: they become property names in generated code
+      // (see inputsClass).
+      if (!/^[A-Za-z][A-Za-z0-9]*$/.test(name) || Object.hasOwn(this, name)) throw new Error(`${id}: input name "${name}" must be a plain word, declared once`);
+      (this as unknown as Record<string, InputSpec>)[name] = spec;
+    }
   }
 }
 Object.setPrototypeOf(InputsView.prototype, null);
 
 function byName(declaration: { readonly id: string; readonly inputs: InputList }): InputSpecs {
-  const seen = new Set<string>();
-  for (const spec of declaration.inputs) {
-    // Whole words: they become property names in generated code (see inputsClass).
-    if (!/^[A-Za-z][A-Za-z0-9]*$/.test(spec.name)) throw new Error(`${declaration.id}: input name "${spec.name}" is not a plain word`);
-    if (seen.has(spec.name)) throw new Error(`${declaration.id}: input "${spec.name}" is declared twice`);
-    seen.add(spec.name);
-  }
-  return Object.freeze(new InputsView(declaration.inputs)) as unknown as InputSpecs;
+  return Object.freeze(new InputsView(declaration.id, declaration.inputs)) as unknown as InputSpecs;
 }
 
 function quoteInputs(x: Readonly<Record<string, unknown>>): string {

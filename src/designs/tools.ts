@@ -6,6 +6,7 @@ import { inDomain } from "../core/domain.js";
 import { FormulaError } from "../core/errors.js";
 import { brent } from "../math/roots.js";
 import { countLoop } from "../math/loop-count.js";
+import { type LongRunOptions, ticker } from "../core/progress.js";
 import { createRandom } from "../tools/random.js";
 import { derivative, drawSample, scaledMoments, scaledNorm, type Varied } from "../tools/tolerance.js";
 import { type CompiledDesign, type CompiledInput, compileDesign } from "./compile.js";
@@ -44,6 +45,13 @@ function option(name: string, v: unknown, dflt: number, min: number, max: number
   }
   return v;
 }
+
+/**
+ * Chain runs between two progress ticks in the design tools: a run of the
+ * chain costs microseconds to a millisecond (a map per run, every step's
+ * checks), so a few dozen make a chunk.
+ */
+const RUNS_PER_TICK = 32;
 
 /** Limits of the design tools: bounded work for any request. */
 export const DESIGN_TOOL_LIMITS = { samples: 200_000, cornerInputs: 12, sweepPoints: 10_000, decades: 12 } as const;
@@ -95,8 +103,13 @@ export interface DesignToleranceResult {
  * point to), first-order RSS with the sensitivity of every step and derived
  * quantity to every toleranced input, and a Monte Carlo that draws each input
  * once per sample, with the probability that each check fails.
+ *
+ * `options.signal` and `options.onProgress` are checked every few dozen runs
+ * of the chain; progress counts the slopes (one per quantity and toleranced
+ * input), the corners, then the Monte Carlo samples. A synchronous call sees
+ * an abort made before it started or from its own onProgress.
  */
-export function designTolerance(d: DesignLike, options: DesignToleranceOptions = {}): DesignToleranceResult {
+export function designTolerance(d: DesignLike, options: DesignToleranceOptions & LongRunOptions = {}): DesignToleranceResult {
   if (typeof options !== "object" || options === null) throw new FormulaError("invalid_argument", { formula: "design", input: "options", detail: "options are an object" });
   const samples = option("samples", options.samples, 10_000, 0, DESIGN_TOOL_LIMITS.samples);
   const seed = option("seed", options.seed, 1, 0, 2 ** 32 - 1);
@@ -104,6 +117,15 @@ export function designTolerance(d: DesignLike, options: DesignToleranceOptions =
   const c = compiled(d);
   const varied = c.inputs.filter((i): i is CompiledInput & { varied: Varied } => i.varied !== undefined);
   const names = c.nodes.map((n) => n.name);
+  const method = varied.length <= maxCorners ? "corners" : "derivative signs";
+  const slopeCount = names.length * varied.length;
+  const cornerCount = method === "corners" ? 2 ** varied.length : 2 * names.length;
+  const total = slopeCount + cornerCount + samples;
+  const t = ticker("designTolerance", options, total);
+  // Below the total only: fraction 1 is finish()'s.
+  const tick = (done: number): void => {
+    if (done < total) t.tick(done);
+  };
   const base = nominalValues(c);
   const nominal = runValues(c, base);
   const nominalChecks = checkValues(c, nominal);
@@ -119,10 +141,14 @@ export function designTolerance(d: DesignLike, options: DesignToleranceOptions =
   };
 
   // Slopes of every quantity with respect to every toleranced input.
+  // Each slope takes up to 32 runs of the chain: a tick after each.
+  let slopesDone = 0;
   const slopes = names.map((name) =>
     varied.map((v) => {
-      const f = (t: number): number => runAt(new Map(base).set(v.name, t))?.get(name) ?? NaN;
-      return derivative(f, v.varied, "design");
+      const f = (x: number): number => runAt(new Map(base).set(v.name, x))?.get(name) ?? NaN;
+      const s = derivative(f, v.varied, "design");
+      tick(++slopesDone);
+      return s;
     }),
   );
 
@@ -145,11 +171,11 @@ export function designTolerance(d: DesignLike, options: DesignToleranceOptions =
     const t = up ? v.varied.hi : v.varied.lo;
     return v.spec.domain?.integer ? Math.round(t) : t;
   };
-  const method = varied.length <= maxCorners ? "corners" : "derivative signs";
   if (method === "corners") {
     // 2^12 corners at most (DESIGN_TOOL_LIMITS.cornerInputs).
     const corners = 2 ** varied.length;
     for (let mask = 0; mask < corners; mask++) {
+      if (mask % RUNS_PER_TICK === 0) tick(slopeCount + mask);
       const set = new Map(base);
       varied.forEach((v, i) => set.set(v.name, end(v, ((mask >> i) & 1) === 1)));
       visit(set);
@@ -172,6 +198,7 @@ export function designTolerance(d: DesignLike, options: DesignToleranceOptions =
   let accepted = 0;
   const rng = createRandom(seed);
   for (let s = 0; s < samples; s++) {
+    if (s % RUNS_PER_TICK === 0) tick(slopeCount + cornerCount + s);
     const set = new Map(base);
     let ok = true;
     for (const v of varied) {
@@ -225,6 +252,7 @@ export function designTolerance(d: DesignLike, options: DesignToleranceOptions =
       ...(p === undefined ? {} : { failureProbability: p, standardError: Math.sqrt((p * (1 - p)) / accepted) }),
     };
   });
+  t.finish();
   return { title: c.title, generator: "xoshiro128** 1.1", seed, samples, accepted, rejected: samples - accepted, quantities, checks, remarks };
 }
 
@@ -372,8 +400,13 @@ export interface DesignSweepResult {
   readonly errors: readonly (string | null)[];
 }
 
-/** Sweep one design input and record every step output and every check along the way. */
-export function sweepDesign(d: DesignLike, request: DesignSweepRequest): DesignSweepResult {
+/**
+ * Sweep one design input and record every step output and every check along
+ * the way. `options.signal` and `options.onProgress` (progress in points) are
+ * checked every few dozen points; a synchronous call sees an abort made
+ * before it started or from its own onProgress.
+ */
+export function sweepDesign(d: DesignLike, request: DesignSweepRequest, options?: LongRunOptions): DesignSweepResult {
   if (typeof request !== "object" || request === null) throw new FormulaError("wrong_type", { formula: "design", input: "request", value: request, expected: "{ input, from, to, points }" });
   const c = compiled(d);
   const inp = c.inputs.find((i) => i.name === request.input);
@@ -396,7 +429,10 @@ export function sweepDesign(d: DesignLike, request: DesignSweepRequest): DesignS
   const outputs = c.nodes.map((n) => ({ name: n.name, unit: unitOf(n.exps), values: [] as (number | null)[] }));
   const checks = c.checks.map((k) => ({ rule: k.text, pass: [] as boolean[] }));
   const errors: (string | null)[] = [];
-  for (const t of values) {
+  const ticks = ticker("sweepDesign", options, points);
+  for (let k = 0; k < points; k++) {
+    if (k > 0 && k % RUNS_PER_TICK === 0) ticks.tick(k);
+    const t = values[k]!;
     let r: Values | undefined;
     let code: string | null = null;
     try {
@@ -410,5 +446,6 @@ export function sweepDesign(d: DesignLike, request: DesignSweepRequest): DesignS
     const ks = r ? checkValues(c, r) : undefined;
     checks.forEach((k, i) => k.pass.push(ks ? ks[i]!.pass : false));
   }
+  ticks.finish();
   return { input: inp.name, unit: unitOf(inp.dimension), values, outputs, checks, errors };
 }

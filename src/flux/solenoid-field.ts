@@ -58,8 +58,9 @@ export function notOnRim(ends: string) {
  *
  * Accuracy: measured against a 60-digit decimal.js evaluation of the same published
  * expression (tests/flux/solenoid-field.test.ts): within 20 eps of |B| for lengths / radius
- * 0.1..10 (random sizes and points out to 1e4 sizes), within 1e-12 for 1e-3..100; about 1e-11
- * just outside a winding 1000 radii long, where the field is small against its surroundings'.
+ * 0.1..10 (random sizes and points out to 1e4 sizes), within 1e-12 for 1e-3..100, and within
+ * 1e-13 just outside and beside windings 100 and 1000 radii long (the ends' terms there are
+ * summed as the fields of the end faces' disks, src/flux/current-sheet.ts).
  *
  * Reference: N. Derby and S. Olbert, Am. J. Phys. 78 (2010) 229, eqs. for B_rho and B_z with cel.
  *

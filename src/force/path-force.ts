@@ -24,7 +24,8 @@
  * Electrodynamics, 3rd ed. (1999), section 5.2, F = I2 oint dl2 x B1 (section from memory).
  */
 import { FormulaError } from "../core/errors.js";
-import { biotSavart } from "../flux/biot-savart.js";
+import { type LongRunOptions, ticker } from "../core/progress.js";
+import { fieldRange, MAX_SEGMENT_POINT_PAIRS } from "../flux/biot-savart.js";
 import { countLoop } from "../math/loop-count.js";
 import { gaussLegendre } from "../math/quadrature.js";
 
@@ -68,28 +69,55 @@ function distanceToPath(qx: number, qy: number, qz: number, p: Float64Array): nu
 /**
  * Force on path 2 (current2, A) from path 1 (current1, A), as [Fx, Fy, Fz] in N.
  *
+ * Long calls: `options.signal` cancels the call (FormulaError "cancelled", checked
+ * between blocks of panels and of field points) and `options.onProgress` reports the
+ * segments of path 2 done (core/progress.ts); the result is the same with or without them.
+ *
  * @example
  * // two parallel 1 m wires 1 cm apart, 1 A each, same direction: attraction along -y on path 2
  * pathForce([0,0,0, 1,0,0], 1, [0,0.01,0, 1,0.01,0], 1); // ≈ [0, -1.98e-5, 0] N
  */
-export function pathForce(path1: Float64Array | readonly number[], current1: number, path2: Float64Array | readonly number[], current2: number): [number, number, number] {
+export function pathForce(
+  path1: Float64Array | readonly number[],
+  current1: number,
+  path2: Float64Array | readonly number[],
+  current2: number,
+  options?: LongRunOptions,
+): [number, number, number] {
   const p1 = toPath(path1, "path1");
   const p2 = toPath(path2, "path2");
   for (const [name, v] of [["current1", current1], ["current2", current2]] as const) {
     if (typeof v !== "number" || v - v !== 0) throw bad(name, "must be a finite number (A)", v);
   }
+  const segments2 = p2.length / 3 - 1;
+  const segments1 = p1.length / 3 - 1;
+  const progress = ticker(TOOL, options, segments2);
   const { nodes, weights } = gaussLegendre(ORDER);
-  // Accepted panels: start point, unit direction, half-length; their Gauss nodes go to biotSavart in one call.
-  const starts: number[] = [];
-  const halves: number[] = [];
-  const units: number[] = [];
+  // Panels visited between two cancellation checks: each visit measures its distance to every segment of path 1.
+  const visitsPerCheck = Math.max(1, Math.floor(CHECK_WORK / segments1));
+  // Field points per fieldRange call (a cancellation check between calls).
+  const pointsPerCheck = Math.max(1, Math.floor(CHECK_WORK / segments1));
+  // One segment of path 2 at a time: its accepted panels (start point, unit direction,
+  // half-length), then their Gauss nodes' field in blocks. The panels are summed in the
+  // order they are accepted, whatever the blocks, so the result does not depend on them.
+  let starts: number[] = [];
+  let halves: number[] = [];
   let visited = 0;
-  for (let s = 0; s + 5 < p2.length; s += 3) {
-    const ax = p2[s]!, ay = p2[s + 1]!, az = p2[s + 2]!;
-    const dx = p2[s + 3]! - ax, dy = p2[s + 4]! - ay, dz = p2[s + 5]! - az;
+  let untilCheck = visitsPerCheck;
+  let pairs = 0;
+  let points = new Float64Array(0);
+  let field = new Float64Array(0);
+  let fx = 0, fy = 0, fz = 0;
+  for (let s = 0; s < segments2; s++) {
+    progress.tick(s);
+    const o2 = 3 * s;
+    const ax = p2[o2]!, ay = p2[o2 + 1]!, az = p2[o2 + 2]!;
+    const dx = p2[o2 + 3]! - ax, dy = p2[o2 + 4]! - ay, dz = p2[o2 + 5]! - az;
     const len = Math.hypot(dx, dy, dz);
     if (len === 0) continue; // a repeated point carries no current element
     const ux = dx / len, uy = dy / len, uz = dz / len;
+    starts = [];
+    halves = [];
     // Breadth-first halving: pieces as [t0, h] along the segment.
     let pieces: number[] = [0, len];
     let depth = 0;
@@ -98,12 +126,15 @@ export function pathForce(path1: Float64Array | readonly number[], current1: num
       for (let k = 0; k < pieces.length; k += 2) {
         visited++;
         if (visited > MAX_PANELS) throw bad("path2", `more than ${MAX_PANELS} panels: the paths run too close for too long; split the job`);
+        if (--untilCheck === 0) {
+          untilCheck = visitsPerCheck;
+          progress.check();
+        }
         const t0 = pieces[k]!, h = pieces[k + 1]!;
         const mid = t0 + h / 2;
         const dist = distanceToPath(ax + ux * mid, ay + uy * mid, az + uz * mid, p1) - h / 2;
         if (h <= RATIO * dist) {
           starts.push(ax + ux * t0, ay + uy * t0, az + uz * t0);
-          units.push(ux, uy, uz);
           halves.push(h / 2);
         } else {
           if (depth === MAX_DEPTH) throw new FormulaError("out_of_range", { formula: TOOL, detail: "path 2 touches or crosses path 1, where the filament force is infinite" });
@@ -113,37 +144,50 @@ export function pathForce(path1: Float64Array | readonly number[], current1: num
       pieces = next;
     }
     countLoop(depth);
-  }
-  const n = halves.length;
-  const points = new Float64Array(3 * n * ORDER);
-  for (let i = 0; i < n; i++) {
-    const h = halves[i]!;
-    for (let k = 0; k < ORDER; k++) {
-      const t = h * (1 + nodes[k]!);
-      const o = 3 * (i * ORDER + k);
-      points[o] = starts[3 * i]! + units[3 * i]! * t;
-      points[o + 1] = starts[3 * i + 1]! + units[3 * i + 1]! * t;
-      points[o + 2] = starts[3 * i + 2]! + units[3 * i + 2]! * t;
+    const n = halves.length;
+    const np = n * ORDER;
+    pairs += np * segments1;
+    if (pairs > MAX_SEGMENT_POINT_PAIRS) {
+      throw bad("path2", `the panels of path 2 times the segments of path 1 exceed ${MAX_SEGMENT_POINT_PAIRS} field evaluations; use fewer segments on path 1 or split the job`);
     }
-  }
-  const b = biotSavart(p1, current1, points);
-  let fx = 0, fy = 0, fz = 0;
-  for (let i = 0; i < n; i++) {
-    const ux = units[3 * i]!, uy = units[3 * i + 1]!, uz = units[3 * i + 2]!;
-    let sx = 0, sy = 0, sz = 0;
-    for (let k = 0; k < ORDER; k++) {
-      const o = 3 * (i * ORDER + k);
-      const w = weights[k]!;
-      sx += w * (uy * b[o + 2]! - uz * b[o + 1]!);
-      sy += w * (uz * b[o]! - ux * b[o + 2]!);
-      sz += w * (ux * b[o + 1]! - uy * b[o]!);
+    if (points.length < 3 * np) {
+      points = new Float64Array(3 * np);
+      field = new Float64Array(3 * np);
     }
-    const h = halves[i]!;
-    fx += sx * h;
-    fy += sy * h;
-    fz += sz * h;
+    for (let i = 0; i < n; i++) {
+      const h = halves[i]!;
+      for (let k = 0; k < ORDER; k++) {
+        const t = h * (1 + nodes[k]!);
+        const o = 3 * (i * ORDER + k);
+        points[o] = starts[3 * i]! + ux * t;
+        points[o + 1] = starts[3 * i + 1]! + uy * t;
+        points[o + 2] = starts[3 * i + 2]! + uz * t;
+      }
+    }
+    for (let q0 = 0; q0 < np; q0 += pointsPerCheck) {
+      if (q0 > 0) progress.check();
+      fieldRange(p1, current1, points, field, 0, q0, Math.min(np, q0 + pointsPerCheck));
+    }
+    for (let i = 0; i < n; i++) {
+      let sx = 0, sy = 0, sz = 0;
+      for (let k = 0; k < ORDER; k++) {
+        const o = 3 * (i * ORDER + k);
+        const w = weights[k]!;
+        sx += w * (uy * field[o + 2]! - uz * field[o + 1]!);
+        sy += w * (uz * field[o]! - ux * field[o + 2]!);
+        sz += w * (ux * field[o + 1]! - uy * field[o]!);
+      }
+      const h = halves[i]!;
+      fx += sx * h;
+      fy += sy * h;
+      fz += sz * h;
+    }
   }
   const out: [number, number, number] = [current2 * fx, current2 * fy, current2 * fz];
   if (out.some((v) => v - v !== 0)) throw new FormulaError("out_of_range", { formula: TOOL, detail: "the force is beyond the double range" });
+  progress.finish();
   return out;
 }
+
+/** Distance-to-path or field evaluations (panel or point times segments of path 1) between two cancellation checks: about 1 ms. */
+const CHECK_WORK = 1 << 17;

@@ -7,6 +7,8 @@ import { type ColumnShape, runRows } from "./columns-loop.js";
 import { MAX_COLUMN_ROWS, probeValue, type ReadColumns, readColumns, ROW_ERROR_CODES, type UnitColumn } from "./columns-read.js";
 import { bind, siUnit } from "./convert.js";
 import { noteConditions, noteSummary, type NoteSummary } from "./notes.js";
+import { type LongRunOptions, ticker } from "../core/progress.js";
+import { inPieces, tickBelow, watched } from "./chunks.js";
 
 export { MAX_COLUMN_ROWS, ROW_ERROR_CODES };
 export type { UnitColumn };
@@ -101,6 +103,10 @@ export interface ColumnsResult {
  * different lengths, a bad fixed input, more than MAX_COLUMN_ROWS rows) throw a
  * FormulaError naming the input.
  *
+ * `options.signal` and `options.onProgress` (progress in rows of the range)
+ * are checked between pieces of a few milliseconds of rows; a synchronous
+ * call sees an abort made before it started or from its own onProgress.
+ *
  * @example
  * const r = evaluateColumns("parallelPlateCapacitance", { area: "1 cm^2", gap: ["0.1 mm", "0.2 mm", "-1 mm"] });
  * r.output.values; // Float64Array [8.854e-12, 4.427e-12, NaN]
@@ -109,14 +115,14 @@ export interface ColumnsResult {
 export function evaluateColumns<I extends InputSpecs, O extends OutputSpec>(
   formula: Formula<I, O> | string,
   inputs: { readonly [K in keyof I]?: ColumnInput | readonly (number | string)[] } | Readonly<Record<string, unknown>>,
-  options: ColumnsOptions = {},
+  options: ColumnsOptions & LongRunOptions = {},
 ): ColumnsResult {
   // Anything but a formula is looked up by id, so a stray value is unknown_formula, not a TypeError.
   const f = isFormula(formula) ? formula : getFormula(formula);
   return run(f, inputs, options);
 }
 
-function run(formula: AnyFormula, inputs: unknown, options: ColumnsOptions): ColumnsResult {
+function run(formula: AnyFormula, inputs: unknown, options: ColumnsOptions & LongRunOptions): ColumnsResult {
   const id = formula.id;
   const def = formula.definition;
   if (typeof options !== "object" || options === null) throw new FormulaError("invalid_argument", { formula: id, input: "options", detail: "options is an object" });
@@ -125,6 +131,7 @@ function run(formula: AnyFormula, inputs: unknown, options: ColumnsOptions): Col
   const from = rangeEnd(id, "from", options.from, 0, rows);
   const to = rangeEnd(id, "to", options.to, rows, rows);
   if (from > to) throw new FormulaError("invalid_argument", { formula: id, input: "from", value: from, detail: `from must not be after to (${to})` });
+  const t = ticker("evaluateColumns", options, to - from);
   const comps = def.output.components as readonly string[] | undefined;
   const nc = comps?.length ?? 0;
   const components = nc === 0 ? [] : given(id, "components", options.components, nc, rows) ?? comps!.map(() => new Float64Array(rows));
@@ -163,7 +170,10 @@ function run(formula: AnyFormula, inputs: unknown, options: ColumnsOptions): Col
     index: new Float64Array(conditions.length).fill(-1),
     measure: new Float64Array(conditions.length).fill(-Infinity),
   };
-  runRows(formula, state, shape, from, to);
+  if (!watched(options)) runRows(formula, state, shape, from, to);
+  // In pieces with a tick between: a range's rows depend only on themselves, and the note
+  // counts and worst rows accumulate in `state` in row order, as in one pass.
+  else inPieces(from, to, (a, b) => runRows(formula, state, shape, a, b), (done) => tickBelow(t, done - from, to - from));
 
   const seen = new Float64Array(ROW_ERROR_CODES.length);
   const firstRow = new Float64Array(ROW_ERROR_CODES.length).fill(-1);
@@ -195,6 +205,7 @@ function run(formula: AnyFormula, inputs: unknown, options: ColumnsOptions): Col
     const value = nc === 0 ? values[k]! : components.map((a) => a[k]!);
     notes.push(noteSummary(conditions[c]!, kinds[c]!, state.counts[c]!, k, state.measure[c]!, worstInputs, o, value));
   }
+  t.finish();
   return {
     formula: id,
     rows,

@@ -21,7 +21,7 @@ export {
   biotSavartParallel, mutualInductanceParallel, polylineSelfInductanceParallel, sweepParallel, toleranceParallel,
 } from "./parallel.js";
 export type { BiotSavartParallelOptions, ParallelOptions } from "./parallel.js";
-export { closeWorkers, workerThreads } from "./pool.js";
+export { closeWorkers, poolBusy, workerThreads } from "./pool.js";
 export { MAX_SHARDS, mergeShards, planShards, runShard } from "./shards.js";
 export type { Shard, ShardRequest, ShardResult, SweepShardRequest, SweepShardResult, ToleranceShardRequest, ToleranceShardResult } from "./shards.js";
 export type { CollectedNotes } from "./notes.js";

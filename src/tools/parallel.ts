@@ -7,8 +7,10 @@ import {
   checkPairs, depthOption, finishMutualInductance, finishSelfInductance, mutualRows, type NeumannOptions, planSelfInductance,
   type Polyline, segments, selfRows, sumRows,
 } from "../inductance/neumann.js";
+import { type LongRunOptions, type Ticker, ticker } from "../core/progress.js";
+import { inPiecesAsync, tickBelow, watched } from "./chunks.js";
 import { defaultWorkers, poolAvailable, runOnPool } from "./pool.js";
-import { type PoolTask, rebuildError, type TaskOutcome } from "./pool-tasks.js";
+import { type PoolTask, rebuildError, selfPairs, type TaskOutcome } from "./pool-tasks.js";
 import { MONTE_CARLO_BLOCK } from "./random.js";
 import { computePoints } from "./sweep-points.js";
 import { bindGrid, finishSweep, layoutSweep, planSweep, type SweepResult, type SweepSpec } from "./sweep.js";
@@ -29,10 +31,20 @@ import { finishTolerance, type MonteCarloPart, monteCarloRange, planTolerance, t
  *
  * Browser build: there are no worker threads; `workers` given is refused
  * (invalid_argument), left out the call computes in the calling thread.
+ *
+ * Progress and cancellation (`signal`, `onProgress`): on the pool, tasks
+ * store their items done in a shared array between blocks of work and read a
+ * shared cancel flag there (pool-tasks.ts); the calling thread reports the
+ * sum after each task and every PROGRESS_INTERVAL_MS. An abort at any time
+ * rejects the promise with "cancelled" once every task of the call has
+ * stopped (within one block): poolBusy() is 0 again when it settles. Below the
+ * pool thresholds the calling thread works in pieces of a few milliseconds
+ * and yields to the event loop between them (only when a signal or
+ * onProgress is given), so an abort from a timer or another event reaches it.
  */
 
-/** Options shared by the parallel entries. */
-export interface ParallelOptions {
+/** Options shared by the parallel entries (with `signal` and `onProgress`). */
+export interface ParallelOptions extends LongRunOptions {
   /**
    * Worker threads to use: a whole number from 1 to MAX_WORKERS. Default: the
    * cores Node reports (os.availableParallelism()); in the browser build, the
@@ -53,8 +65,12 @@ export const MIN_PARALLEL_FIELD_PAIRS = 8_000_000;
 /** Segment pairs from which the Neumann entries use the pool (bench/parallel.ts). */
 export const MIN_PARALLEL_SEGMENT_PAIRS = 5_000;
 
-/** Ranges per worker: several, so a thread that finishes early takes more. */
-const CHUNKS_PER_WORKER = 4;
+/**
+ * Ranges per worker: several, so a thread that finishes early takes more.
+ * A test seam, not exported from the package: tests raise it to get many
+ * small tasks (a task boundary near any fraction of the work) and restore it.
+ */
+export const poolSplit = { chunksPerWorker: 4 };
 
 /** The worker count asked for, checked; undefined means the default. */
 function readWorkers(tool: string, options: ParallelOptions | undefined): number {
@@ -73,11 +89,11 @@ function readWorkers(tool: string, options: ParallelOptions | undefined): number
 }
 
 /**
- * 0..total split into at most `workers * CHUNKS_PER_WORKER` ranges of nearly
+ * 0..total split into at most `workers * poolSplit.chunksPerWorker` ranges of nearly
  * equal size, inner boundaries on multiples of `align`.
  */
 export function splitRange(total: number, workers: number, align = 1): [number, number][] {
-  const count = Math.max(1, Math.min(workers * CHUNKS_PER_WORKER, Math.ceil(total / align)));
+  const count = Math.max(1, Math.min(workers * poolSplit.chunksPerWorker, Math.ceil(total / align)));
   const out: [number, number][] = [];
   let start = 0;
   for (let c = 1; c <= count && start < total; c++) {
@@ -88,9 +104,16 @@ export function splitRange(total: number, workers: number, align = 1): [number, 
   return out;
 }
 
-/** The tasks' values in task order; the first error (lowest range) is thrown as the single-thread call throws it. */
-async function onPool<T>(tool: string, tasks: readonly PoolTask[], workers: number): Promise<T[]> {
-  const outcomes: TaskOutcome[] = await runOnPool(tool, tasks, workers);
+/**
+ * The tasks' values in task order; the first error (lowest range) is thrown
+ * as the single-thread call throws it. Progress is `base` plus the items the
+ * tasks have done, through `t`, below `total` (fraction 1 is finish()'s).
+ */
+async function onPool<T>(tool: string, tasks: readonly PoolTask[], workers: number, options: LongRunOptions, t: Ticker, base: number, total: number): Promise<T[]> {
+  const outcomes: TaskOutcome[] = await runOnPool(tool, tasks, workers, {
+    ...(options.signal !== undefined ? { signal: options.signal } : {}),
+    ...(options.onProgress !== undefined ? { progress: (done: number) => tickBelow(t, base + done, total) } : {}),
+  });
   return outcomes.map((o) => {
     if (!o.ok) throw rebuildError(o.error);
     return o.value as T;
@@ -136,17 +159,25 @@ export async function toleranceParallel<I extends InputSpecs, O extends OutputSp
   const tool = "toleranceParallel";
   const f = registryFormula(tool, formula as unknown as AnyFormula | string);
   const workers = readWorkers(tool, options);
-  const plan = planTolerance(f, inputs, options);
-  const { samples, seed, sampleOffset, varied } = plan;
-  if (samples === 0) return finishTolerance(plan, []);
-  if (samples < MIN_PARALLEL_SAMPLES) {
-    return finishTolerance(plan, [monteCarloRange(f, plan.b, varied, seed, sampleOffset, 0, samples)]);
+  const plan = planTolerance(f, inputs, options, options, tool);
+  const { samples, seed, sampleOffset, varied, corners, ticker: t } = plan;
+  const total = corners + samples;
+  let parts: MonteCarloPart[] = [];
+  if (samples > 0 && samples < MIN_PARALLEL_SAMPLES) {
+    const range = (a: number, b: number): MonteCarloPart => monteCarloRange(f, plan.b, varied, seed, sampleOffset, a, b);
+    if (!watched(options)) parts = [range(0, samples)];
+    // Pieces of whole blocks: the parts joined in order are the samples of one run.
+    else await inPiecesAsync(0, samples, (a, b) => parts.push(range(a, b)), (done) => tickBelow(t, corners + done, total), MONTE_CARLO_BLOCK, MONTE_CARLO_BLOCK);
+  } else if (samples > 0) {
+    const variedData = varied.map(({ spec: _spec, ...rest }) => rest);
+    const tasks: PoolTask[] = splitRange(samples, workers, MONTE_CARLO_BLOCK).map(([start, end]) => ({
+      kind: "tolerance", formula: f.id, fixed: plan.fixed, varied: variedData, seed, offset: sampleOffset, start, end,
+    }));
+    parts = await onPool<MonteCarloPart>(tool, tasks, workers, options, t, corners, total);
   }
-  const variedData = varied.map(({ spec: _spec, ...rest }) => rest);
-  const tasks: PoolTask[] = splitRange(samples, workers, MONTE_CARLO_BLOCK).map(([start, end]) => ({
-    kind: "tolerance", formula: f.id, fixed: plan.fixed, varied: variedData, seed, offset: sampleOffset, start, end,
-  }));
-  return finishTolerance(plan, await onPool<MonteCarloPart>(tool, tasks, workers));
+  const result = finishTolerance(plan, parts);
+  t.finish();
+  return result;
 }
 
 /**
@@ -165,15 +196,27 @@ export async function sweepParallel<I extends InputSpecs, O extends OutputSpec>(
   const f = registryFormula(tool, formula as unknown as AnyFormula | string);
   const workers = readWorkers(tool, options);
   const plan = planSweep(f, spec as SweepSpec);
-  const small = plan.total < MIN_PARALLEL_POINTS;
+  const total = plan.total;
+  const t = ticker(tool, options, total);
+  const small = total < MIN_PARALLEL_POINTS;
   const arrays = layoutSweep(plan, small ? new ArrayBuffer(plan.bytes) : new SharedArrayBuffer(plan.bytes), true);
   const grid = bindGrid(plan, arrays);
-  if (small) return finishSweep(plan, arrays, grid, computePoints(f, grid.g, grid.axis0, grid.axis1));
-  const request: SweepSpec = { vary: spec.vary, ...(spec.fixed !== undefined ? { fixed: spec.fixed } : {}) };
-  const buffer = arrays.values.buffer as SharedArrayBuffer;
-  const tasks: PoolTask[] = splitRange(plan.total, workers).map(([start, end]) => ({ kind: "sweep", formula: f.id, spec: request, buffer, start, end }));
-  const failed = (await onPool<number>(tool, tasks, workers)).reduce((a, b) => a + b, 0);
-  return finishSweep(plan, arrays, grid, failed);
+  let failed = 0;
+  if (small) {
+    const work = (a: number, b: number): void => {
+      failed += computePoints(f, grid.g, grid.axis0, grid.axis1, a, b);
+    };
+    if (!watched(options)) work(0, total);
+    else await inPiecesAsync(0, total, work, (done) => tickBelow(t, done, total));
+  } else {
+    const request: SweepSpec = { vary: spec.vary, ...(spec.fixed !== undefined ? { fixed: spec.fixed } : {}) };
+    const buffer = arrays.values.buffer as SharedArrayBuffer;
+    const tasks: PoolTask[] = splitRange(total, workers).map(([start, end]) => ({ kind: "sweep", formula: f.id, spec: request, buffer, start, end }));
+    failed = (await onPool<number>(tool, tasks, workers, options, t, 0, total)).reduce((a, b) => a + b, 0);
+  }
+  const result = finishSweep(plan, arrays, grid, failed);
+  t.finish();
+  return result;
 }
 
 /** biotSavart's options plus `out` (the output array) and `workers`. */
@@ -197,16 +240,29 @@ export async function biotSavartParallel(path: Float64Array, current: number, po
   if (out !== undefined && (!(out instanceof Float64Array) || out.length < points.length)) {
     throw new FormulaError("invalid_argument", { formula: "biotSavart", input: "out", detail: "output array is shorter than points" });
   }
+  const t = ticker(tool, options, np);
   const result = (out ?? new Float64Array(points.length)) as Float64Array & { warnings: readonly Note[] };
   let found: InsideCount;
   if (np * (nv - 1) < MIN_PARALLEL_FIELD_PAIRS) {
-    found = fieldRange(path, current, points, result, wireRadius, 0, np);
+    if (!watched(options)) found = fieldRange(path, current, points, result, wireRadius, 0, np);
+    else {
+      // Points are independent: the pieces give the field, count and first point of one call.
+      let inside = 0;
+      let first = -1;
+      const work = (a: number, b: number): void => {
+        const r = fieldRange(path, current, points, result, wireRadius, a, b);
+        inside += r.inside;
+        if (first < 0) first = r.first;
+      };
+      await inPiecesAsync(0, np, work, (done) => tickBelow(t, done, np), 16);
+      found = { inside, first };
+    }
   } else {
     const sp = shared(path);
     const spoints = shared(points);
     const sout = new Float64Array(new SharedArrayBuffer(points.length * 8));
     const tasks: PoolTask[] = splitRange(np, workers).map(([start, end]) => ({ kind: "field", path: sp, current, points: spoints, out: sout, wireRadius, start, end }));
-    const parts = await onPool<InsideCount>(tool, tasks, workers);
+    const parts = await onPool<InsideCount>(tool, tasks, workers, options, t, 0, np);
     let inside = 0;
     let first = -1;
     for (const p of parts) {
@@ -217,12 +273,13 @@ export async function biotSavartParallel(path: Float64Array, current: number, po
     result.set(sout);
   }
   result.warnings = fieldWarnings(found, np, wireRadius);
+  t.finish();
   return result;
 }
 
 /** Row ranges of a pair sum with about equal numbers of pairs each (rows of `cost(i)` pairs). */
 function rowRanges(rows: number, workers: number, cost: (i: number) => number, total: number): [number, number][] {
-  const count = Math.max(1, Math.min(workers * CHUNKS_PER_WORKER, rows));
+  const count = Math.max(1, Math.min(workers * poolSplit.chunksPerWorker, rows));
   const out: [number, number][] = [];
   let start = 0;
   let acc = 0;
@@ -249,11 +306,32 @@ export async function mutualInductanceParallel(pathA: Polyline, pathB: Polyline,
   const A = segments(pathA, "pathA", tool);
   const B = segments(pathB, "pathB", tool);
   checkPairs(A.n * B.n, "pathB", tool);
-  if (A.n * B.n < MIN_PARALLEL_SEGMENT_PAIRS) return finishMutualInductance(sumRows(mutualRows(A, B, maxDepth, 0, A.n)));
-  const a = Float64Array.from(pathA);
-  const b = Float64Array.from(pathB);
-  const tasks: PoolTask[] = rowRanges(A.n, workers, () => B.n, A.n * B.n).map(([start, end]) => ({ kind: "mutual", pathA: a, pathB: b, maxDepth, start, end }));
-  return finishMutualInductance(sumRows(joinRows(await onPool<Float64Array>("mutualInductanceParallel", tasks, workers))));
+  const total = A.n * B.n;
+  const t = ticker("mutualInductanceParallel", options, total);
+  let rows: Float64Array;
+  if (total < MIN_PARALLEL_SEGMENT_PAIRS) {
+    rows = await rowsHere(A.n, (i0, i1) => mutualRows(A, B, maxDepth, i0, i1), (i) => i * B.n, options, t, total);
+  } else {
+    const a = Float64Array.from(pathA);
+    const b = Float64Array.from(pathB);
+    const tasks: PoolTask[] = rowRanges(A.n, workers, () => B.n, total).map(([start, end]) => ({ kind: "mutual", pathA: a, pathB: b, maxDepth, start, end }));
+    rows = joinRows(await onPool<Float64Array>("mutualInductanceParallel", tasks, workers, options, t, 0, total));
+  }
+  const M = finishMutualInductance(sumRows(rows));
+  t.finish();
+  return M;
+}
+
+/**
+ * The rows 0..n-1 of a pair sum in the calling thread: in one piece, or with
+ * a signal or onProgress in pieces with a yield between them (rows are
+ * independent: the same rows). `pairsBefore(i)` counts the pairs of rows 0..i-1.
+ */
+async function rowsHere(n: number, rows: (i0: number, i1: number) => Float64Array, pairsBefore: (i: number) => number, options: LongRunOptions, t: Ticker, total: number): Promise<Float64Array> {
+  if (!watched(options)) return rows(0, n);
+  const out = new Float64Array(n);
+  await inPiecesAsync(0, n, (a, b) => out.set(rows(a, b), a), (i) => tickBelow(t, pairsBefore(i), total), 1);
+  return out;
 }
 
 /**
@@ -267,10 +345,18 @@ export async function polylineSelfInductanceParallel(path: Polyline, wireRadius:
   const plan = planSelfInductance(path, wireRadius, options);
   const n = plan.S.n;
   const pairs = (n * (n - 1)) / 2;
-  if (pairs < MIN_PARALLEL_SEGMENT_PAIRS) return finishSelfInductance(plan, sumRows(selfRows(plan.S, plan.maxDepth, 0, n)));
-  const p = Float64Array.from(path);
-  const tasks: PoolTask[] = rowRanges(n, workers, (i) => n - 1 - i, pairs).map(([start, end]) => ({ kind: "self", path: p, maxDepth: plan.maxDepth, start, end }));
-  return finishSelfInductance(plan, sumRows(joinRows(await onPool<Float64Array>("polylineSelfInductanceParallel", tasks, workers))));
+  const t = ticker("polylineSelfInductanceParallel", options, pairs);
+  let rows: Float64Array;
+  if (pairs < MIN_PARALLEL_SEGMENT_PAIRS) {
+    rows = await rowsHere(n, (i0, i1) => selfRows(plan.S, plan.maxDepth, i0, i1), (i) => selfPairs(n, 0, i), options, t, pairs);
+  } else {
+    const p = Float64Array.from(path);
+    const tasks: PoolTask[] = rowRanges(n, workers, (i) => n - 1 - i, pairs).map(([start, end]) => ({ kind: "self", path: p, maxDepth: plan.maxDepth, start, end }));
+    rows = joinRows(await onPool<Float64Array>("polylineSelfInductanceParallel", tasks, workers, options, t, 0, pairs));
+  }
+  const L = finishSelfInductance(plan, sumRows(rows));
+  t.finish();
+  return L;
 }
 
 function joinRows(parts: readonly Float64Array[]): Float64Array {

@@ -1,7 +1,9 @@
 import { availableParallelism } from "node:os";
 import { createRequire } from "node:module";
 import type { Piscina } from "piscina";
-import type { PoolTask, TaskOutcome } from "./pool-tasks.js";
+import { cancelledError, PROGRESS_INTERVAL_MS } from "../core/progress.js";
+import { CANCEL_CELL, controlCells, finalCell, type PoolTask, progressCell, type TaskOutcome } from "./pool-tasks.js";
+import type { PoolWatch } from "./pool.js";
 
 /*
  * The worker pool of the Node build (it replaces pool.ts there): one piscina
@@ -44,24 +46,99 @@ async function thePool(): Promise<Piscina> {
   return pool;
 }
 
+/** Tasks of parallel calls handed to the pool and not yet settled (queued in piscina or running). */
+let inFlight = 0;
+
 /**
  * Runs the tasks with at most `workers` of them in flight, and returns their
  * outcomes in task order. The caller has checked `workers`.
+ *
+ * With `watch`: every task gets the call's shared control array and its slot
+ * (pool-tasks.ts), and the task stores its items done there between blocks.
+ * `watch.progress(done)` gets the sum over the tasks after each task
+ * completes and every PROGRESS_INTERVAL_MS while tasks run. A cancel (the
+ * signal's abort, at any time, or `progress` throwing, as Ticker.tick does
+ * for an abort from onProgress) sets the cancel flag, which running tasks
+ * read between blocks; queues no more tasks; withdraws tasks the pool has not
+ * started; waits for the running ones to stop (within one block); and then
+ * rejects with "cancelled" (or what `progress` threw). So when the promise
+ * settles, none of this call's tasks is queued or running.
+ *
+ * A task that throws anything but a FormulaError (a thread crash) cancels the
+ * others the same way before its error is rethrown.
  */
-export async function runOnPool(_tool: string, tasks: readonly PoolTask[], workers: number): Promise<TaskOutcome[]> {
+export async function runOnPool(tool: string, tasks: readonly PoolTask[], workers: number, watch: PoolWatch = {}): Promise<TaskOutcome[]> {
+  const { signal, progress } = watch;
   const p = await thePool();
+  if (signal?.aborted) throw cancelledError(tool, signal);
   const out = new Array<TaskOutcome>(tasks.length);
+  const control = new Int32Array(new SharedArrayBuffer(4 * controlCells(tasks.length))).fill(-1);
+  control[CANCEL_CELL] = 0;
+  // Tasks whose result this thread has received: counted by their final cell, the others by their progress cell.
+  const received = new Uint8Array(tasks.length);
+  // The reason the call stops early (set once), and the piscina withdrawals of the tasks in flight.
+  let stop: { readonly error: unknown } | undefined;
+  const withdraw = new Map<number, AbortController>();
+  const cancel = (error: unknown): void => {
+    if (stop !== undefined) return;
+    stop = { error };
+    Atomics.store(control, CANCEL_CELL, 1);
+    // Not started (-1): take it out of piscina's queue. A task that started meanwhile
+    // ends its thread instead (piscina's abort of a running task): still none left running.
+    for (const [i, c] of withdraw) if (Atomics.load(control, progressCell(i)) < 0) c.abort();
+  };
+  const report = (): void => {
+    if (progress === undefined || stop !== undefined) return;
+    let done = 0;
+    for (let i = 0; i < tasks.length; i++) done += Math.max(0, Atomics.load(control, received[i] === 1 ? finalCell(i) : progressCell(i)));
+    try {
+      progress(done);
+    } catch (e) {
+      cancel(e);
+    }
+  };
+  const onAbort = (): void => cancel(cancelledError(tool, signal));
+  signal?.addEventListener("abort", onAbort, { once: true });
+  const timer = progress !== undefined ? setInterval(report, PROGRESS_INTERVAL_MS) : undefined;
   let next = 0;
   // `workers` lanes, each taking the next task when its last one is done:
   // bounded by the number of tasks.
   const lane = async (): Promise<void> => {
-    while (next < tasks.length) {
+    while (next < tasks.length && stop === undefined) {
       const i = next++;
-      out[i] = (await p.run(tasks[i])) as TaskOutcome;
+      const c = new AbortController();
+      withdraw.set(i, c);
+      inFlight++;
+      try {
+        out[i] = (await p.run({ ...tasks[i], control, slot: i }, { signal: c.signal })) as TaskOutcome;
+        received[i] = 1;
+      } catch (e) {
+        // A withdrawal after a cancel rejects here as piscina's AbortError: the cancel's own error is reported.
+        if (stop === undefined) cancel(e);
+      } finally {
+        inFlight--;
+        withdraw.delete(i);
+      }
+      report();
     }
   };
-  await Promise.all(Array.from({ length: Math.min(workers, tasks.length) }, lane));
+  try {
+    await Promise.all(Array.from({ length: Math.min(workers, tasks.length) }, lane));
+  } finally {
+    if (timer !== undefined) clearInterval(timer);
+    signal?.removeEventListener("abort", onAbort);
+  }
+  if (stop !== undefined) throw stop.error;
   return out;
+}
+
+/**
+ * Whether any task of a parallel call is queued on the pool or running (the
+ * count of such tasks). After a parallel call settles, by success, error or
+ * cancellation, its tasks are no longer counted.
+ */
+export function poolBusy(): number {
+  return inFlight + (pool?.queueSize ?? 0);
 }
 
 /** Threads alive in the pool now. */

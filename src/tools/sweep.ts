@@ -7,6 +7,8 @@ import { noteConditions, noteSummary, type NoteSummary } from "./notes.js";
 import { axisTitle, axisUnit, largestMagnitude } from "./axis-units.js";
 import { computePoints, scanNotes, type Grid, type SweptInput } from "./sweep-points.js";
 import type { QuantityValue } from "./tolerance.js";
+import { type LongRunOptions, ticker } from "../core/progress.js";
+import { inPieces, tickBelow, watched } from "./chunks.js";
 
 /** One swept input: `points` values from `from` to `to`, evenly spaced or geometric. */
 export interface SweepAxisSpec {
@@ -78,28 +80,40 @@ export interface SweepResult {
 export function sweep<I extends InputSpecs, O extends OutputSpec>(
   formula: Formula<I, O> | string,
   spec: SweepSpec<keyof I & string>,
+  options?: LongRunOptions,
 ): SweepResult {
   const f = typeof formula === "string" ? getFormula(formula) : (formula as unknown as AnyFormula);
-  return run(f, spec as SweepSpec);
+  return run(f, spec as SweepSpec, options, "sweep");
 }
 
-/** JSON form: `{ formula, vary, fixed }` with unit strings. */
-export function sweepRequest(request: { readonly formula: string } & SweepSpec): SweepResult {
+/** JSON form: `{ formula, vary, fixed }` with unit strings; `options` as sweep's. */
+export function sweepRequest(request: { readonly formula: string } & SweepSpec, options?: LongRunOptions): SweepResult {
   if (typeof request !== "object" || request === null) {
     throw new FormulaError("wrong_type", { input: "request", value: request, expected: "an object { formula, vary, fixed }" });
   }
-  return run(getFormula(request.formula), request);
+  return run(getFormula(request.formula), request, options, "sweepRequest");
 }
 
 /** Most points of one sweep (both axes together). */
 export const MAX_POINTS = 4_000_000;
 
-function run(formula: AnyFormula, spec: SweepSpec): SweepResult {
+function run(formula: AnyFormula, spec: SweepSpec, options: LongRunOptions | undefined, tool: string): SweepResult {
   const plan = planSweep(formula, spec);
+  const t = ticker(tool, options, plan.total);
   const arrays = layoutSweep(plan, new ArrayBuffer(plan.bytes), true);
   const grid = bindGrid(plan, arrays);
-  const failed = computePoints(formula, grid.g, grid.axis0, grid.axis1);
-  return finishSweep(plan, arrays, grid, failed);
+  let failed = 0;
+  if (!watched(options)) failed = computePoints(formula, grid.g, grid.axis0, grid.axis1);
+  else {
+    // In pieces with a tick between: points are independent, so the values are those of one loop.
+    const work = (start: number, end: number): void => {
+      failed += computePoints(formula, grid.g, grid.axis0, grid.axis1, start, end);
+    };
+    inPieces(0, plan.total, work, (done) => tickBelow(t, done, plan.total));
+  }
+  const result = finishSweep(plan, arrays, grid, failed);
+  t.finish();
+  return result;
 }
 
 /** A checked sweep request: its axes, sizes and the layout of its one buffer. */

@@ -5,6 +5,7 @@ import { outputDimension, type InputSpecs, type Note, type OutputSpec, type Quan
 import { type Binding, bind, convertInputs, inDomain, inputKind, isScalarQuantity, readQuantity, siUnit, specsOf } from "./convert.js";
 import { type CollectedNotes, NoteCollector, type NoteSummary } from "./notes.js";
 import { BlockStreams, MONTE_CARLO_BLOCK, type Random } from "./random.js";
+import { type LongRunOptions, type Ticker, ticker } from "../core/progress.js";
 
 /** A value in SI, or a unit string ("0.2 mm"). */
 export type QuantityValue = number | string;
@@ -121,37 +122,51 @@ export interface Varied {
  * corners, checked against slopes), first-order RSS with each input's share,
  * and a seeded Monte Carlo (xoshiro128**) with percentiles.
  *
+ * `options.signal` and `options.onProgress` are checked every 1024 corners and
+ * every 1024 Monte Carlo samples (progress counts the worst-case corners, then
+ * the samples); a synchronous call sees an abort made before it started or
+ * from its own onProgress.
+ *
  * @example
  * tolerance(parallelPlateCapacitance, { area: 1e-4, gap: { nominal: 1e-4, percent: 5 } }).worstCase;
  */
 export function tolerance<I extends InputSpecs, O extends OutputSpec>(
   formula: Formula<I, O>,
   inputs: { readonly [K in keyof I & string]?: ToleranceValue },
-  options: ToleranceOptions = {},
+  options: ToleranceOptions & LongRunOptions = {},
 ): ToleranceResult {
-  return analyse(formula as unknown as AnyFormula, inputs as Record<string, unknown>, options);
+  return analyse(formula as unknown as AnyFormula, inputs as Record<string, unknown>, options, options, "tolerance");
 }
 
-/** JSON form: `{ formula, inputs, options }` with unit strings; returns plain JSON. */
+/**
+ * JSON form: `{ formula, inputs, options }` with unit strings; returns plain
+ * JSON. Progress and cancellation (not JSON) come in the second argument.
+ */
 export function toleranceRequest(request: {
   readonly formula: string;
   readonly inputs: Readonly<Record<string, unknown>>;
   readonly options?: ToleranceOptions;
-}): ToleranceResult {
+}, options?: LongRunOptions): ToleranceResult {
   if (typeof request !== "object" || request === null) {
     throw new FormulaError("wrong_type", { input: "request", value: request, expected: "an object { formula, inputs }" });
   }
-  return analyse(getFormula(request.formula), request.inputs, request.options ?? {});
+  return analyse(getFormula(request.formula), request.inputs, request.options ?? {}, options, "toleranceRequest");
 }
 
 function isPlainObject(v: unknown): v is Record<string, unknown> {
   return typeof v === "object" && v !== null && !Array.isArray(v);
 }
 
-function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions): ToleranceResult {
-  const plan = planTolerance(formula, inputs, options);
-  const parts = plan.samples > 0 ? [monteCarloRange(formula, plan.b, plan.varied, plan.seed, plan.sampleOffset, 0, plan.samples)] : [];
-  return finishTolerance(plan, parts);
+function analyse(formula: AnyFormula, inputs: unknown, options: ToleranceOptions, long: LongRunOptions | undefined, tool: string): ToleranceResult {
+  const plan = planTolerance(formula, inputs, options, long, tool);
+  const t = plan.ticker;
+  const { corners, samples } = plan;
+  // Ticks below the total only: fraction 1 is finish()'s.
+  const hook = long?.signal !== undefined || long?.onProgress !== undefined ? (done: number) => t.tick(corners + done) : undefined;
+  const parts = samples > 0 ? [monteCarloRange(formula, plan.b, plan.varied, plan.seed, plan.sampleOffset, 0, samples, hook)] : [];
+  const result = finishTolerance(plan, parts);
+  t.finish();
+  return result;
 }
 
 /**
@@ -183,6 +198,10 @@ export interface TolerancePlan {
   readonly rss: { readonly sd: number; readonly plusMinus: number };
   readonly sensitivities: readonly Sensitivity[];
   readonly unit: string;
+  /** Worst-case corners evaluated (the first part of the progress count; the Monte Carlo samples follow). */
+  readonly corners: number;
+  /** The call's progress and cancellation, over corners + samples; ticked through the corners already. */
+  readonly ticker: Ticker;
 }
 
 /** What the Monte Carlo over one range of sample numbers found. */
@@ -202,8 +221,15 @@ export interface MonteCarloPart {
  * range by range, exactly the samples of one run: a range that starts inside
  * a block first replays that block's draws up to its start. `b.x` is varied in
  * place and left at nominal.
+ *
+ * `between(done)`, when given, is called at every block boundary inside the
+ * range with the samples of the range done so far (never with all of them);
+ * it may throw (a cancellation) to stop the range.
  */
-export function monteCarloRange(formula: AnyFormula, b: Binding, varied: readonly Varied[], seed: number, offset: number, start: number, end: number): MonteCarloPart {
+export function monteCarloRange(
+  formula: AnyFormula, b: Binding, varied: readonly Varied[], seed: number, offset: number, start: number, end: number,
+  between?: (done: number) => void,
+): MonteCarloPart {
   const x = b.x;
   const collector = new NoteCollector(formula, varied.map((v) => v.name));
   const values = new Float64Array(end - start);
@@ -214,7 +240,11 @@ export function monteCarloRange(formula: AnyFormula, b: Binding, varied: readonl
   let rng = streams.at(first / MONTE_CARLO_BLOCK);
   // Bounded by end - first <= samples + MONTE_CARLO_BLOCK.
   for (let s = first; s < end; s++) {
-    if (s > first && s % MONTE_CARLO_BLOCK === 0) rng = streams.at(s / MONTE_CARLO_BLOCK);
+    if (s > first && s % MONTE_CARLO_BLOCK === 0) {
+      // Once per block: the progress and cancellation check costs nothing per sample.
+      if (between !== undefined) between(s - start);
+      rng = streams.at(s / MONTE_CARLO_BLOCK);
+    }
     let ok = true;
     for (let i = 0; i < n; i++) {
       const v = varied[i]!;
@@ -234,8 +264,12 @@ export function monteCarloRange(formula: AnyFormula, b: Binding, varied: readonl
   return { samples: end - start, values: values.subarray(0, accepted), notes: collector.state() };
 }
 
-/** The tolerance analysis up to its Monte Carlo (see TolerancePlan). */
-export function planTolerance(formula: AnyFormula, inputs: unknown, options: ToleranceOptions): TolerancePlan {
+/**
+ * The tolerance analysis up to its Monte Carlo (see TolerancePlan). `long`
+ * (signal, onProgress) makes the plan's ticker, named `tool`, checked before
+ * the nominal is computed and every 1024 corners.
+ */
+export function planTolerance(formula: AnyFormula, inputs: unknown, options: ToleranceOptions, long?: LongRunOptions, tool = "tolerance"): TolerancePlan {
   const id = formula.id;
   const def = formula.definition;
   if (def.output.components) {
@@ -278,6 +312,8 @@ export function planTolerance(formula: AnyFormula, inputs: unknown, options: Tol
   const samples = whole("samples", 10000, 0, 1e6);
   const seed = whole("seed", 1, -Infinity, Infinity);
   const maxCorner = whole("maxCornerInputs", 12, 0, 16);
+  const corners = varied.length <= maxCorner ? 2 ** varied.length : 2;
+  const t = ticker(tool, long, corners + samples);
 
   // Nominal: the full checks, so a bad nominal input fails as in evaluate.
   const nominalInputs: Record<string, unknown> = { ...fixed };
@@ -360,6 +396,8 @@ export function planTolerance(formula: AnyFormula, inputs: unknown, options: Tol
     method = "corners";
     const n = varied.length;
     for (let mask = 0; mask < 1 << n; mask++) {
+      // 2^16 corners at most: a check every 1024 (the last tick is below the total: samples or finish follow).
+      if (mask > 0 && (mask & 1023) === 0) t.tick(mask);
       for (let i = 0; i < n; i++) x[varied[i]!.name] = endValue(varied[i]!, (mask & (1 << i)) !== 0);
       visit();
     }
@@ -419,6 +457,7 @@ export function planTolerance(formula: AnyFormula, inputs: unknown, options: Tol
   return {
     formula, fixed, varied, samples, seed, sampleOffset: sampleIndex, b, collector, notesOver, nominal, atNominal,
     min, max, method, evaluated, rejected, remarks, rss: { sd: rssSd.norm, plusMinus: rssBand.norm }, sensitivities, unit: outUnit,
+    corners, ticker: t,
   };
 }
 

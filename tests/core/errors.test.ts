@@ -8,7 +8,7 @@ import { expectFormulaError } from "../helpers/errors.js";
 describe("error messages", () => {
   it("say non-finite and missing values in words", () => {
     const cases: [unknown, string][] = [
-      [Infinity, "an infinite value"], [-Infinity, "a negative infinite value"], [NaN, "not a number"], [undefined, "nothing"],
+      [Infinity, "a value beyond the double range"], [-Infinity, "minus a value beyond the double range"], [NaN, "not a number"], [undefined, "nothing"],
     ];
     for (const [value, words] of cases) {
       const e = new FormulaError("not_finite", { formula: "f", input: "gap", value });

@@ -69,7 +69,7 @@ describe("a defined formula", () => {
         source: { authors: "common practice", title: "test" },
         compute: (x) => x.a,
       }),
-    ).toThrow(/input "a" is declared twice/);
+    ).toThrow(/input name "a" must be a plain word, declared once/);
   });
 
   it("reports each kind of bad input with its code and the input's name", () => {
@@ -183,7 +183,7 @@ describe("the object a formula's compute receives", () => {
           source: { authors: "common practice", title: "test" },
           compute: () => 1,
         }),
-      ).toThrow(/is not a plain word/);
+      ).toThrow(/must be a plain word, declared once/);
     }
   });
 });

@@ -62,6 +62,21 @@ describe("solenoidField", () => {
     }
   });
 
+  it("keeps 1e-13 of |B| just outside and beside windings 100 and 1000 radii long, where the outer field is small against each loop's", () => {
+    // Formerly about 1e-11 (closed form, rho < 2a) and up to 1.2e-10 (loop quadrature, rho >= 2a): each
+    // end's term cancelled like its modulus, and the loops' fields cancel beside a long sheet (Ampere).
+    const wrong: string[] = [];
+    let worst = 0;
+    for (const l of [100, 1000]) for (const rho of [1.0001, 1.001, 1.01, 1.1, 1.5, 2, 2.5, 3, 5, 20, 150]) for (const zf of [0, 0.1, 0.3, 0.45, 0.499, 0.5, 0.501, 0.6]) {
+      const z = zf * l;
+      const err = vectorError(field(1, 1, 1, l, rho, z), oracleB(1, 1, 1, l, rho, z));
+      worst = Math.max(worst, err);
+      if (!(err < 1e-13)) wrong.push(`l ${l}, rho ${rho}, z/l ${zf}: ${err.toExponential(2)}`);
+    }
+    console.log(`solenoidField worst error beside long windings (relative to |B|): ${(worst / EPS).toFixed(1)} eps`);
+    expect(wrong).toEqual([]);
+  });
+
   it("agrees with solenoidAxialField on the axis (radialDistance 0)", () => {
     fc.assert(fc.property(decades(-3, 0), decades(-3, 0), fc.double({ min: -5, max: 5, noNaN: true }), (a, l, z) => {
       const [br, bz] = field(2, 500, a, l, 0, z);
