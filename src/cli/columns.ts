@@ -1,7 +1,6 @@
 import { FormulaError } from "../core/errors.js";
 import type { LongRunOptions } from "../core/progress.js";
-import { columnsToCsv } from "../tools/columns-csv.js";
-import { evaluateCsvLong } from "./long-calls.js";
+import { columnsToCsv, evaluateCsv } from "../tools/columns-csv.js";
 import { type ColumnsResult, columnsToJson, ROW_ERROR_CODES } from "../tools/columns.js";
 import { formatQuantity } from "../units/display.js";
 import type { DesignFiles } from "./design.js";
@@ -38,7 +37,7 @@ export function columnsCommand(
   } catch (e) {
     throw new FormulaError("invalid_argument", { input: "file", value: o.file, detail: `cannot read the CSV file: ${(e as Error).message}` });
   }
-  const r = evaluateCsvLong(o.formula, text, o.fixed, { ...o.longRun });
+  const r = evaluateCsv(o.formula, text, o.fixed, { ...o.longRun });
   const status = r.failed > 0 ? 4 : 0;
   const notes = noteLines(r);
   const failures = r.rowErrors.map((e) => `error [${e.code}] in ${e.count} of ${r.rows} rows; first at row ${e.first.row + 1}: ${e.first.message}`);

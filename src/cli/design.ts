@@ -1,8 +1,7 @@
 import { FormulaError } from "../core/errors.js";
 import { designReportHtml, designReportMarkdown } from "../designs/report.js";
 import type { LongRunOptions } from "../core/progress.js";
-import { evaluateDesign } from "../designs/tools.js";
-import { designToleranceLong } from "./long-calls.js";
+import { designTolerance, evaluateDesign } from "../designs/tools.js";
 import type { DesignSpec } from "../designs/spec.js";
 import { formatQuantity } from "../units/display.js";
 
@@ -48,7 +47,7 @@ export function designCommand(o: DesignCommandOptions, files: DesignFiles, out: 
     throw new FormulaError("unparsable", { input: "file", value: o.file, detail: `not JSON: ${(e as Error).message}` });
   }
   const result = evaluateDesign(spec);
-  const tolerance = o.tolerance ? designToleranceLong(spec, { ...(o.samples !== undefined ? { samples: o.samples } : {}), ...(o.seed !== undefined ? { seed: o.seed } : {}), ...o.longRun }) : undefined;
+  const tolerance = o.tolerance ? designTolerance(spec, { ...(o.samples !== undefined ? { samples: o.samples } : {}), ...(o.seed !== undefined ? { seed: o.seed } : {}), ...o.longRun }) : undefined;
   const reportOptions = { ...(tolerance ? { tolerance } : {}), ...(o.date ? { date: o.date } : {}) };
   if (o.report) files.writeText(o.report, designReportHtml(result, reportOptions));
   if (o.markdown) files.writeText(o.markdown, designReportMarkdown(result, reportOptions));

@@ -33,6 +33,14 @@ export interface JobEnv {
   readonly progress: LineStream | undefined;
   onSignal(listener: (signal: "SIGINT" | "SIGTERM") => void): () => void;
   exit(status: number): void;
+  /**
+   * Told how the job thread ended: "itself" (the command finished, or its call
+   * stopped on the AbortSignal) or "terminated" (it had not ended STOP_GRACE_MS
+   * after a cancel or its last message). For tests and diagnostics.
+   */
+  threadEnded?(how: "itself" | "terminated"): void;
+  /** STOP_GRACE_MS unless given (tests). */
+  readonly graceMs?: number;
 }
 
 /**
@@ -89,6 +97,11 @@ export function runLongCommand(argv: readonly string[], command: LongCommand, en
     const line = env.progress !== undefined ? new ProgressLine(command.label, env.progress) : undefined;
     let redraw: ReturnType<typeof setInterval> | undefined = line !== undefined ? setInterval(() => line.draw(), REDRAW_MS) : undefined;
     let grace: ReturnType<typeof setTimeout> | undefined;
+    let terminated = false;
+    const terminate = (): void => {
+      terminated = true;
+      void worker.terminate();
+    };
     const charts: ChartRequest[] = [];
     let status: number | undefined;
     let failure: unknown;
@@ -111,7 +124,8 @@ export function runLongCommand(argv: readonly string[], command: LongCommand, en
       Atomics.store(stop, 0, 1);
       endLine();
       env.err(`${command.label} cancelled (${signal})`);
-      grace = setTimeout(() => void worker.terminate(), STOP_GRACE_MS);
+      if (grace !== undefined) clearTimeout(grace);
+      grace = setTimeout(terminate, env.graceMs ?? STOP_GRACE_MS);
     });
 
     worker.on("message", (m: JobMessage) => {
@@ -133,8 +147,8 @@ export function runLongCommand(argv: readonly string[], command: LongCommand, en
           return;
         case "done":
           status = m.status;
-          // Everything the job wrote came before "done"; nothing is left to wait for.
-          void worker.terminate();
+          // The thread ends by itself now; should something keep it alive, it is ended.
+          grace ??= setTimeout(terminate, env.graceMs ?? STOP_GRACE_MS);
           return;
       }
     });
@@ -142,6 +156,7 @@ export function runLongCommand(argv: readonly string[], command: LongCommand, en
       failure ??= e;
     });
     worker.on("exit", () => {
+      env.threadEnded?.(terminated ? "terminated" : "itself");
       endLine();
       offSignal();
       if (grace !== undefined) clearTimeout(grace);

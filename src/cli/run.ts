@@ -8,8 +8,8 @@ import { didYouMean } from "../core/suggest.js";
 import { catalogEntry, inputShapeText, outputText } from "../tools/catalog.js";
 import type { NoteSummary } from "../tools/notes.js";
 import { solveRequest } from "../tools/solve.js";
-import { sweepToCsv, sweepToVegaLite } from "../tools/sweep.js";
-import { sweepRequestLong, toleranceRequestLong } from "./long-calls.js";
+import { sweepRequest, sweepToCsv, sweepToVegaLite } from "../tools/sweep.js";
+import { toleranceRequest } from "../tools/tolerance.js";
 import { columnsCommand } from "./columns.js";
 import { DIMENSIONS } from "../units/dimensions.js";
 import { engineering, formatBoth, formatQuantity } from "../units/display.js";
@@ -378,7 +378,7 @@ function toleranceCommand(p: Parsed, io: CliIO, json: boolean): number {
   }
   const samples = intFlag(p, "samples");
   const seed = intFlag(p, "seed");
-  const r = toleranceRequestLong({ formula: id, inputs, options: { ...(samples !== undefined ? { samples } : {}), ...(seed !== undefined ? { seed } : {}) } }, io.longRun);
+  const r = toleranceRequest({ formula: id, inputs, options: { ...(samples !== undefined ? { samples } : {}), ...(seed !== undefined ? { seed } : {}) } }, io.longRun);
   if (json) {
     io.out(JSON.stringify(r, null, 2));
     return 0;
@@ -429,7 +429,7 @@ function sweepCommand(p: Parsed, io: CliIO, json: boolean): number {
   if (Object.keys(vary).length === 0) throw new UsageError('give one or two inputs as name=from..to, e.g. gap="0.1 mm..1 mm"');
   const svg = p.flags.get("svg");
   if (typeof svg === "string" && !io.chart) throw new UsageError("--svg is available from the emquant command (runCliWithCharts)");
-  const r = sweepRequestLong({ formula: id, vary, fixed: inputsFrom(id, fixedPairs) }, io.longRun);
+  const r = sweepRequest({ formula: id, vary, fixed: inputsFrom(id, fixedPairs) }, io.longRun);
   if (typeof svg === "string") io.chart!(sweepToVegaLite(r), svg);
   const units = Object.fromEntries(r.axes.map((a) => [a.name, a.unit]));
   const summary = summaryText(r.notes, r.computed.length - r.notComputed, units);

@@ -1,5 +1,6 @@
 import { FormulaError } from "../core/errors.js";
 import { type AnyFormula, isFormula } from "../core/formula.js";
+import type { LongRunOptions } from "../core/progress.js";
 import { getFormula } from "../core/registry.js";
 import { type ColumnsOptions, type ColumnsResult, evaluateColumns, MAX_COLUMN_ROWS, ROW_ERROR_CODES } from "./columns.js";
 import type { UnitColumn } from "./columns-read.js";
@@ -151,7 +152,7 @@ export function evaluateCsv(
   formula: AnyFormula | string,
   csv: string | CsvTable,
   fixed: Readonly<Record<string, unknown>> = {},
-  options: CsvLimits & ColumnsOptions = {},
+  options: CsvLimits & ColumnsOptions & LongRunOptions = {},
 ): ColumnsResult {
   const f = isFormula(formula) ? formula : getFormula(formula);
   if (typeof fixed !== "object" || fixed === null || Array.isArray(fixed)) {

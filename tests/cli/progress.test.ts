@@ -275,30 +275,64 @@ describe("the emquant program on a terminal and on pipes", () => {
 });
 
 describe("signals while a long command runs (in this process)", () => {
-  it("cancels on the first signal with one message, and exits at once on the second", async () => {
+  it("cancels on the first signal through the call's AbortSignal (the thread ends by itself), and exits at once on the second", async () => {
     const out: string[] = [];
     const err: string[] = [];
     const exits: number[] = [];
+    const ended: string[] = [];
     let signal: ((s: "SIGINT" | "SIGTERM") => void) | undefined;
+    let sent = false;
     const env: JobEnv = {
       out: (t) => out.push(t),
       err: (t) => err.push(t),
-      progress: undefined,
+      // The signals come once a line with a percentage is drawn: the library call is running.
+      progress: {
+        columns: 100,
+        write: (t: string) => {
+          if (!sent && / \d+ % /.test(t)) {
+            sent = true;
+            signal!("SIGINT");
+            signal!("SIGTERM");
+          }
+        },
+      },
       onSignal: (l) => {
         signal = l;
         return () => (signal = undefined);
       },
       exit: (s) => exits.push(s),
+      threadEnded: (code) => ended.push(code),
     };
-    const done = runLongCommand(longRun(1), { label: "tolerance", progress: true }, env);
-    signal!("SIGINT");
-    signal!("SIGTERM");
-    const status = await done;
+    const status = await runLongCommand(longRun(1), { label: "tolerance", progress: true }, env);
+    expect(sent).toBe(true);
     expect(status).toBe(130);
     expect(exits).toEqual([143]);
     expect(err).toEqual(["tolerance cancelled (SIGINT)"]);
     expect(out).toEqual([]);
+    // Not terminated: its call stopped on the aborted signal.
+    expect(ended).toEqual(["itself"]);
     // The listeners are gone once the job thread has ended.
     expect(signal).toBeUndefined();
+  });
+
+  it("terminates a thread that has not ended when the grace time is over (here none: it is still starting)", async () => {
+    const ended: string[] = [];
+    let signal: ((s: "SIGINT" | "SIGTERM") => void) | undefined;
+    const env: JobEnv = {
+      out: () => {},
+      err: () => {},
+      progress: undefined,
+      onSignal: (l) => {
+        signal = l;
+        return () => (signal = undefined);
+      },
+      exit: () => {},
+      threadEnded: (code) => ended.push(code),
+      graceMs: 0,
+    };
+    const done = runLongCommand(longRun(2), { label: "tolerance", progress: true }, env);
+    signal!("SIGTERM");
+    expect(await done).toBe(143);
+    expect(ended).toEqual(["terminated"]);
   });
 });
