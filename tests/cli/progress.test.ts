@@ -23,7 +23,8 @@ import { spawnCli } from "../helpers/spawn-cli.js";
 //   system's own, from os.constants.signals (SIGINT 2, SIGTERM 15 on Linux).
 // - In a terminal, the interrupt character (Ctrl-C, 0x03) makes the line
 //   discipline send SIGINT to the terminal's foreground process group
-//   (POSIX.1-2017, General Terminal Interface, 11.1.9 Special Characters).
+//   (POSIX.1-2017, General Terminal Interface, 11.1.9 Special Characters;
+//   the section numbers here are from memory).
 
 const root = fileURLToPath(new URL("../..", import.meta.url));
 
