@@ -8,8 +8,9 @@ export const ENTRIES: Record<string, string> = {
   index: "src/index.ts",
   http: "src/http/index.ts",
 };
-// The command-line program (ESM only, Node only).
-const BIN = { cli: "src/cli/main.ts" };
+// The command-line program (ESM only, Node only) and the thread its long commands run on
+// (src/cli/job.ts finds cli-job.js beside itself).
+const BIN = { cli: "src/cli/main.ts", "cli-job": "src/cli/job-thread.ts" };
 // The module each worker thread of the parallel calls loads (Node only; src/tools/pool.node.ts finds it beside itself).
 const WORKER = { "pool-worker": "src/tools/pool-worker.node.ts" };
 

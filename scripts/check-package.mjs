@@ -289,10 +289,13 @@ console.log(JSON.stringify([typed, viaUnits, viaRequire]));
     const smoke = tryRun(n.exe, ["smoke.mjs"], { cwd: consumer, timeout: 60_000 });
     const cli = tryRun(n.exe, [join(pkgDir, pkg.bin.emquant), "compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 mm"], { cwd: consumer, timeout: 60_000 });
     const help = tryRun(n.exe, [join(pkgDir, pkg.bin.emquant), "help"], { cwd: consumer, timeout: 60_000 });
+    // A long command runs on the CLI's job thread (dist/node/cli-job.js): the 1 cm^2 plates at 0.1 mm and 0.2 mm.
+    const sweep = tryRun(n.exe, [join(pkgDir, pkg.bin.emquant), "sweep", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 mm..0.2 mm", "--points", "2"], { cwd: consumer, timeout: 60_000 });
     if (smoke.status !== 0 || smoke.out.trim() !== expected) fail(`${n.label}: smoke printed ${smoke.out.trim().slice(0, 800)}`);
     else if (cli.status !== 0 || !cli.out.includes("8.854 pF")) fail(`${n.label}: CLI compute printed ${cli.out.slice(0, 800)}`);
     else if (help.status !== 0 || !help.out.includes("Usage")) fail(`${n.label}: CLI help printed ${help.out.slice(0, 800)}`);
-    else ok(`${n.label}: import, typed call, evaluate, require, CLI help and compute`);
+    else if (sweep.status !== 0 || !/8\.854 pF[\s\S]*4\.427 pF/.test(sweep.out)) fail(`${n.label}: CLI sweep (job thread) printed ${sweep.out.slice(0, 800)}`);
+    else ok(`${n.label}: import, typed call, evaluate, require, CLI help, compute and sweep`);
   }
 } finally {
   rmSync(work, { recursive: true, force: true });

@@ -1,6 +1,6 @@
 // Start-up times of the built package, as a user meets them: median wall time
 // of N fresh processes each for bare `node -e ""`, `import "emquant"`, and the
-// CLI's help and compute (with common unit strings, and with one left to mathjs). Run after `npm run build`;
+// CLI's help, compute (with common unit strings, and with one left to mathjs) and a small sweep (job thread). Run after `npm run build`;
 // `node scripts/startup-time.mjs [runs]`. Prints times and ratios to bare node
 // (a benchmark, not a test: no thresholds).
 import { spawnSync } from "node:child_process";
@@ -18,6 +18,8 @@ const cases = [
   ["emquant compute with unit strings", [cli, "compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 mm"]],
   // A long unit name is left to mathjs: this one also loads the mathjs unit subset.
   ["emquant compute, a unit string read by mathjs", [cli, "compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 millimeter"]],
+  // A long command starts the CLI's job thread (src/cli/job.ts): a two-point sweep is mostly that start.
+  ["emquant sweep, two points (job thread)", [cli, "sweep", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 mm..0.2 mm", "--points", "2"]],
 ];
 
 function median(xs) {

@@ -53,14 +53,22 @@ export async function runCliWithCharts(argv: readonly string[], io: CliIO): Prom
   const charts: ChartRequest[] = [];
   const status = runCli(argv, { ...io, chart: (spec, path) => charts.push({ spec, path }) });
   if (status !== 0) return status;
+  return writeCharts(charts, (t) => io.err(t));
+}
+
+/**
+ * Renders and writes the charts a command asked for, saying so on stderr.
+ * Returns 0, or 1 with the reason on stderr when one cannot be written.
+ */
+export async function writeCharts(charts: readonly ChartRequest[], err: (text: string) => void): Promise<number> {
   for (const c of charts) {
     try {
       writeFileSync(c.path, await vegaLiteToSvg(c.spec));
     } catch (e) {
-      io.err(`error: cannot write the chart to ${c.path}: ${e instanceof Error ? e.message : String(e)}`);
+      err(`error: cannot write the chart to ${c.path}: ${e instanceof Error ? e.message : String(e)}`);
       return 1;
     }
-    io.err(`chart written to ${c.path}`);
+    err(`chart written to ${c.path}`);
   }
   return 0;
 }

@@ -1,4 +1,5 @@
 import { FormulaError } from "../core/errors.js";
+import type { LongRunOptions } from "../core/progress.js";
 import { columnsToCsv, evaluateCsv } from "../tools/columns-csv.js";
 import { type ColumnsResult, columnsToJson, ROW_ERROR_CODES } from "../tools/columns.js";
 import { formatQuantity } from "../units/display.js";
@@ -15,6 +16,8 @@ export interface ColumnsCommandOptions {
   readonly fixed: Readonly<Record<string, unknown>>;
   readonly json: boolean;
   readonly csv: boolean;
+  /** Cancellation and progress (the job thread's), passed to evaluateCsv. */
+  readonly longRun?: LongRunOptions | undefined;
 }
 
 /**
@@ -34,7 +37,7 @@ export function columnsCommand(
   } catch (e) {
     throw new FormulaError("invalid_argument", { input: "file", value: o.file, detail: `cannot read the CSV file: ${(e as Error).message}` });
   }
-  const r = evaluateCsv(o.formula, text, o.fixed);
+  const r = evaluateCsv(o.formula, text, o.fixed, { ...o.longRun });
   const status = r.failed > 0 ? 4 : 0;
   const notes = noteLines(r);
   const failures = r.rowErrors.map((e) => `error [${e.code}] in ${e.count} of ${r.rows} rows; first at row ${e.first.row + 1}: ${e.first.message}`);

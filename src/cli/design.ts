@@ -1,5 +1,6 @@
 import { FormulaError } from "../core/errors.js";
 import { designReportHtml, designReportMarkdown } from "../designs/report.js";
+import type { LongRunOptions } from "../core/progress.js";
 import { designTolerance, evaluateDesign } from "../designs/tools.js";
 import type { DesignSpec } from "../designs/spec.js";
 import { formatQuantity } from "../units/display.js";
@@ -23,6 +24,8 @@ export interface DesignCommandOptions {
   readonly report?: string | undefined;
   readonly markdown?: string | undefined;
   readonly date?: string | undefined;
+  /** Cancellation and progress of the tolerance run (the job thread's). */
+  readonly longRun?: LongRunOptions | undefined;
 }
 
 /** Largest design file read, in characters: a design is small; this bounds memory for a stray file. */
@@ -44,7 +47,7 @@ export function designCommand(o: DesignCommandOptions, files: DesignFiles, out: 
     throw new FormulaError("unparsable", { input: "file", value: o.file, detail: `not JSON: ${(e as Error).message}` });
   }
   const result = evaluateDesign(spec);
-  const tolerance = o.tolerance ? designTolerance(spec, { ...(o.samples !== undefined ? { samples: o.samples } : {}), ...(o.seed !== undefined ? { seed: o.seed } : {}) }) : undefined;
+  const tolerance = o.tolerance ? designTolerance(spec, { ...(o.samples !== undefined ? { samples: o.samples } : {}), ...(o.seed !== undefined ? { seed: o.seed } : {}), ...o.longRun }) : undefined;
   const reportOptions = { ...(tolerance ? { tolerance } : {}), ...(o.date ? { date: o.date } : {}) };
   if (o.report) files.writeText(o.report, designReportHtml(result, reportOptions));
   if (o.markdown) files.writeText(o.markdown, designReportMarkdown(result, reportOptions));

@@ -1,13 +1,22 @@
 #!/usr/bin/env node
 // The `emquant` command. All behaviour lives in run.ts (tested in-process and spawned);
-// chart.ts adds the charts (`--svg`), loading vega only when one is asked for.
+// chart.ts adds the charts (`--svg`), loading vega only when one is asked for; a long
+// command (sweep, tolerance, columns, design --tolerance) runs on a job thread with a
+// progress line and Ctrl-C (job.ts), without loading the formulas in this thread.
 import { readFileSync, writeFileSync } from "node:fs";
-import { runCliWithCharts } from "./chart.js";
+import { longCommand } from "./args.js";
 
-void runCliWithCharts(process.argv.slice(2), {
-  out: (text) => process.stdout.write(`${text}\n`),
-  err: (text) => process.stderr.write(`${text}\n`),
-  files: { readText: (path) => readFileSync(path, "utf8"), writeText: (path, text) => writeFileSync(path, text) },
-}).then((status) => {
-  process.exitCode = status;
+const argv = process.argv.slice(2);
+const long = longCommand(argv);
+const status: Promise<number> = long !== undefined
+  ? import("./job.js").then((job) => job.runLongCommand(argv, long))
+  : import("./chart.js").then((chart) =>
+      chart.runCliWithCharts(argv, {
+        out: (text) => process.stdout.write(`${text}\n`),
+        err: (text) => process.stderr.write(`${text}\n`),
+        files: { readText: (path) => readFileSync(path, "utf8"), writeText: (path, text) => writeFileSync(path, text) },
+      }),
+    );
+void status.then((s) => {
+  process.exitCode = s;
 });

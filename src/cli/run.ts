@@ -1,4 +1,6 @@
 import { FormulaError } from "../core/errors.js";
+import type { LongRunOptions } from "../core/progress.js";
+import { type Parsed, parseArgs, UsageError } from "./args.js";
 import { evaluate } from "../core/evaluate.js";
 import { getFormula, listFormulas } from "../core/registry.js";
 import type { InputSpec, Note } from "../core/spec.js";
@@ -26,6 +28,12 @@ export interface CliIO {
    * runCliWithCharts in chart.ts, which loads vega). Without it, `--svg` is a usage error.
    */
   chart?(spec: Record<string, unknown>, path: string): void;
+  /**
+   * Cancellation and progress for the long commands (sweep, tolerance, columns,
+   * design --tolerance), passed to the library call; the job thread (job.ts)
+   * sets it. Without it those calls run as before.
+   */
+  longRun?: LongRunOptions;
 }
 
 const USAGE = `emquant: electromagnetics formulas with units
@@ -74,46 +82,6 @@ one period) the same way with any number of samples: waveform="[0, 0.1, 0, -0.1]
 or waveform=0,0.1,0,-0.1 (plain numbers are SI).
 Warnings and cautions are printed with every result; sweeps and tolerance
 analyses say how many points raised each one and where it was worst.`;
-
-interface Parsed {
-  positional: string[];
-  pairs: [string, string][];
-  flags: Map<string, string | true>;
-}
-
-const VALUE_FLAGS = new Set(["samples", "seed", "points", "range", "report", "md", "date", "svg"]);
-const BOOL_FLAGS = new Set(["json", "log", "csv", "chart", "help", "version", "tolerance"]);
-
-class UsageError extends Error {}
-
-function parseArgs(argv: readonly string[]): Parsed {
-  const positional: string[] = [];
-  const pairs: [string, string][] = [];
-  const flags = new Map<string, string | true>();
-  for (let i = 0; i < argv.length; i++) {
-    const a = argv[i]!;
-    if (a.startsWith("--")) {
-      const [k, inline] = a.slice(2).split("=", 2) as [string, string | undefined];
-      if (VALUE_FLAGS.has(k)) {
-        const v = inline ?? argv[++i];
-        if (v === undefined) throw new UsageError(`--${k} needs a value`);
-        flags.set(k, v);
-      } else if (BOOL_FLAGS.has(k)) {
-        flags.set(k, true);
-      } else {
-        throw new UsageError(`unknown option --${k}`);
-      }
-    } else if (a === "-h") {
-      flags.set("help", true);
-    } else if (/^[A-Za-z_][A-Za-z0-9_]*=/.test(a)) {
-      const eq = a.indexOf("=");
-      pairs.push([a.slice(0, eq), a.slice(eq + 1)]);
-    } else {
-      positional.push(a);
-    }
-  }
-  return { positional, pairs, flags };
-}
 
 function intFlag(p: Parsed, name: string): number | undefined {
   const v = p.flags.get(name);
@@ -237,7 +205,7 @@ export function runCli(argv: readonly string[], io: CliIO): number {
         if (!io.files) throw new UsageError("columns needs file access");
         const id = p.positional[0]!;
         return columnsCommand(
-          { formula: id, file: p.positional[1]!, fixed: inputsFrom(id, p.pairs), json, csv: p.flags.has("csv") },
+          { formula: id, file: p.positional[1]!, fixed: inputsFrom(id, p.pairs), json, csv: p.flags.has("csv"), longRun: io.longRun },
           io.files,
           io,
           (r) => summaryText(r.notes, r.rows - r.failed, Object.fromEntries(Object.entries(getFormula(id).definition.inputs as Record<string, InputSpec>).map(([k, s]) => [k, unitOf(s)])), "rows"),
@@ -252,6 +220,7 @@ export function runCli(argv: readonly string[], io: CliIO): number {
           {
             file: p.positional[0]!, json, tolerance: p.flags.has("tolerance"), samples: intFlag(p, "samples"), seed: intFlag(p, "seed"),
             report: p.flags.get("report") as string | undefined, markdown: p.flags.get("md") as string | undefined, date: date as string | undefined,
+            longRun: io.longRun,
           },
           io.files,
           (t) => io.out(t),
@@ -409,7 +378,7 @@ function toleranceCommand(p: Parsed, io: CliIO, json: boolean): number {
   }
   const samples = intFlag(p, "samples");
   const seed = intFlag(p, "seed");
-  const r = toleranceRequest({ formula: id, inputs, options: { ...(samples !== undefined ? { samples } : {}), ...(seed !== undefined ? { seed } : {}) } });
+  const r = toleranceRequest({ formula: id, inputs, options: { ...(samples !== undefined ? { samples } : {}), ...(seed !== undefined ? { seed } : {}) } }, io.longRun);
   if (json) {
     io.out(JSON.stringify(r, null, 2));
     return 0;
@@ -460,7 +429,7 @@ function sweepCommand(p: Parsed, io: CliIO, json: boolean): number {
   if (Object.keys(vary).length === 0) throw new UsageError('give one or two inputs as name=from..to, e.g. gap="0.1 mm..1 mm"');
   const svg = p.flags.get("svg");
   if (typeof svg === "string" && !io.chart) throw new UsageError("--svg is available from the emquant command (runCliWithCharts)");
-  const r = sweepRequest({ formula: id, vary, fixed: inputsFrom(id, fixedPairs) });
+  const r = sweepRequest({ formula: id, vary, fixed: inputsFrom(id, fixedPairs) }, io.longRun);
   if (typeof svg === "string") io.chart!(sweepToVegaLite(r), svg);
   const units = Object.fromEntries(r.axes.map((a) => [a.name, a.unit]));
   const summary = summaryText(r.notes, r.computed.length - r.notComputed, units);

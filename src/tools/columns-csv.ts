@@ -1,5 +1,6 @@
 import { FormulaError } from "../core/errors.js";
 import { type AnyFormula, isFormula } from "../core/formula.js";
+import type { LongRunOptions } from "../core/progress.js";
 import { getFormula } from "../core/registry.js";
 import { type ColumnsOptions, type ColumnsResult, evaluateColumns, MAX_COLUMN_ROWS, ROW_ERROR_CODES } from "./columns.js";
 import type { UnitColumn } from "./columns-read.js";

@@ -3,6 +3,7 @@ import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 import { parseToleranceText, runCli } from "../../src/cli/run.js";
+import { spawnCli } from "../helpers/spawn-cli.js";
 import { listFormulas } from "../../src/core/registry.js";
 import type { InputSpec } from "../../src/core/spec.js";
 
@@ -14,19 +15,6 @@ function cli(...args: string[]): { status: number; out: string; err: string } {
   let err = "";
   const status = runCli(args, { out: (t) => (out += `${t}\n`), err: (t) => (err += `${t}\n`) });
   return { status, out, err };
-}
-
-/** Run the CLI as a process (node with the tsx loader on the source; no build needed). */
-function spawnCli(...args: string[]): Promise<{ status: number | null; stdout: string; stderr: string }> {
-  return new Promise((resolve, reject) => {
-    const child = spawn(process.execPath, ["--import", "tsx", "src/cli/main.ts", ...args], { cwd: root });
-    let stdout = "";
-    let stderr = "";
-    child.stdout.setEncoding("utf8").on("data", (t: string) => (stdout += t));
-    child.stderr.setEncoding("utf8").on("data", (t: string) => (stderr += t));
-    child.on("error", reject);
-    child.on("close", (status) => resolve({ status, stdout, stderr }));
-  });
 }
 
 /** Split a command line as a POSIX shell does for the lines the CLI prints (words, "double quotes"). */
