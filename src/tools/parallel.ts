@@ -10,6 +10,7 @@ import {
 import { defaultWorkers, poolAvailable, runOnPool } from "./pool.js";
 import { type PoolTask, rebuildError, type TaskOutcome } from "./pool-tasks.js";
 import { MONTE_CARLO_BLOCK } from "./random.js";
+import { borrowShared, giveBackShared } from "./shared-scratch.js";
 import { computePoints } from "./sweep-points.js";
 import { bindGrid, finishSweep, layoutSweep, planSweep, type SweepResult, type SweepSpec } from "./sweep.js";
 import { finishTolerance, type MonteCarloPart, monteCarloRange, planTolerance, type ToleranceOptions, type ToleranceResult, type ToleranceValue } from "./tolerance.js";
@@ -178,6 +179,10 @@ export async function sweepParallel<I extends InputSpecs, O extends OutputSpec>(
 
 /** biotSavart's options plus `out` (the output array) and `workers`. */
 export interface BiotSavartParallelOptions extends BiotSavartOptions, ParallelOptions {
+  /**
+   * Output array to fill. Over a SharedArrayBuffer, the worker threads write
+   * it in place; a plain one is filled from a shared copy.
+   */
   readonly out?: Float64Array;
 }
 
@@ -186,6 +191,9 @@ export interface BiotSavartParallelOptions extends BiotSavartOptions, ParallelOp
  * field and warnings, bit for bit, for any `workers` (an error names the first
  * bad point, as the synchronous call does). At MIN_PARALLEL_FIELD_PAIRS
  * segment-point pairs and more the pool is used; below, the calling thread.
+ * Points (and `out`) over a SharedArrayBuffer reach the threads without a
+ * copy; without `out`, the result made for a pooled call is a view into a
+ * SharedArrayBuffer (`slice()` it for a plain copy).
  */
 export async function biotSavartParallel(path: Float64Array, current: number, points: Float64Array, options: BiotSavartParallelOptions = {}): Promise<BiotSavartField> {
   const tool = "biotSavartParallel";
@@ -197,14 +205,21 @@ export async function biotSavartParallel(path: Float64Array, current: number, po
   if (out !== undefined && (!(out instanceof Float64Array) || out.length < points.length)) {
     throw new FormulaError("invalid_argument", { formula: "biotSavart", input: "out", detail: "output array is shorter than points" });
   }
-  const result = (out ?? new Float64Array(points.length)) as Float64Array & { warnings: readonly Note[] };
+  const pooled = np * (nv - 1) >= MIN_PARALLEL_FIELD_PAIRS;
+  // A new result array is shared when the pool fills it: the threads write it in place.
+  const result = (out ?? (pooled ? new Float64Array(new SharedArrayBuffer(points.length * 8)) : new Float64Array(points.length))) as Float64Array & { warnings: readonly Note[] };
   let found: InsideCount;
-  if (np * (nv - 1) < MIN_PARALLEL_FIELD_PAIRS) {
+  if (!pooled) {
     found = fieldRange(path, current, points, result, wireRadius, 0, np);
   } else {
+    // Arrays over a SharedArrayBuffer are handed to the threads as they are;
+    // plain ones are copied into reused shared buffers (shared-scratch.ts:
+    // a fresh buffer's first touch cost more than the field map itself).
     const sp = shared(path);
-    const spoints = shared(points);
-    const sout = new Float64Array(new SharedArrayBuffer(points.length * 8));
+    const isShared = (a: Float64Array): boolean => a.buffer instanceof SharedArrayBuffer;
+    const spoints = isShared(points) ? points : borrowShared(points.length);
+    if (spoints !== points) spoints.set(points);
+    const sout = isShared(result) ? result : borrowShared(points.length);
     const tasks: PoolTask[] = splitRange(np, workers).map(([start, end]) => ({ kind: "field", path: sp, current, points: spoints, out: sout, wireRadius, start, end }));
     const parts = await onPool<InsideCount>(tool, tasks, workers);
     let inside = 0;
@@ -214,7 +229,11 @@ export async function biotSavartParallel(path: Float64Array, current: number, po
       inside += p.inside;
     }
     found = { inside, first };
-    result.set(sout);
+    if (sout !== result) {
+      result.set(sout.subarray(0, points.length));
+      giveBackShared(sout);
+    }
+    if (spoints !== points) giveBackShared(spoints);
   }
   result.warnings = fieldWarnings(found, np, wireRadius);
   return result;
