@@ -58,7 +58,7 @@ export const MIN_PARALLEL_SEGMENT_PAIRS = 5_000;
 const CHUNKS_PER_WORKER = 4;
 
 /** The worker count asked for, checked; undefined means the default. */
-function readWorkers(tool: string, options: ParallelOptions | undefined): number {
+export function readWorkers(tool: string, options: ParallelOptions | undefined): number {
   if (options !== undefined && (typeof options !== "object" || options === null)) {
     throw new FormulaError("invalid_argument", { formula: tool, input: "options", detail: "options is an object" });
   }
@@ -99,7 +99,7 @@ async function onPool<T>(tool: string, tasks: readonly PoolTask[], workers: numb
 }
 
 /** Workers load formulas by id, so a parallel call needs the registry's own formula. */
-function registryFormula(tool: string, formula: AnyFormula | string): AnyFormula {
+export function registryFormula(tool: string, formula: AnyFormula | string): AnyFormula {
   if (typeof formula === "string") return getFormula(formula);
   const f = formula;
   let found: AnyFormula | undefined;

@@ -3,6 +3,7 @@ import { getFormula } from "../core/registry.js";
 import type { QuantityInput } from "../core/spec.js";
 import { fieldRange, type InsideCount } from "../flux/biot-savart.js";
 import { mutualRows, segments, selfRows } from "../inductance/neumann.js";
+import { type ColumnsPart, columnsRange, type ColumnsTaskData } from "./columns-task.js";
 import { bind, specsOf } from "./convert.js";
 import { computePoints } from "./sweep-points.js";
 import { bindGrid, layoutSweep, planSweep, type SweepSpec } from "./sweep.js";
@@ -24,7 +25,8 @@ export type PoolTask =
   | { readonly kind: "sweep"; readonly formula: string; readonly spec: SweepSpec; readonly buffer: SharedArrayBuffer; readonly start: number; readonly end: number }
   | { readonly kind: "field"; readonly path: Float64Array; readonly current: number; readonly points: Float64Array; readonly out: Float64Array; readonly wireRadius: number; readonly start: number; readonly end: number }
   | { readonly kind: "mutual"; readonly pathA: Float64Array; readonly pathB: Float64Array; readonly maxDepth: number; readonly start: number; readonly end: number }
-  | { readonly kind: "self"; readonly path: Float64Array; readonly maxDepth: number; readonly start: number; readonly end: number };
+  | { readonly kind: "self"; readonly path: Float64Array; readonly maxDepth: number; readonly start: number; readonly end: number }
+  | { readonly kind: "columns"; readonly table: ColumnsTaskData; readonly start: number; readonly end: number };
 
 /** A FormulaError as data: rebuilt in the calling thread with its code, fields and message. */
 export interface ErrorData {
@@ -34,7 +36,7 @@ export interface ErrorData {
 }
 
 export type TaskOutcome =
-  | { readonly ok: true; readonly value: MonteCarloPart | number | InsideCount | Float64Array }
+  | { readonly ok: true; readonly value: MonteCarloPart | number | InsideCount | Float64Array | ColumnsPart }
   | { readonly ok: false; readonly error: ErrorData };
 
 /** Runs one task; a FormulaError comes back as data (see rebuildError), anything else is thrown. */
@@ -55,7 +57,7 @@ export function rebuildError(d: ErrorData): FormulaError {
   return e;
 }
 
-function compute(task: PoolTask): MonteCarloPart | number | InsideCount | Float64Array {
+function compute(task: PoolTask): MonteCarloPart | number | InsideCount | Float64Array | ColumnsPart {
   switch (task.kind) {
     case "tolerance": {
       const formula = getFormula(task.formula);
@@ -77,5 +79,7 @@ function compute(task: PoolTask): MonteCarloPart | number | InsideCount | Float6
       return mutualRows(segments(task.pathA, "pathA", "mutualInductance"), segments(task.pathB, "pathB", "mutualInductance"), task.maxDepth, task.start, task.end);
     case "self":
       return selfRows(segments(task.path, "path", "polylineSelfInductance"), task.maxDepth, task.start, task.end);
+    case "columns":
+      return columnsRange(task.table, task.start, task.end);
   }
 }
