@@ -104,6 +104,19 @@ export async function run(): Promise<BenchRow[]> {
   );
   rows.push({ name: "field map 1e6 points x 16 segments (biotSavart): 2 workers", value: `${map.speedUp.toFixed(2)}x`, note: `speed-up (target >= 1.7x); ${detail(map)}; ${load()}` });
 
+  // A table of 1e6 parts: evaluateColumns against columnsParallel, output arrays reused by both.
+  const rowsN = 1_000_000;
+  const area = Float64Array.from({ length: rowsN }, (_, i) => 1e-6 * (1 + ((i * 7919) % 1000)));
+  const gapCol = Float64Array.from({ length: rowsN }, (_, i) => 1e-6 * (1 + ((i * 104729) % 3000)));
+  const colOut = new Float64Array(rowsN);
+  const colErrors = new Uint8Array(rowsN);
+  const cols = await pair(
+    () => lib.evaluateColumns(lib.parallelPlateCapacitance, { area, gap: gapCol }, { output: colOut, errors: colErrors }),
+    () => lib.columnsParallel(lib.parallelPlateCapacitance, { area, gap: gapCol }, { output: colOut, errors: colErrors, workers: 2 }),
+    5,
+  );
+  rows.push({ name: "columns 1e6 rows (parallelPlateCapacitance): 2 workers", value: `${cols.speedUp.toFixed(2)}x`, note: `speed-up; ${detail(cols)}; ${load()}` });
+
   // Small jobs: at and above the pool's thresholds (below them the parallel entries run in the calling thread).
   for (const k of [1, 2, 5]) {
     const samples = k * lib.MIN_PARALLEL_SAMPLES;
