@@ -5,38 +5,18 @@
 // synchronous call is the reference.
 import { afterAll, describe, expect, it } from "vitest";
 import { parallelPlateCapacitance } from "../../src/capacitance/index.js";
-import { FormulaError } from "../../src/core/errors.js";
 import type { Progress } from "../../src/core/progress.js";
-import { type ColumnsResult, evaluateColumns, MAX_COLUMN_ROWS } from "../../src/tools/columns.js";
+import { evaluateColumns, MAX_COLUMN_ROWS } from "../../src/tools/columns.js";
 import { columnsParallel, MIN_PARALLEL_ROWS } from "../../src/tools/columns-parallel.js";
 import { MAX_WORKERS } from "../../src/tools/parallel.js";
 import { closeWorkers, workerThreads } from "../../src/tools/pool.node.js";
+import { expectSameColumns } from "../helpers/columns.js";
+import { expectRejection } from "../helpers/errors.js";
 
 afterAll(async () => {
   await closeWorkers();
   expect(workerThreads()).toBe(0);
 });
-
-async function rejection(p: Promise<unknown>): Promise<FormulaError> {
-  try {
-    await p;
-  } catch (e) {
-    expect(e).toBeInstanceOf(FormulaError);
-    return e as FormulaError;
-  }
-  return expect.fail("expected a FormulaError");
-}
-
-const bytes = (a: Float64Array | Uint8Array): Buffer => Buffer.from(a.buffer, a.byteOffset, a.byteLength);
-
-/** The same result, bit for bit: arrays by their bytes, the rest by strict equality. */
-function expectSame(r: ColumnsResult, one: ColumnsResult, label: string): void {
-  expect(Buffer.compare(bytes(r.output.values), bytes(one.output.values)), `${label}: values`).toBe(0);
-  for (const [k, c] of Object.entries(one.output.components ?? {})) expect(Buffer.compare(bytes(r.output.components![k]!), bytes(c)), `${label}: ${k}`).toBe(0);
-  expect(Buffer.compare(bytes(r.errors), bytes(one.errors)), `${label}: errors`).toBe(0);
-  const rest = (x: ColumnsResult): unknown => ({ ...x, output: { ...x.output, values: undefined, components: undefined }, errors: undefined });
-  expect(rest(r), label).toStrictEqual(rest(one));
-}
 
 const N = MIN_PARALLEL_ROWS + 1234;
 
@@ -60,14 +40,14 @@ describe("columnsParallel gives evaluateColumns' result bit for bit", { timeout:
     const one = evaluateColumns(parallelPlateCapacitance, inputs);
     expect(one.failed).toBe(5);
     expect(one.notes.length).toBeGreaterThan(0);
-    for (const workers of [1, 2, 3]) expectSame(await columnsParallel(parallelPlateCapacitance, inputs, { workers }), one, `workers ${workers}`);
+    for (const workers of [1, 2, 3]) expectSameColumns(await columnsParallel(parallelPlateCapacitance, inputs, { workers }), one, `workers ${workers}`);
     expect(workerThreads()).toBeGreaterThan(0);
   });
 
   it("choice columns and outputs with components", async () => {
     const shapes = ["square", "hexagonal", "octagonal", "circular", "triangle", ""];
     const spiral = { outerDiameter: 2e-3, innerDiameter: 1e-3, turns: 5, shape: Array.from({ length: N }, (_, i) => shapes[i % shapes.length]!) };
-    expectSame(await columnsParallel("planarSpiralInductance", spiral, { workers: 2 }), evaluateColumns("planarSpiralInductance", spiral), "choices");
+    expectSameColumns(await columnsParallel("planarSpiralInductance", spiral, { workers: 2 }), evaluateColumns("planarSpiralInductance", spiral), "choices");
     const field = {
       current: 1, radius: 0.1,
       radialDistance: Float64Array.from({ length: N }, (_, i) => (i % 1001) * 2e-4),
@@ -76,7 +56,7 @@ describe("columnsParallel gives evaluateColumns' result bit for bit", { timeout:
     const one = evaluateColumns("loopField", field);
     expect(one.failed).toBeGreaterThan(0); // points on the wire
     const r = await columnsParallel("loopField", field, { workers: 3 });
-    expectSame(r, one, "components");
+    expectSameColumns(r, one, "components");
     expect(r.output.values).toBe(r.output.components!.radial);
   });
 
@@ -93,7 +73,7 @@ describe("columnsParallel gives evaluateColumns' result bit for bit", { timeout:
       const r = await columnsParallel(parallelPlateCapacitance, inputs, { output, errors, from, to, workers: 2 });
       expect(r.output.values).toBe(output);
       expect(r.errors).toBe(errors);
-      expectSame(r, one, shared ? "shared arrays" : "plain arrays");
+      expectSameColumns(r, one, shared ? "shared arrays" : "plain arrays");
     }
   });
 
@@ -102,7 +82,7 @@ describe("columnsParallel gives evaluateColumns' result bit for bit", { timeout:
     const gap = new Float64Array(new SharedArrayBuffer(N * 8)).map((_, i) => (i === 77 ? -1 : 1e-5 * (1 + (i % 300))));
     const before = [area.slice(), gap.slice()];
     const one = evaluateColumns(parallelPlateCapacitance, { area, gap });
-    expectSame(await columnsParallel(parallelPlateCapacitance, { area, gap }, { workers: 2 }), one, "shared columns");
+    expectSameColumns(await columnsParallel(parallelPlateCapacitance, { area, gap }, { workers: 2 }), one, "shared columns");
     expect([area, gap]).toEqual(before);
   });
 });
@@ -110,22 +90,22 @@ describe("columnsParallel gives evaluateColumns' result bit for bit", { timeout:
 describe("columnsParallel: bounds, progress and cancellation", { timeout: 300_000 }, () => {
   it("refuses a worker count that is not a whole number from 1 to MAX_WORKERS, naming workers", async () => {
     for (const workers of [0, 1.5, MAX_WORKERS + 1, Number.NaN, "2"]) {
-      const e = await rejection(columnsParallel(parallelPlateCapacitance, { area: [1e-4], gap: [1e-3] }, { workers: workers as number }));
+      const e = await expectRejection(columnsParallel(parallelPlateCapacitance, { area: [1e-4], gap: [1e-3] }, { workers: workers as number }));
       expect([e.code, e.input], String(workers)).toEqual(["invalid_argument", "workers"]);
     }
   });
 
   it("refuses a column longer than MAX_COLUMN_ROWS, naming it, before reading any cell", async () => {
-    const e = await rejection(columnsParallel(parallelPlateCapacitance, { area: 1e-4, gap: new Float64Array(MAX_COLUMN_ROWS + 1) }, { workers: 2 }));
+    const e = await expectRejection(columnsParallel(parallelPlateCapacitance, { area: 1e-4, gap: new Float64Array(MAX_COLUMN_ROWS + 1) }, { workers: 2 }));
     expect([e.code, e.input]).toEqual(["invalid_argument", "gap"]);
   });
 
   it("names bad inputs and options as evaluateColumns does", async () => {
-    const e = await rejection(columnsParallel(parallelPlateCapacitance, { area: [1e-4, 2e-4], gap: [1e-3] }));
+    const e = await expectRejection(columnsParallel(parallelPlateCapacitance, { area: [1e-4, 2e-4], gap: [1e-3] }));
     expect([e.code, e.input]).toEqual(["invalid_argument", "gap"]);
-    const f = await rejection(columnsParallel(parallelPlateCapacitance, { area: [1e-4], gap: [1e-3] }, { from: 2 }));
+    const f = await expectRejection(columnsParallel(parallelPlateCapacitance, { area: [1e-4], gap: [1e-3] }, { from: 2 }));
     expect([f.code, f.input]).toEqual(["invalid_argument", "from"]);
-    const g = await rejection(columnsParallel(parallelPlateCapacitance, { area: [1e-4], gap: [1e-3] }, { onProgress: 3 as never }));
+    const g = await expectRejection(columnsParallel(parallelPlateCapacitance, { area: [1e-4], gap: [1e-3] }, { onProgress: 3 as never }));
     expect([g.code, g.input]).toEqual(["invalid_argument", "onProgress"]);
   });
 
@@ -135,7 +115,7 @@ describe("columnsParallel: bounds, progress and cancellation", { timeout: 300_00
       const seen: Progress[] = [];
       const part = rows === N ? inputs : { area: (inputs.area as Float64Array).subarray(0, rows), gap: (inputs.gap as string[]).slice(0, rows) };
       const r = await columnsParallel(parallelPlateCapacitance, part, { workers, onProgress: (p) => seen.push(p) });
-      expectSame(r, evaluateColumns(parallelPlateCapacitance, part), `progress, ${rows} rows`);
+      expectSameColumns(r, evaluateColumns(parallelPlateCapacitance, part), `progress, ${rows} rows`);
       expect(seen.at(-1)).toEqual({ fraction: 1, done: rows, total: rows });
       for (let i = 1; i < seen.length; i++) expect(seen[i]!.done).toBeGreaterThanOrEqual(seen[i - 1]!.done);
     }
@@ -145,17 +125,17 @@ describe("columnsParallel: bounds, progress and cancellation", { timeout: 300_00
     const inputs = table();
     const before = new AbortController();
     before.abort("stop");
-    const a = await rejection(columnsParallel(parallelPlateCapacitance, inputs, { signal: before.signal, workers: 2 }));
+    const a = await expectRejection(columnsParallel(parallelPlateCapacitance, inputs, { signal: before.signal, workers: 2 }));
     expect([a.code, a.cause]).toEqual(["cancelled", "stop"]);
     for (const rows of [N, MIN_PARALLEL_ROWS - 1]) {
       const c = new AbortController();
       const part = { area: (inputs.area as Float64Array).subarray(0, rows), gap: (inputs.gap as string[]).slice(0, rows) };
-      const e = await rejection(columnsParallel(parallelPlateCapacitance, part, { signal: c.signal, workers: 2, onProgress: () => c.abort() }));
+      const e = await expectRejection(columnsParallel(parallelPlateCapacitance, part, { signal: c.signal, workers: 2, onProgress: () => c.abort() }));
       expect(e.code, `${rows} rows`).toBe("cancelled");
     }
     const c = new AbortController();
     const p = columnsParallel(parallelPlateCapacitance, inputs, { signal: c.signal, workers: 1 });
     setImmediate(() => c.abort());
-    expect((await rejection(p)).code).toBe("cancelled");
+    expect((await expectRejection(p)).code).toBe("cancelled");
   });
 });

@@ -1,6 +1,7 @@
 import { describe, expect, it } from "vitest";
-import { type ColumnsResult, evaluateColumns } from "../../src/tools/columns.js";
+import { evaluateColumns } from "../../src/tools/columns.js";
 import { type ColumnsShardRequest, type ColumnsShardResult, mergeShards, planShards, runShard } from "../../src/tools/shards.js";
+import { expectSameColumns } from "../helpers/columns.js";
 import { expectFormulaError } from "../helpers/errors.js";
 
 // Columns shards travel as JSON, as a job queue would send them: each shard
@@ -31,16 +32,6 @@ const loops: ColumnsShardRequest = {
   inputs: { current: 1, radius: 0.1, radialDistance: Array.from({ length: 257 }, (_, i) => (i % 11) * 0.02), axialDistance: Array.from({ length: 257 }, (_, i) => ((i % 5) - 2) * 0.01) },
 };
 
-const bytes = (a: Float64Array | Uint8Array): Buffer => Buffer.from(a.buffer, a.byteOffset, a.byteLength);
-
-function expectSame(r: ColumnsResult, one: ColumnsResult, label: string): void {
-  expect(Buffer.compare(bytes(r.output.values), bytes(one.output.values)), `${label}: values`).toBe(0);
-  for (const [k, c] of Object.entries(one.output.components ?? {})) expect(Buffer.compare(bytes(r.output.components![k]!), bytes(c)), `${label}: ${k}`).toBe(0);
-  expect(Buffer.compare(bytes(r.errors), bytes(one.errors)), `${label}: errors`).toBe(0);
-  const rest = (x: ColumnsResult): unknown => ({ ...x, output: { ...x.output, values: undefined, components: undefined }, errors: undefined });
-  expect(rest(r), label).toStrictEqual(rest(one));
-}
-
 describe("columns shards", () => {
   it("merge a table split into 1, 2, 3 and 7 shards, arriving in any order, into one run's result", () => {
     for (const request of [plates, spirals, loops]) {
@@ -51,7 +42,7 @@ describe("columns shards", () => {
       }
       for (const count of [1, 2, 3, 7]) {
         const results = planShards(request, count).map((s) => viaJson(runShard(viaJson(s)))).reverse();
-        expectSame(mergeShards(results), one, `${request.formula}, ${count} shards`);
+        expectSameColumns(mergeShards(results), one, `${request.formula}, ${count} shards`);
       }
     }
   });
