@@ -12,29 +12,58 @@ import { type BenchRow, median, sink } from "./util.js";
 
 type Lib = typeof import("../src/index.js");
 
-async function timeIt(f: () => Promise<unknown> | unknown): Promise<number> {
+/** Wall time and the process's CPU time (all threads, user + system), ms. */
+async function timeIt(f: () => Promise<unknown> | unknown): Promise<{ wall: number; cpu: number }> {
+  const c0 = process.cpuUsage();
   const t0 = process.hrtime.bigint();
   const v = await f();
+  const wall = Number(process.hrtime.bigint() - t0) / 1e6;
+  const c = process.cpuUsage(c0);
   sink(typeof v === "number" ? v : 1);
-  return Number(process.hrtime.bigint() - t0) / 1e6;
+  return { wall, cpu: (c.user + c.system) / 1000 };
 }
 
-/** Median ms of each, and the median over rounds of (sync time / parallel time). */
-async function pair(sync: () => unknown, par: () => Promise<unknown>, rounds: number): Promise<{ sync: number; par: number; speedUp: number }> {
+interface Pair {
+  readonly sync: number;
+  readonly par: number;
+  readonly speedUp: number;
+  /** Median CPU ms of each. */
+  readonly syncCpu: number;
+  readonly parCpu: number;
+  /** Median cores the process got while running each (CPU time / wall time). */
+  readonly syncCores: number;
+  readonly parCores: number;
+}
+
+/**
+ * Median ms of each, and the median over rounds of (sync time / parallel
+ * time); with the CPU time of each and the cores the process got. On a
+ * machine with more runnable threads than cores the scheduler gives the
+ * process a share (Linux groups threads by session, sched_autogroup), and a
+ * second thread then gains nothing: the cores columns show it.
+ */
+async function pair(sync: () => unknown, par: () => Promise<unknown>, rounds: number): Promise<Pair> {
   const s: number[] = [];
   const p: number[] = [];
   const r: number[] = [];
+  const sc: number[] = [];
+  const pc: number[] = [];
   for (let i = 0; i < rounds; i++) {
     const a = await timeIt(sync);
     const b = await timeIt(par);
-    s.push(a);
-    p.push(b);
-    r.push(a / b);
+    s.push(a.wall);
+    p.push(b.wall);
+    r.push(a.wall / b.wall);
+    sc.push(a.cpu);
+    pc.push(b.cpu);
   }
-  return { sync: median(s), par: median(p), speedUp: median(r) };
+  const cores = (cpu: number[], wall: number[]): number => median(cpu.map((c, i) => c / wall[i]!));
+  return { sync: median(s), par: median(p), speedUp: median(r), syncCpu: median(sc), parCpu: median(pc), syncCores: cores(sc, s), parCores: cores(pc, p) };
 }
 
 const ms = (v: number): string => (v >= 1000 ? `${(v / 1000).toFixed(2)} s` : `${v.toFixed(1)} ms`);
+/** Wall times, CPU times and cores of a pair, for a row's note. */
+const detail = (x: Pair): string => `${ms(x.sync)} -> ${ms(x.par)}; CPU ${ms(x.syncCpu)} -> ${ms(x.parCpu)}, cores used ${x.syncCores.toFixed(2)} -> ${x.parCores.toFixed(2)}`;
 
 export async function run(): Promise<BenchRow[]> {
   let lib: Lib;
@@ -52,7 +81,7 @@ export async function run(): Promise<BenchRow[]> {
   } as const;
 
   // Pool start-up: the first parallel call starts two threads, each loading the library.
-  const cold = await timeIt(() => lib.toleranceParallel(coil, inputs, { samples: lib.MIN_PARALLEL_SAMPLES, workers: 2 }));
+  const cold = (await timeIt(() => lib.toleranceParallel(coil, inputs, { samples: lib.MIN_PARALLEL_SAMPLES, workers: 2 }))).wall;
   rows.push({ name: "pool start-up (2 threads, first call)", value: ms(cold), note: `a ${lib.MIN_PARALLEL_SAMPLES}-sample Monte Carlo including thread start; ${load()}` });
 
   const big = await pair(
@@ -60,7 +89,7 @@ export async function run(): Promise<BenchRow[]> {
     () => lib.toleranceParallel(coil, inputs, { samples: 1e6, workers: 2 }),
     3,
   );
-  rows.push({ name: "Monte Carlo 1e6 samples, coaxialCoilsMutualInductance: 2 workers", value: `${big.speedUp.toFixed(2)}x`, note: `speed-up (target >= 1.7x); ${ms(big.sync)} -> ${ms(big.par)}; ${load()}` });
+  rows.push({ name: "Monte Carlo 1e6 samples, coaxialCoilsMutualInductance: 2 workers", value: `${big.speedUp.toFixed(2)}x`, note: `speed-up (target >= 1.7x); ${detail(big)}; ${load()}` });
 
   const loop = new Float64Array(3 * 17);
   for (let i = 0; i <= 16; i++) loop.set([0.05 * Math.cos((2 * Math.PI * i) / 16), 0.05 * Math.sin((2 * Math.PI * i) / 16), 0], 3 * i);
@@ -73,25 +102,38 @@ export async function run(): Promise<BenchRow[]> {
     () => lib.biotSavartParallel(loop, 1, points, { out, workers: 2 }),
     5,
   );
-  rows.push({ name: "field map 1e6 points x 16 segments (biotSavart): 2 workers", value: `${map.speedUp.toFixed(2)}x`, note: `speed-up (target >= 1.7x); ${ms(map.sync)} -> ${ms(map.par)}; ${load()}` });
+  rows.push({ name: "field map 1e6 points x 16 segments (biotSavart): 2 workers", value: `${map.speedUp.toFixed(2)}x`, note: `speed-up (target >= 1.7x); ${detail(map)}; ${load()}` });
+
+  // A table of 1e6 parts: evaluateColumns against columnsParallel, output arrays reused by both.
+  const rowsN = 1_000_000;
+  const area = Float64Array.from({ length: rowsN }, (_, i) => 1e-6 * (1 + ((i * 7919) % 1000)));
+  const gapCol = Float64Array.from({ length: rowsN }, (_, i) => 1e-6 * (1 + ((i * 104729) % 3000)));
+  const colOut = new Float64Array(rowsN);
+  const colErrors = new Uint8Array(rowsN);
+  const cols = await pair(
+    () => lib.evaluateColumns(lib.parallelPlateCapacitance, { area, gap: gapCol }, { output: colOut, errors: colErrors }),
+    () => lib.columnsParallel(lib.parallelPlateCapacitance, { area, gap: gapCol }, { output: colOut, errors: colErrors, workers: 2 }),
+    5,
+  );
+  rows.push({ name: "columns 1e6 rows (parallelPlateCapacitance): 2 workers", value: `${cols.speedUp.toFixed(2)}x`, note: `speed-up; ${detail(cols)}; ${load()}` });
 
   // Small jobs: at and above the pool's thresholds (below them the parallel entries run in the calling thread).
   for (const k of [1, 2, 5]) {
     const samples = k * lib.MIN_PARALLEL_SAMPLES;
     const r = await pair(() => lib.tolerance(coil, inputs, { samples }), () => lib.toleranceParallel(coil, inputs, { samples, workers: 2 }), 7);
-    rows.push({ name: `small job: Monte Carlo ${samples} samples, 2 workers`, value: `${r.speedUp.toFixed(2)}x`, note: `speed-up (below 1: the pool does not pay); ${ms(r.sync)} -> ${ms(r.par)}; ${load()}` });
+    rows.push({ name: `small job: Monte Carlo ${samples} samples, 2 workers`, value: `${r.speedUp.toFixed(2)}x`, note: `speed-up (below 1: the pool does not pay); ${detail(r)}; ${load()}` });
   }
   for (const k of [1, 4]) {
     const pts = (k * lib.MIN_PARALLEL_FIELD_PAIRS) / 16;
     const sub = points.subarray(0, 3 * Math.round(pts));
     const r = await pair(() => lib.biotSavart(loop, 1, sub), () => lib.biotSavartParallel(loop, 1, sub, { workers: 2 }), 7);
-    rows.push({ name: `small job: field map ${sub.length / 3} points x 16 segments, 2 workers`, value: `${r.speedUp.toFixed(2)}x`, note: `speed-up; ${ms(r.sync)} -> ${ms(r.par)}; ${load()}` });
+    rows.push({ name: `small job: field map ${sub.length / 3} points x 16 segments, 2 workers`, value: `${r.speedUp.toFixed(2)}x`, note: `speed-up; ${detail(r)}; ${load()}` });
   }
   for (const k of [1, 4]) {
     const pointsN = k * lib.MIN_PARALLEL_POINTS;
     const spec = { vary: { gap: { from: 1e-5, to: 1e-3, points: pointsN } }, fixed: { area: 1e-4 } };
     const r = await pair(() => lib.sweep(lib.parallelPlateCapacitance, spec), () => lib.sweepParallel(lib.parallelPlateCapacitance, spec, { workers: 2 }), 7);
-    rows.push({ name: `small job: sweep ${pointsN} points (parallelPlateCapacitance), 2 workers`, value: `${r.speedUp.toFixed(2)}x`, note: `speed-up; ${ms(r.sync)} -> ${ms(r.par)}; ${load()}` });
+    rows.push({ name: `small job: sweep ${pointsN} points (parallelPlateCapacitance), 2 workers`, value: `${r.speedUp.toFixed(2)}x`, note: `speed-up; ${detail(r)}; ${load()}` });
   }
   await lib.closeWorkers();
   return rows;

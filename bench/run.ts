@@ -30,7 +30,9 @@ const modules: [string, BenchModule][] = [
 
 async function main(): Promise<void> {
   const rows: BenchRow[] = [];
-  for (const [name, m] of modules) {
+  // `npm run bench -- parallel columns` runs only the modules named (file names in bench/).
+  const only = process.argv.slice(2);
+  for (const [name, m] of modules.filter(([n]) => only.length === 0 || only.includes(n))) {
     try {
       rows.push(...(await m.run()));
     } catch (e) {

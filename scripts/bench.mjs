@@ -44,5 +44,5 @@ await build({
   logLevel: "warning",
 });
 
-const r = spawnSync(process.execPath, [resolve(root, "out/bench.mjs")], { stdio: "inherit", cwd: root });
+const r = spawnSync(process.execPath, [resolve(root, "out/bench.mjs"), ...process.argv.slice(2)], { stdio: "inherit", cwd: root });
 process.exit(r.status ?? 1);

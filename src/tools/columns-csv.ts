@@ -4,7 +4,6 @@ import type { LongRunOptions } from "../core/progress.js";
 import { getFormula } from "../core/registry.js";
 import { type ColumnsOptions, type ColumnsResult, evaluateColumns, MAX_COLUMN_ROWS, ROW_ERROR_CODES } from "./columns.js";
 import type { UnitColumn } from "./columns-read.js";
-import type { LongRunOptions } from "../core/progress.js";
 
 /*
  * CSV text in and out of evaluateColumns. The header names the inputs; a

@@ -3,7 +3,7 @@ import { FormulaError } from "../core/errors.js";
 import { type AnyFormula, type Formula, isFormula } from "../core/formula.js";
 import { getFormula } from "../core/registry.js";
 import type { InputSpecs, OutputSpec } from "../core/spec.js";
-import { type ColumnShape, runRows } from "./columns-loop.js";
+import { type ColumnShape, type Rows, runRows } from "./columns-loop.js";
 import { MAX_COLUMN_ROWS, probeValue, type ReadColumns, readColumns, ROW_ERROR_CODES, type UnitColumn } from "./columns-read.js";
 import { bind, siUnit } from "./convert.js";
 import { noteConditions, noteSummary, type NoteSummary } from "./notes.js";
@@ -123,15 +123,57 @@ export function evaluateColumns<I extends InputSpecs, O extends OutputSpec>(
 }
 
 function run(formula: AnyFormula, inputs: unknown, options: ColumnsOptions & LongRunOptions): ColumnsResult {
+  if (typeof options !== "object" || options === null) throw new FormulaError("invalid_argument", { formula: formula.id, input: "options", detail: "options is an object" });
+  const plan = planColumns(formula, readColumns(formula, inputs), options);
+  const { from, to, state, shape } = plan;
+  const t = ticker("evaluateColumns", options, to - from);
+  if (!watched(options)) runRows(formula, state, shape, from, to);
+  // In pieces with a tick between: a range's rows depend only on themselves, and the note
+  // counts and worst rows accumulate in `state` in row order, as in one pass.
+  else inPieces(from, to, (a, b) => runRows(formula, state, shape, a, b), (done) => tickBelow(t, done - from, to - from));
+  const result = finishColumns(plan);
+  t.finish();
+  return result;
+}
+
+/**
+ * One call of evaluateColumns made ready for its row loop: the range, the
+ * result arrays, the fixed inputs checked and bound, and the loop's state.
+ * evaluateColumns runs the loop over the range; the parallel entry and the
+ * shards run parts of it elsewhere and put the parts' note counts into
+ * `state` (mergeColumnParts) before finishColumns.
+ */
+export interface ColumnsPlan {
+  readonly formula: AnyFormula;
+  readonly read: ReadColumns;
+  readonly from: number;
+  readonly to: number;
+  readonly shape: ColumnShape;
+  readonly state: Rows;
+  /** The probe values the fixed inputs were bound with (one per column input). */
+  readonly probes: Readonly<Record<string, unknown>>;
+}
+
+/** The probe values for binding the fixed inputs: per column, its first in-domain value (or the example); per choice column its first choice. */
+export function columnProbes(read: ReadColumns): Record<string, unknown> {
+  const probes: Record<string, unknown> = {};
+  for (const c of read.numbers) probes[c.name] = probeValue(c);
+  for (const c of read.choices) probes[c.name] = c.data.find((v) => typeof v === "string" && c.spec.choices.includes(v)) ?? c.spec.choices[0];
+  return probes;
+}
+
+/**
+ * Plans a call over columns already read. `probes` default to columnProbes(read);
+ * a worker computing part of a table passes the whole table's, so the fixed
+ * inputs are bound exactly as in one run.
+ */
+export function planColumns(formula: AnyFormula, read: ReadColumns, options: ColumnsOptions, probes: Readonly<Record<string, unknown>> = columnProbes(read)): ColumnsPlan {
   const id = formula.id;
   const def = formula.definition;
-  if (typeof options !== "object" || options === null) throw new FormulaError("invalid_argument", { formula: id, input: "options", detail: "options is an object" });
-  const read = readColumns(formula, inputs);
   const rows = read.rows;
   const from = rangeEnd(id, "from", options.from, 0, rows);
   const to = rangeEnd(id, "to", options.to, rows, rows);
   if (from > to) throw new FormulaError("invalid_argument", { formula: id, input: "from", value: from, detail: `from must not be after to (${to})` });
-  const t = ticker("evaluateColumns", options, to - from);
   const comps = def.output.components as readonly string[] | undefined;
   const nc = comps?.length ?? 0;
   const components = nc === 0 ? [] : given(id, "components", options.components, nc, rows) ?? comps!.map(() => new Float64Array(rows));
@@ -141,9 +183,6 @@ function run(formula: AnyFormula, inputs: unknown, options: ColumnsOptions & Lon
 
   // The fixed inputs: read and checked once (with in-domain probes for the columns), as a sweep does.
   const fixed = convertInputs(formula, read.fixed);
-  const probes: Record<string, unknown> = {};
-  for (const c of read.numbers) probes[c.name] = probeValue(c);
-  for (const c of read.choices) probes[c.name] = c.data.find((v) => typeof v === "string" && c.spec.choices.includes(v)) ?? c.spec.choices[0];
   const o = bind(formula, fixed, probes as Record<string, number>).x;
 
   const shape: ColumnShape = Object.keys(def.inputs)
@@ -153,8 +192,8 @@ function run(formula: AnyFormula, inputs: unknown, options: ColumnsOptions & Lon
       return read.choices.some((c) => c.name === name) ? ([name, undefined, true] as const) : undefined;
     })
     .filter((s) => s !== undefined);
-  const { conditions, kinds } = noteConditions(formula);
-  const state = {
+  const { conditions } = noteConditions(formula);
+  const state: Rows = {
     o,
     compute: def.compute as (x: unknown) => unknown,
     holds: (def.relations ?? []).map((r) => r.holds) as ((x: unknown) => boolean)[],
@@ -170,11 +209,18 @@ function run(formula: AnyFormula, inputs: unknown, options: ColumnsOptions & Lon
     index: new Float64Array(conditions.length).fill(-1),
     measure: new Float64Array(conditions.length).fill(-Infinity),
   };
-  if (!watched(options)) runRows(formula, state, shape, from, to);
-  // In pieces with a tick between: a range's rows depend only on themselves, and the note
-  // counts and worst rows accumulate in `state` in row order, as in one pass.
-  else inPieces(from, to, (a, b) => runRows(formula, state, shape, a, b), (done) => tickBelow(t, done - from, to - from));
+  return { formula, read, from, to, shape, state, probes };
+}
 
+/** The result of a planned call once its rows [from, to) are computed and their note counts are in the plan's state. */
+export function finishColumns(plan: ColumnsPlan): ColumnsResult {
+  const { formula, read, from, to, shape, state } = plan;
+  const id = formula.id;
+  const def = formula.definition;
+  const { values, components, errors, o } = state;
+  const comps = def.output.components as readonly string[] | undefined;
+  const nc = components.length;
+  const { conditions, kinds } = noteConditions(formula);
   const seen = new Float64Array(ROW_ERROR_CODES.length);
   const firstRow = new Float64Array(ROW_ERROR_CODES.length).fill(-1);
   for (let i = from; i < to; i++) {
@@ -205,10 +251,9 @@ function run(formula: AnyFormula, inputs: unknown, options: ColumnsOptions & Lon
     const value = nc === 0 ? values[k]! : components.map((a) => a[k]!);
     notes.push(noteSummary(conditions[c]!, kinds[c]!, state.counts[c]!, k, state.measure[c]!, worstInputs, o, value));
   }
-  t.finish();
   return {
     formula: id,
-    rows,
+    rows: read.rows,
     output: {
       name: id,
       description: def.output.description,

@@ -16,6 +16,7 @@ export { columnsToJson, evaluateColumns, MAX_COLUMN_ROWS, ROW_ERROR_CODES } from
 export type { ColumnInput, ColumnsOptions, ColumnsResult, RowErrorSummary, UnitColumn } from "./columns.js";
 export { columnsToCsv, evaluateCsv, MAX_CSV_CHARS, readCsvTable } from "./columns-csv.js";
 export type { CsvLimits, CsvTable } from "./columns-csv.js";
+export { columnsParallel, MIN_PARALLEL_ROWS } from "./columns-parallel.js";
 export {
   MAX_WORKERS, MIN_PARALLEL_FIELD_PAIRS, MIN_PARALLEL_POINTS, MIN_PARALLEL_SAMPLES, MIN_PARALLEL_SEGMENT_PAIRS,
   biotSavartParallel, mutualInductanceParallel, polylineSelfInductanceParallel, sweepParallel, toleranceParallel,
@@ -24,4 +25,5 @@ export type { BiotSavartParallelOptions, ParallelOptions } from "./parallel.js";
 export { closeWorkers, poolBusy, workerThreads } from "./pool.js";
 export { MAX_SHARDS, mergeShards, planShards, runShard } from "./shards.js";
 export type { Shard, ShardRequest, ShardResult, SweepShardRequest, SweepShardResult, ToleranceShardRequest, ToleranceShardResult } from "./shards.js";
+export type { ColumnsShardRequest, ColumnsShardResult, ShardValue } from "./columns-shards.js";
 export type { CollectedNotes } from "./notes.js";

@@ -12,6 +12,7 @@ import { inPiecesAsync, tickBelow, watched } from "./chunks.js";
 import { defaultWorkers, poolAvailable, runOnPool } from "./pool.js";
 import { fieldPieces, type PoolTask, rebuildError, selfPairs, type TaskOutcome } from "./pool-tasks.js";
 import { MONTE_CARLO_BLOCK } from "./random.js";
+import { borrowShared, giveBackShared } from "./shared-scratch.js";
 import { computePoints } from "./sweep-points.js";
 import { bindGrid, finishSweep, layoutSweep, planSweep, type SweepResult, type SweepSpec } from "./sweep.js";
 import { finishTolerance, type MonteCarloPart, monteCarloRange, planTolerance, type ToleranceOptions, type ToleranceResult, type ToleranceValue } from "./tolerance.js";
@@ -73,7 +74,7 @@ export const MIN_PARALLEL_SEGMENT_PAIRS = 5_000;
 export const poolSplit = { chunksPerWorker: 4 };
 
 /** The worker count asked for, checked; undefined means the default. */
-function readWorkers(tool: string, options: ParallelOptions | undefined): number {
+export function readWorkers(tool: string, options: ParallelOptions | undefined): number {
   if (options !== undefined && (typeof options !== "object" || options === null)) {
     throw new FormulaError("invalid_argument", { formula: tool, input: "options", detail: "options is an object" });
   }
@@ -109,7 +110,7 @@ export function splitRange(total: number, workers: number, align = 1): [number, 
  * as the single-thread call throws it. Progress is `base` plus the items the
  * tasks have done, through `t`, below `total` (fraction 1 is finish()'s).
  */
-async function onPool<T>(tool: string, tasks: readonly PoolTask[], workers: number, options: LongRunOptions, t: Ticker, base: number, total: number): Promise<T[]> {
+export async function onPool<T>(tool: string, tasks: readonly PoolTask[], workers: number, options: LongRunOptions, t: Ticker, base: number, total: number): Promise<T[]> {
   const outcomes: TaskOutcome[] = await runOnPool(tool, tasks, workers, {
     ...(options.signal !== undefined ? { signal: options.signal } : {}),
     ...(options.onProgress !== undefined ? { progress: (done: number) => tickBelow(t, base + done, total) } : {}),
@@ -121,7 +122,7 @@ async function onPool<T>(tool: string, tasks: readonly PoolTask[], workers: numb
 }
 
 /** Workers load formulas by id, so a parallel call needs the registry's own formula. */
-function registryFormula(tool: string, formula: AnyFormula | string): AnyFormula {
+export function registryFormula(tool: string, formula: AnyFormula | string): AnyFormula {
   if (typeof formula === "string") return getFormula(formula);
   const f = formula;
   let found: AnyFormula | undefined;
@@ -221,6 +222,10 @@ export async function sweepParallel<I extends InputSpecs, O extends OutputSpec>(
 
 /** biotSavart's options plus `out` (the output array) and `workers`. */
 export interface BiotSavartParallelOptions extends BiotSavartOptions, ParallelOptions {
+  /**
+   * Output array to fill. Over a SharedArrayBuffer, the worker threads write
+   * it in place; a plain one is filled from a shared copy.
+   */
   readonly out?: Float64Array;
 }
 
@@ -229,6 +234,9 @@ export interface BiotSavartParallelOptions extends BiotSavartOptions, ParallelOp
  * field and warnings, bit for bit, for any `workers` (an error names the first
  * bad point, as the synchronous call does). At MIN_PARALLEL_FIELD_PAIRS
  * segment-point pairs and more the pool is used; below, the calling thread.
+ * Points (and `out`) over a SharedArrayBuffer reach the threads without a
+ * copy; without `out`, the result made for a pooled call is a view into a
+ * SharedArrayBuffer (`slice()` it for a plain copy).
  */
 export async function biotSavartParallel(path: Float64Array, current: number, points: Float64Array, options: BiotSavartParallelOptions = {}): Promise<BiotSavartField> {
   const tool = "biotSavartParallel";
@@ -241,9 +249,11 @@ export async function biotSavartParallel(path: Float64Array, current: number, po
     throw new FormulaError("invalid_argument", { formula: "biotSavart", input: "out", detail: "output array is shorter than points" });
   }
   const t = ticker(tool, options, np);
-  const result = (out ?? new Float64Array(points.length)) as Float64Array & { warnings: readonly Note[] };
+  const pooled = np * (nv - 1) >= MIN_PARALLEL_FIELD_PAIRS;
+  // A new result array is shared when the pool fills it: the threads write it in place.
+  const result = (out ?? (pooled ? new Float64Array(new SharedArrayBuffer(points.length * 8)) : new Float64Array(points.length))) as Float64Array & { warnings: readonly Note[] };
   let found: InsideCount;
-  if (np * (nv - 1) < MIN_PARALLEL_FIELD_PAIRS) {
+  if (!pooled) {
     if (!watched(options)) found = fieldRange(path, current, points, result, wireRadius, 0, np);
     else {
       // Points are independent: the pieces give the field, count and first point of one call.
@@ -252,9 +262,14 @@ export async function biotSavartParallel(path: Float64Array, current: number, po
       found = field.found();
     }
   } else {
+    // Arrays over a SharedArrayBuffer are handed to the threads as they are;
+    // plain ones are copied into reused shared buffers (shared-scratch.ts:
+    // a fresh buffer's first touch cost more than the field map itself).
     const sp = shared(path);
-    const spoints = shared(points);
-    const sout = new Float64Array(new SharedArrayBuffer(points.length * 8));
+    const isShared = (a: Float64Array): boolean => a.buffer instanceof SharedArrayBuffer;
+    const spoints = isShared(points) ? points : borrowShared(points.length);
+    if (spoints !== points) spoints.set(points);
+    const sout = isShared(result) ? result : borrowShared(points.length);
     const tasks: PoolTask[] = splitRange(np, workers).map(([start, end]) => ({ kind: "field", path: sp, current, points: spoints, out: sout, wireRadius, start, end }));
     const parts = await onPool<InsideCount>(tool, tasks, workers, options, t, 0, np);
     let inside = 0;
@@ -264,7 +279,11 @@ export async function biotSavartParallel(path: Float64Array, current: number, po
       inside += p.inside;
     }
     found = { inside, first };
-    result.set(sout);
+    if (sout !== result) {
+      result.set(sout.subarray(0, points.length));
+      giveBackShared(sout);
+    }
+    if (spoints !== points) giveBackShared(spoints);
   }
   result.warnings = fieldWarnings(found, np, wireRadius);
   t.finish();

@@ -5,6 +5,7 @@ import type { QuantityInput } from "../core/spec.js";
 import { fieldRange, type InsideCount } from "../flux/biot-savart.js";
 import { mutualRows, segments, selfRows } from "../inductance/neumann.js";
 import { inPieces } from "./chunks.js";
+import { type ColumnsPart, columnsRange, type ColumnsTaskData } from "./columns-task.js";
 import { bind, specsOf } from "./convert.js";
 import { computePoints } from "./sweep-points.js";
 import { bindGrid, layoutSweep, planSweep, type SweepSpec } from "./sweep.js";
@@ -79,6 +80,7 @@ export type PoolTask = TaskControl & (
   | { readonly kind: "field"; readonly path: Float64Array; readonly current: number; readonly points: Float64Array; readonly out: Float64Array; readonly wireRadius: number; readonly start: number; readonly end: number }
   | { readonly kind: "mutual"; readonly pathA: Float64Array; readonly pathB: Float64Array; readonly maxDepth: number; readonly start: number; readonly end: number }
   | { readonly kind: "self"; readonly path: Float64Array; readonly maxDepth: number; readonly start: number; readonly end: number }
+  | { readonly kind: "columns"; readonly table: ColumnsTaskData; readonly start: number; readonly end: number }
 );
 
 /** A FormulaError as data: rebuilt in the calling thread with its code, fields and message. */
@@ -89,7 +91,7 @@ export interface ErrorData {
 }
 
 export type TaskOutcome =
-  | { readonly ok: true; readonly value: MonteCarloPart | number | InsideCount | Float64Array }
+  | { readonly ok: true; readonly value: MonteCarloPart | number | InsideCount | Float64Array | ColumnsPart }
   | { readonly ok: false; readonly error: ErrorData };
 
 /** Runs one task; a FormulaError comes back as data (see rebuildError), anything else is thrown. */
@@ -156,7 +158,7 @@ function fieldInPieces(path: Float64Array, current: number, points: Float64Array
   return field.found();
 }
 
-function compute(task: PoolTask, hook: ((done: number) => void) | undefined): MonteCarloPart | number | InsideCount | Float64Array {
+function compute(task: PoolTask, hook: ((done: number) => void) | undefined): MonteCarloPart | number | InsideCount | Float64Array | ColumnsPart {
   // The last count (all of the task) is stored without the cancel check: the work is done.
   const finished = (items: number): void => {
     if (task.control !== undefined && task.slot !== undefined) Atomics.store(task.control, finalCell(task.slot), items);
@@ -202,6 +204,12 @@ function compute(task: PoolTask, hook: ((done: number) => void) | undefined): Mo
       const rows = rowsInPieces(task.start, task.end, (a, b) => selfRows(S, task.maxDepth, a, b), (a, b) => selfPairs(S.n, a, b), hook);
       finished(selfPairs(S.n, task.start, task.end));
       return rows;
+    }
+    case "columns": {
+      // A columns task reports once, at its end: its rows are planned as one range.
+      const part = columnsRange(task.table, task.start, task.end);
+      finished(task.end - task.start);
+      return part;
     }
   }
 }

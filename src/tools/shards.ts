@@ -1,5 +1,7 @@
 import { FormulaError } from "../core/errors.js";
 import { getFormula } from "../core/registry.js";
+import type { ColumnsResult } from "./columns.js";
+import { type ColumnsShardRequest, type ColumnsShardResult, columnsRows, mergeColumnsShards, runColumnsShard } from "./columns-shards.js";
 import type { CollectedNotes } from "./notes.js";
 import { MONTE_CARLO_BLOCK } from "./random.js";
 import { computePoints } from "./sweep-points.js";
@@ -11,7 +13,8 @@ import { finishTolerance, monteCarloRange, planTolerance, type ToleranceOptions,
  * that any job runner or queue can run anywhere (each is plain JSON, and so
  * is its result), merged into exactly the result of one run. A sweep splits
  * its grid points; a tolerance analysis its Monte Carlo samples (each sample
- * draws from its own random stream, so a shard draws what one run draws).
+ * draws from its own random stream, so a shard draws what one run draws);
+ * an evaluateColumns call its rows (columns-shards.ts).
  * Every shard and the merge repeat the request's cheap parts (checks, axes,
  * the nominal, slopes and corners) and compute only their range.
  */
@@ -30,7 +33,7 @@ export interface SweepShardRequest extends SweepSpec {
   readonly formula: string;
 }
 
-export type ShardRequest = ToleranceShardRequest | SweepShardRequest;
+export type ShardRequest = ToleranceShardRequest | SweepShardRequest | ColumnsShardRequest;
 
 /** One shard: the whole request and the index range this shard computes (start..end-1). */
 export interface Shard<R extends ShardRequest = ShardRequest> {
@@ -57,7 +60,8 @@ export interface SweepShardResult {
   readonly notComputed: number;
 }
 
-export type ShardResult = ToleranceShardResult | SweepShardResult;
+export type ShardResult = ToleranceShardResult | SweepShardResult | ColumnsShardResult;
+export type { ColumnsShardRequest, ColumnsShardResult };
 
 /** Most shards one request is split into. */
 export const MAX_SHARDS = 10_000;
@@ -66,14 +70,17 @@ function bad(input: string, detail: string, value?: unknown): FormulaError {
   return new FormulaError("invalid_argument", { input, value, detail });
 }
 
-function kindOf(request: unknown): "tolerance" | "sweep" {
+function kindOf(request: unknown): "tolerance" | "sweep" | "columns" {
   const kind = typeof request === "object" && request !== null ? (request as { kind?: unknown }).kind : undefined;
-  if (kind !== "tolerance" && kind !== "sweep") throw bad("kind", 'a shardable request is { kind: "tolerance", formula, inputs, options } or { kind: "sweep", formula, vary, fixed }', kind);
+  if (kind !== "tolerance" && kind !== "sweep" && kind !== "columns") {
+    throw bad("kind", 'a shardable request is { kind: "tolerance", formula, inputs, options }, { kind: "sweep", formula, vary, fixed } or { kind: "columns", formula, inputs }', kind);
+  }
   return kind;
 }
 
 /** Checks the request as one run would and returns its index count (samples or grid points). */
 function size(request: ShardRequest): number {
+  if (kindOf(request) === "columns") return columnsRows(request as ColumnsShardRequest);
   const f = getFormula(request.formula);
   if (kindOf(request) === "tolerance") {
     const r = request as ToleranceShardRequest;
@@ -105,10 +112,12 @@ export function planShards<R extends ShardRequest>(request: R, count: number): S
 /** Runs one shard (on any machine): the same computation as one run, over the shard's range. */
 export function runShard(shard: Shard<ToleranceShardRequest>): ToleranceShardResult;
 export function runShard(shard: Shard<SweepShardRequest>): SweepShardResult;
+export function runShard(shard: Shard<ColumnsShardRequest>): ColumnsShardResult;
 export function runShard(shard: Shard): ShardResult;
 export function runShard(shard: Shard): ShardResult {
   if (typeof shard !== "object" || shard === null) throw bad("shard", "a shard is { request, index, count, start, end } as planShards makes it");
   const { request, start, end } = shard;
+  if (kindOf(request) === "columns") return runColumnsShard(shard as Shard<ColumnsShardRequest>, (rows) => checkRange(shard, rows));
   const f = getFormula(request?.formula);
   if (kindOf(request) === "tolerance") {
     const r = request as ToleranceShardRequest;
@@ -145,8 +154,9 @@ function checkRange(shard: Shard, total: number): void {
  */
 export function mergeShards(results: readonly ToleranceShardResult[]): ToleranceResult;
 export function mergeShards(results: readonly SweepShardResult[]): SweepResult;
-export function mergeShards(results: readonly ShardResult[]): ToleranceResult | SweepResult;
-export function mergeShards(results: readonly ShardResult[]): ToleranceResult | SweepResult {
+export function mergeShards(results: readonly ColumnsShardResult[]): ColumnsResult;
+export function mergeShards(results: readonly ShardResult[]): ToleranceResult | SweepResult | ColumnsResult;
+export function mergeShards(results: readonly ShardResult[]): ToleranceResult | SweepResult | ColumnsResult {
   if (!Array.isArray(results) || results.length === 0) throw bad("shards", "give the results of every shard of one request");
   const sorted = [...results].sort((a, b) => a.shard.start - b.shard.start);
   const request = sorted[0]!.shard.request;
@@ -157,6 +167,7 @@ export function mergeShards(results: readonly ShardResult[]): ToleranceResult | 
     if (r.shard.start !== at) throw bad("shards", `no shard covers indices from ${at} (a shard is missing or repeated)`);
     at = r.shard.end;
   }
+  if (kindOf(request) === "columns") return mergeColumnsShards(sorted as ColumnsShardResult[], at);
   const f = getFormula(request.formula);
   if (kindOf(request) === "tolerance") {
     const r = request as ToleranceShardRequest;

@@ -21,3 +21,14 @@ export function codeOf(fn: () => unknown): string | undefined {
 export function expectFormulaError(fn: () => unknown): FormulaError {
   return errorOf(fn) ?? expect.fail("expected a FormulaError");
 }
+
+/** The FormulaError a promise rejects with; the test fails if it resolves or rejects with anything else. */
+export async function expectRejection(p: Promise<unknown>): Promise<FormulaError> {
+  try {
+    await p;
+  } catch (e) {
+    expect(e).toBeInstanceOf(FormulaError);
+    return e as FormulaError;
+  }
+  return expect.fail("expected a FormulaError");
+}

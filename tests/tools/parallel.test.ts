@@ -130,6 +130,27 @@ describe("parallel calls on the pool give the synchronous result bit for bit", {
     expect([e.code, e.message]).toEqual([expected!.code, expected!.message]);
   });
 
+  it("Biot-Savart field maps into a given plain or shared output array, from plain or shared points", async () => {
+    const loop = new Float64Array([1, 1, 0, -1, 1, 0, -1, -1, 0, 1, -1, 0, 1, 1, 0]);
+    const n = Math.ceil(MIN_PARALLEL_FIELD_PAIRS / 4) + 7;
+    const plain = new Float64Array(3 * n);
+    for (let p = 0; p < 3 * n; p++) plain[p] = 0.3 * Math.sin(p * 0.7) + 0.01;
+    const sharedPoints = new Float64Array(new SharedArrayBuffer(plain.length * 8));
+    sharedPoints.set(plain);
+    const one = biotSavart(loop, 2, plain);
+    for (const points of [plain, sharedPoints]) {
+      for (const out of [new Float64Array(plain.length + 3).fill(7), new Float64Array(new SharedArrayBuffer((plain.length + 3) * 8)).fill(7)]) {
+        const r = await biotSavartParallel(loop, 2, points, { out, workers: 2 });
+        expect(r).toBe(out);
+        expect(Buffer.compare(Buffer.from(out.buffer, 0, plain.length * 8), Buffer.from(one.buffer)), `${points === plain ? "plain" : "shared"} points`).toBe(0);
+        // Entries past the points are left as they were.
+        expect(Array.from(out.subarray(plain.length))).toEqual([7, 7, 7]);
+      }
+    }
+    // The caller's points are read, never written.
+    expect(Buffer.compare(Buffer.from(sharedPoints.buffer), Buffer.from(plain.buffer))).toBe(0);
+  });
+
   it("Neumann mutual and self-inductance of polylines with 1, 2 and 3 workers", async () => {
     const circle = (n: number, r: number, z: number): Float64Array => {
       const a = new Float64Array(3 * (n + 1));

@@ -57,7 +57,7 @@ describe("shards", () => {
 
   it("refuses a bad request when planning, a bad shard count, and a missing, repeated or foreign shard when merging", () => {
     expect(expectFormulaError(() => planShards({ ...sweepJob, formula: "noSuchFormula" }, 2)).code).toBe("unknown_formula");
-    expect(expectFormulaError(() => planShards({ ...toleranceJob, kind: "columns" } as never, 2)).input).toBe("kind");
+    expect(expectFormulaError(() => planShards({ ...toleranceJob, kind: "grid" } as never, 2)).input).toBe("kind");
     for (const count of [0, 1.5, 10_001]) expect(expectFormulaError(() => planShards(sweepJob, count)).input).toBe("count");
     const results = runAll(sweepJob, 3);
     for (const broken of [results.slice(1), [results[0], results[0], results[1], results[2]], [...results.slice(0, 2), runAll({ ...sweepJob, fixed: { relativePermittivity: 2 } }, 3)[2]]]) {
