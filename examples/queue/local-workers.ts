@@ -9,16 +9,22 @@
  * each under tsx here, against under 2 s for the bundle).
  */
 import { type ChildProcess, spawn } from "node:child_process";
+import { existsSync } from "node:fs";
 import { resolve } from "node:path";
 import { build } from "esbuild";
 import { exited, readyLine } from "./local-redis.js";
 
-const root = resolve(import.meta.dirname, "../..");
+/** The repository: from this file, or from a bundle of it in out/ (the benchmark's). */
+function root(): string {
+  let dir = import.meta.dirname;
+  for (let up = 0; up < 4 && !existsSync(resolve(dir, "examples/queue/worker.ts")); up++) dir = resolve(dir, "..");
+  return dir;
+}
 
 /** Writes the bundle (default out/queue/worker.mjs) and returns its path. */
-export async function buildWorker(outfile = resolve(root, "out/queue/worker.mjs")): Promise<string> {
+export async function buildWorker(outfile = resolve(root(), "out/queue/worker.mjs")): Promise<string> {
   await build({
-    entryPoints: [resolve(root, "examples/queue/worker.ts")],
+    entryPoints: [resolve(root(), "examples/queue/worker.ts")],
     outfile,
     bundle: true,
     platform: "node",

@@ -1,253 +1,39 @@
 /**
- * The producer and merger of the queue example: splits a tolerance or sweep
- * request into shards (planShards), puts one BullMQ job per shard on the
- * queue, collects each shard's numbers from Redis as its job completes, and
- * merges them (mergeShards) into exactly the result one process computes.
+ * The producer of the queue example as a program: runs each request through
+ * the queue (run-on-queue.ts: shards, jobs, results, merge) and prints a
+ * summary with the result's notes. Start workers first (worker.ts).
  *
- * Run (with workers started, see worker.ts):
- *   REDIS_URL=redis://10.0.0.5:6379 npx tsx examples/queue/producer.ts [request.json] [--shards N]
- * Without a file it runs the example's own scenario (invented numbers): a
- * 1e6-sample Monte Carlo of the mutual inductance of two coaxial coils, and a
- * 1000 x 1000 sweep of it over the coils' distance and the second coil's radius.
- *
- * Failures end the run with an error, never a hang: a shard the library
- * refuses rethrows the library's FormulaError (no retry: it fails the same way
- * everywhere); a shard that fails otherwise is retried `attempts` times, then
- * ShardQueueError "shard_failed"; a run not done within `timeoutMs` is
- * "timed_out"; an abort through `signal` is the library's "cancelled". Jobs
- * still waiting are removed on the way out.
+ * Run: REDIS_URL=redis://10.0.0.5:6379 npx tsx examples/queue/producer.ts [request.json] [--shards N]
+ * A request file holds one shardable request ({ kind: "tolerance", formula,
+ * inputs, options } or { kind: "sweep", formula, vary, fixed }); without one
+ * the scenario in scenario.ts runs. Ctrl-C cancels (exit status 130).
  */
-import { randomUUID } from "node:crypto";
 import { readFileSync } from "node:fs";
-import { pathToFileURL } from "node:url";
-import { type Job, Queue, QueueEvents } from "bullmq";
-import { Redis } from "ioredis";
-import { cancelledError, type LongRunOptions, ticker } from "../../src/core/progress.js";
-import { mergeShards, planShards, type Shard, type ShardRequest, type ShardResult, type SweepShardRequest, type ToleranceShardRequest } from "../../src/tools/shards.js";
-import type { SweepResult } from "../../src/tools/sweep.js";
-import type { ToleranceResult } from "../../src/tools/tolerance.js";
-import {
-  DEFAULT_QUEUE, DEFAULT_REDIS_URL, DEFAULT_RESULT_TTL_MS, decodeShard, formulaErrorFrom, ShardQueueError,
-  type ShardJobData, type ShardJobReturn,
-} from "./shard-jobs.js";
-import { connectionOf } from "./worker.js";
+import { FormulaError } from "../../src/core/errors.js";
+import type { ShardRequest } from "../../src/tools/shards.js";
+import { runOnQueue } from "./run-on-queue.js";
+import { coilSweep, coilTolerance } from "./scenario.js";
+import { DEFAULT_REDIS_URL } from "./shard-jobs.js";
 
-export interface QueueRunOptions extends LongRunOptions {
-  /** redis://host:port, the Redis the workers use. */
-  readonly redisUrl: string;
-  readonly queue?: string;
-  /** Shards to split the request into (planShards may make fewer). */
-  readonly shards: number;
-  /** The whole run's time limit, ms. Default 10 minutes. */
-  readonly timeoutMs?: number;
-  /** Tries per shard for failures outside the library (a crashed worker, a Redis error). Default 3. */
-  readonly attempts?: number;
-  /** How often unfinished jobs are looked up besides the event stream, ms. Default 2000. */
-  readonly pollMs?: number;
-  /** Called for each shard merged in: which worker ran it, its bytes and compute time. */
-  readonly onShard?: (shard: Shard, receipt: ShardJobReturn) => void;
-}
+const args = process.argv.slice(2);
+const at = args.indexOf("--shards");
+const count = at >= 0 ? Number(args[at + 1]) : 32;
+const file = args.find((a, i) => !a.startsWith("--") && i !== at + 1);
+const controller = new AbortController();
+process.once("SIGINT", () => controller.abort());
 
-/** What a run cost, besides its result. */
-export interface QueueRunStats {
-  readonly shards: number;
-  /** Bytes of job data put on the queue (each shard repeats the whole request). */
-  readonly jobBytes: number;
-  /** Bytes of shard numbers fetched from Redis. */
-  readonly resultBytes: number;
-  /** Which worker ran how many shards. */
-  readonly byWorker: Readonly<Record<string, number>>;
-  readonly mergeMs: number;
-}
-
-export function runOnQueue(request: ToleranceShardRequest, options: QueueRunOptions): Promise<{ result: ToleranceResult; stats: QueueRunStats }>;
-export function runOnQueue(request: SweepShardRequest, options: QueueRunOptions): Promise<{ result: SweepResult; stats: QueueRunStats }>;
-export function runOnQueue(request: ShardRequest, options: QueueRunOptions): Promise<{ result: ToleranceResult | SweepResult; stats: QueueRunStats }>;
-export async function runOnQueue(request: ShardRequest, options: QueueRunOptions): Promise<{ result: ToleranceResult | SweepResult; stats: QueueRunStats }> {
-  // Checked here, as one run checks it: a bad request fails before any job exists.
-  const shards = planShards(request, options.shards);
-  const { results, stats } = await runShardsOnQueue(shards, options);
-  const t0 = performance.now();
-  const result = mergeShards(results);
-  return { result, stats: { ...stats, mergeMs: performance.now() - t0 } };
-}
-
-/**
- * Runs the given shards on the queue and returns their results (in shard
- * order). runOnQueue's middle part; on its own for callers that plan or merge
- * elsewhere (and for the test, which hands it a shard the library refuses).
- */
-export async function runShardsOnQueue(
-  shards: readonly Shard[],
-  options: QueueRunOptions,
-): Promise<{ results: ShardResult[]; stats: Omit<QueueRunStats, "mergeMs"> }> {
-  const total = shards.reduce((s, x) => s + (x.end - x.start), 0);
-  const progress = ticker("runOnQueue", options, total);
-  const queueName = options.queue ?? DEFAULT_QUEUE;
-  const connection = connectionOf(options.redisUrl);
-  const run = randomUUID();
-  const jobId = (s: Shard): string => `${run}-${s.index}`;
-  const byId = new Map(shards.map((s) => [jobId(s), s]));
-  const store = new Redis(options.redisUrl, { maxRetriesPerRequest: 3 });
-  const queue = new Queue<ShardJobData, ShardJobReturn>(queueName, { connection });
-  // Read the event stream from the Redis server's clock now, so no event of
-  // this run's jobs can be missed between subscribing and adding them.
-  const [sec, usec] = await store.time();
-  const events = new QueueEvents(queueName, { connection, lastEventId: `${Number(sec) * 1000 + Math.floor(Number(usec) / 1000) - 1}-0` });
-
-  const results = new Map<string, ShardResult>();
-  const collecting = new Set<string>();
-  const byWorker: Record<string, number> = {};
-  let resultBytes = 0;
-  let jobBytes = 0;
-  let done = 0;
-  let settle!: (e?: unknown) => void;
-  const finished = new Promise<void>((resolve, reject) => {
-    settle = (e?: unknown) => (e === undefined ? resolve() : reject(e));
-  });
-  const fail = (e: unknown): void => settle(e);
-  // Awaited below; this keeps a failure before that point from counting as unhandled.
-  finished.catch(() => undefined);
-
-  const collect = async (id: string, receipt: ShardJobReturn): Promise<void> => {
-    const shard = byId.get(id);
-    // The event and the poll may both report one job: collect it once.
-    if (!shard || collecting.has(id)) return;
-    collecting.add(id);
-    const key = resultKey(run, shard);
-    const blob = await store.getBuffer(key);
-    if (blob === null) throw new ShardQueueError("result_missing", shard, `key ${key} (expired or evicted: raise the result TTL or Redis's maxmemory)`);
-    results.set(id, decodeShard(shard, blob, receipt));
-    await store.del(key);
-    resultBytes += blob.length;
-    byWorker[receipt.by] = (byWorker[receipt.by] ?? 0) + 1;
-    options.onShard?.(shard, receipt);
-    done += shard.end - shard.start;
-    if (results.size === shards.length) settle();
-    else progress.tick(done);
-  };
-  const failed = (id: string, reason: string): void => {
-    const shard = byId.get(id);
-    if (!shard) return;
-    fail(formulaErrorFrom(reason, shard) ?? new ShardQueueError("shard_failed", shard, reason));
-  };
-  events.on("completed", ({ jobId: id, returnvalue }) => {
-    if (byId.has(id)) collect(id, returnvalue as unknown as ShardJobReturn).catch(fail);
-  });
-  events.on("failed", ({ jobId: id, failedReason }) => failed(id, failedReason));
-
-  // The event stream is the fast path; this looks up what is still open, in
-  // case an event was trimmed away or the events connection dropped.
-  const poll = async (): Promise<void> => {
-    for (const [id] of byId) {
-      if (collecting.has(id)) continue;
-      // The state first: a job read before it finishes has no return value yet.
-      const state = await queue.getJobState(id);
-      if (state === "unknown") fail(new ShardQueueError("shard_failed", byId.get(id), "its job is gone from the queue (removed by someone else?)"));
-      if (state !== "completed" && state !== "failed") continue;
-      const job = await queue.getJob(id);
-      if (job && state === "completed") await collect(id, job.returnvalue);
-      else if (job) failed(id, job.failedReason);
-    }
-  };
-  let polling = false;
-  const pollTimer = setInterval(() => {
-    if (polling) return;
-    polling = true;
-    poll().catch(fail).finally(() => (polling = false));
-  }, options.pollMs ?? 2000);
-  const timeoutMs = options.timeoutMs ?? 600_000;
-  const timer = setTimeout(() => {
-    const open = shards.filter((s) => !results.has(jobId(s))).map((s) => s.index + 1);
-    fail(new ShardQueueError("timed_out", undefined, `${open.length} of ${shards.length} shards unfinished after ${timeoutMs} ms (shards ${open.slice(0, 10).join(", ")}${open.length > 10 ? ", ..." : ""}); are workers running on queue "${queueName}"?`));
-  }, timeoutMs);
-  const onAbort = (): void => fail(cancelledError("runOnQueue", options.signal));
-  options.signal?.addEventListener("abort", onAbort, { once: true });
-
-  let jobs: Job<ShardJobData, ShardJobReturn>[] = [];
-  try {
-    await events.waitUntilReady();
-    const bulk = shards.map((shard) => {
-      const data: ShardJobData = { run, shard, resultKey: resultKey(run, shard) };
-      jobBytes += Buffer.byteLength(JSON.stringify(data));
-      return {
-        name: shard.request.kind,
-        data,
-        opts: {
-          jobId: jobId(shard),
-          attempts: options.attempts ?? 3,
-          backoff: { type: "exponential", delay: 500 },
-          // Kept until this run has read them; removed below, or after an hour by BullMQ if this process dies.
-          removeOnComplete: { age: DEFAULT_RESULT_TTL_MS / 1000 },
-          removeOnFail: { age: DEFAULT_RESULT_TTL_MS / 1000 },
-        },
-      };
-    });
-    jobs = await queue.addBulk(bulk);
-    if (shards.length === 0) settle();
-    await finished;
-    progress.finish();
-    return {
-      results: shards.map((s) => results.get(jobId(s))!),
-      stats: { shards: shards.length, jobBytes, resultBytes, byWorker },
-    };
-  } finally {
-    clearTimeout(timer);
-    clearInterval(pollTimer);
-    options.signal?.removeEventListener("abort", onAbort);
-    // Waiting jobs of a failed run would only waste workers: remove them. A job
-    // being run cannot be removed (it is locked); its numbers expire with the TTL.
-    await Promise.allSettled(jobs.map((j) => queue.remove(j.id!)));
-    await Promise.allSettled(shards.map((s) => store.del(resultKey(run, s))));
-    await events.close();
-    await queue.close();
-    store.disconnect();
-  }
-}
-
-function resultKey(run: string, shard: Shard): string {
-  return `emquant:shard-result:${run}:${shard.index}`;
-}
-
-// ---- Run as a program -------------------------------------------------------
-
-/** The example's own scenario (invented coils): a Monte Carlo of their mutual inductance. */
-export const coilTolerance: ToleranceShardRequest = {
-  kind: "tolerance",
-  formula: "coaxialCoilsMutualInductance",
-  inputs: {
-    turns1: 100, radius1: { nominal: "10 mm", percent: 1 }, length1: { nominal: "20 mm", percent: 1 },
-    turns2: 50, radius2: { nominal: "15 mm", percent: 1 }, length2: "10 mm", distance: { nominal: "30 mm", plusMinus: "1 mm" },
-  },
-  options: { samples: 1_000_000, seed: 2026 },
-};
-
-/** ... and a map of it over the distance between the coils and the second coil's radius. */
-export const coilSweep: SweepShardRequest = {
-  kind: "sweep",
-  formula: "coaxialCoilsMutualInductance",
-  vary: { distance: { from: "0 mm", to: "60 mm", points: 1000 }, radius2: { from: "5 mm", to: "30 mm", points: 1000 } },
-  fixed: { turns1: 100, radius1: "10 mm", length1: "20 mm", turns2: 50, length2: "10 mm" },
-};
-
-if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
-  const args = process.argv.slice(2);
-  const at = args.indexOf("--shards");
-  const count = at >= 0 ? Number(args[at + 1]) : 32;
-  const file = args.find((a, i) => !a.startsWith("--") && i !== at + 1);
+try {
   const requests: ShardRequest[] = file ? [JSON.parse(readFileSync(file, "utf8")) as ShardRequest] : [coilTolerance, coilSweep];
-  const redisUrl = process.env.REDIS_URL ?? DEFAULT_REDIS_URL;
-  const controller = new AbortController();
-  process.once("SIGINT", () => controller.abort());
   for (const request of requests) {
     const t0 = performance.now();
     const { result, stats } = await runOnQueue(request, {
-      redisUrl, shards: count, signal: controller.signal,
+      redisUrl: process.env.REDIS_URL ?? DEFAULT_REDIS_URL,
+      shards: count,
+      signal: controller.signal,
       ...(process.env.QUEUE ? { queue: process.env.QUEUE } : {}),
       onProgress: (p) => process.stderr.write(`\r${request.kind}: ${(p.fraction * 100).toFixed(0)} % (${p.done} of ${p.total})`),
     });
     process.stderr.write("\n");
-    const wall = ((performance.now() - t0) / 1000).toFixed(2);
     if ("monteCarlo" in result && result.monteCarlo) {
       const m = result.monteCarlo;
       console.log(`${result.formula}: ${m.samples} samples, mean ${m.mean.toPrecision(6)} ${result.unit}, p1 ${m.p1.toPrecision(6)}, p99 ${m.p99.toPrecision(6)}`);
@@ -256,6 +42,13 @@ if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) 
     }
     // Notes travel with the result: show them (cautions bear on safety).
     for (const n of result.notes) console.log(`${n.kind} (${n.count} points): ${n.worst.message}`);
-    console.log(`${stats.shards} shards in ${wall} s; ${stats.jobBytes} bytes of jobs, ${stats.resultBytes} bytes of results; by worker ${JSON.stringify(stats.byWorker)}`);
+    const seconds = ((performance.now() - t0) / 1000).toFixed(2);
+    console.log(`${stats.shards} shards in ${seconds} s; ${stats.jobBytes} bytes of jobs, ${stats.resultBytes} bytes of results; shards by worker ${JSON.stringify(stats.byWorker)}`);
   }
+  process.exit(0);
+} catch (e) {
+  process.stderr.write("\n");
+  const code = e instanceof FormulaError || (e instanceof Error && "code" in e) ? `${String((e as { code: unknown }).code)}: ` : "";
+  console.error(`${code}${e instanceof Error ? e.message : String(e)}`);
+  process.exit(e instanceof FormulaError && e.code === "cancelled" ? 130 : 1);
 }

@@ -19,6 +19,20 @@ export const DEFAULT_REDIS_URL = "redis://127.0.0.1:6379";
 /** How long a shard's numbers stay in Redis when no producer collects them (a producer that died). */
 export const DEFAULT_RESULT_TTL_MS = 3_600_000;
 
+/** BullMQ's connection options from a redis:// URL (BullMQ opens its own connections). */
+export function connectionOf(url: string): { host: string; port: number; username?: string; password?: string; db?: number } {
+  const u = new URL(url);
+  if (u.protocol !== "redis:") throw new Error(`REDIS_URL must be redis://host:port, got ${JSON.stringify(url)}`);
+  const db = u.pathname.length > 1 ? Number(u.pathname.slice(1)) : undefined;
+  return {
+    host: u.hostname || "127.0.0.1",
+    port: u.port ? Number(u.port) : 6379,
+    ...(u.username ? { username: decodeURIComponent(u.username) } : {}),
+    ...(u.password ? { password: decodeURIComponent(u.password) } : {}),
+    ...(db !== undefined && Number.isInteger(db) ? { db } : {}),
+  };
+}
+
 /** A job: one shard, plus where its worker puts the numbers. */
 export interface ShardJobData {
   /** The producer's run id: every job and result key of one request carries it. */
