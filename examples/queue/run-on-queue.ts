@@ -15,6 +15,7 @@
 import { randomUUID } from "node:crypto";
 import { Queue, QueueEvents } from "bullmq";
 import { Redis } from "ioredis";
+import { FormulaError } from "../../src/core/errors.js";
 import { cancelledError, type LongRunOptions, ticker } from "../../src/core/progress.js";
 import { mergeShards, planShards, type Shard, type ShardRequest, type ShardResult, type SweepShardRequest, type ToleranceShardRequest } from "../../src/tools/shards.js";
 import type { SweepResult } from "../../src/tools/sweep.js";
@@ -76,7 +77,10 @@ export async function runShardsOnQueue(
   const total = shards.reduce((s, x) => s + (x.end - x.start), 0);
   const progress = ticker("runOnQueue", options, total);
   const queueName = options.queue ?? DEFAULT_QUEUE;
-  const connection = connectionOf(options.redisUrl);
+  // A producer gives up on Redis after about 20 s of failed reconnects (a
+  // worker keeps trying for ever): its connections then end, and so does the process.
+  const retryStrategy = (times: number): number | null => (times > 20 ? null : Math.min(200 * times, 1000));
+  const connection = { ...connectionOf(options.redisUrl), retryStrategy };
   const run = randomUUID();
   const jobId = (s: Shard): string => `${run}-${s.index}`;
   const byId = new Map(shards.map((s) => [jobId(s), s]));
@@ -108,7 +112,7 @@ export async function runShardsOnQueue(
   const onAbort = (): void => fail(cancelledError("runOnQueue", options.signal));
   options.signal?.addEventListener("abort", onAbort, { once: true });
 
-  const store = new Redis(options.redisUrl, { maxRetriesPerRequest: 3 });
+  const store = new Redis(options.redisUrl, { maxRetriesPerRequest: 3, retryStrategy });
   const queue = new Queue<ShardJobData, ShardJobReturn>(queueName, { connection });
   let events: QueueEvents | undefined;
   // Connection trouble is retried by ioredis; keep the last message for the time-out's text.
@@ -195,16 +199,22 @@ export async function runShardsOnQueue(
       results: shards.map((s) => results.get(jobId(s))!),
       stats: { shards: shards.length, jobBytes, resultBytes, byWorker },
     };
+  } catch (e) {
+    if (e instanceof FormulaError || e instanceof ShardQueueError) throw e;
+    // Anything else came from Redis or the connection to it (ioredis, BullMQ).
+    throw new ShardQueueError("redis_error", undefined, `${options.redisUrl}: ${e instanceof Error ? e.message : String(e)}${lastConnectionError ? ` (${lastConnectionError})` : ""}`, e);
   } finally {
     clearTimeout(timer);
     clearInterval(pollTimer);
     options.signal?.removeEventListener("abort", onAbort);
     // Waiting jobs of a failed run would only waste workers: remove them. A job
     // being run cannot be removed (it is locked); its numbers expire with the TTL.
-    // Bounded: with Redis gone, these would wait for it forever.
-    await within(5000, Promise.allSettled(shards.flatMap((s) => [queue.remove(jobId(s)), store.del(resultKey(run, s))])));
-    await within(5000, Promise.allSettled([events?.close(), queue.close()]));
-    await Promise.allSettled([events?.disconnect(), queue.disconnect()]);
+    // Bounded, and skipped without a connection: they would wait for Redis forever.
+    if (store.status === "ready") {
+      await within(5000, Promise.allSettled(shards.flatMap((s) => [queue.remove(jobId(s)), store.del(resultKey(run, s))])));
+      await within(5000, Promise.allSettled([events?.close(), queue.close()]));
+    }
+    await within(2000, Promise.allSettled([events?.disconnect(), queue.disconnect()]));
     store.disconnect();
   }
 }

@@ -145,24 +145,27 @@ export function formulaErrorFrom(reason: string | undefined, shard: Shard): Form
  *   library (a worker crashed or stalled too often, Redis refused a write...);
  * - timed_out: not every shard finished within the producer's time limit;
  * - result_missing / result_corrupt: a shard's numbers are gone from Redis
- *   (evicted, expired) or have the wrong length.
+ *   (evicted, expired) or have the wrong length;
+ * - redis_error: Redis could not be reached or refused a command (the
+ *   original error is the cause).
  */
-export type ShardQueueErrorCode = "shard_failed" | "timed_out" | "result_missing" | "result_corrupt";
+export type ShardQueueErrorCode = "shard_failed" | "timed_out" | "result_missing" | "result_corrupt" | "redis_error";
 
 export class ShardQueueError extends Error {
   declare readonly code: ShardQueueErrorCode;
   /** The shard concerned (index from 0), when one is. */
   declare readonly shard: number | undefined;
 
-  constructor(code: ShardQueueErrorCode, shard: Shard | undefined, detail: string) {
+  constructor(code: ShardQueueErrorCode, shard: Shard | undefined, detail: string, cause?: unknown) {
     const where = shard ? `shard ${shard.index + 1} of ${shard.count} (indices ${shard.start}..${shard.end - 1})` : "the queue run";
     const what = {
       shard_failed: `${where} failed on every attempt`,
       timed_out: `${where} did not finish in time`,
       result_missing: `the numbers of ${where} are not in Redis`,
       result_corrupt: `the numbers of ${where} have the wrong length`,
+      redis_error: `Redis failed ${where}`,
     }[code];
-    super(`${what}: ${detail}`);
+    super(`${what}: ${detail}`, cause === undefined ? undefined : { cause });
     this.name = "ShardQueueError";
     this.code = code;
     this.shard = shard?.index;

@@ -150,6 +150,14 @@ describe.skipIf(!installed && !required)("the job-queue example (BullMQ on a pri
     expect((error as Error).cause).toEqual(new Error("user stop"));
   });
 
+  it("ends with redis_error, not a hang, when Redis cannot be reached", async () => {
+    // Port 9 (discard) on the loopback interface: nothing listens there.
+    const error = await runOnQueue({ ...coilTolerance, options: { samples: 4096, seed: 1 } }, { redisUrl: "redis://127.0.0.1:9", shards: 2, timeoutMs: 20_000 }).catch((e: unknown) => e);
+    expect(error).toBeInstanceOf(ShardQueueError);
+    expect(error).toMatchObject({ code: "redis_error" });
+    expect((error as Error).message).toContain("redis://127.0.0.1:9");
+  });
+
   it("refuses a bad request before anything is queued, as one run does", async () => {
     const bad = { ...coilTolerance, inputs: { ...coilTolerance.inputs, distance: "-1 mm" } };
     const error = await runOnQueue(bad, { redisUrl: "redis://127.0.0.1:1", shards: 4 }).catch((e: unknown) => e);
