@@ -10,6 +10,7 @@
  */
 import { readFileSync } from "node:fs";
 import { FormulaError } from "../../src/core/errors.js";
+import { formatEngineering } from "../../src/core/format.js";
 import type { ShardRequest } from "../../src/tools/shards.js";
 import { runOnQueue } from "./run-on-queue.js";
 import { coilSweep, coilTolerance } from "./scenario.js";
@@ -36,7 +37,8 @@ try {
     process.stderr.write("\n");
     if ("monteCarlo" in result && result.monteCarlo) {
       const m = result.monteCarlo;
-      console.log(`${result.formula}: ${m.samples} samples, mean ${m.mean.toPrecision(6)} ${result.unit}, p1 ${m.p1.toPrecision(6)}, p99 ${m.p99.toPrecision(6)}`);
+      const show = (v: number): string => `${formatEngineering(v, 6)} ${result.unit}`;
+      console.log(`${result.formula}: ${m.samples} samples, mean ${show(m.mean)}, p1 ${show(m.p1)}, p99 ${show(m.p99)}`);
     } else if ("output" in result) {
       console.log(`${result.formula}: ${result.output.values.length} points, ${result.notComputed} not computed`);
     }
