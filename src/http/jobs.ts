@@ -311,8 +311,6 @@ export function createJobStore(options: Partial<JobLimits> = {}): JobStore {
   const start = (job: Job): void => {
     const run = job.run!;
     job.run = undefined;
-    job.state = "running";
-    job.startedAt = Date.now();
     const onProgress = (p: Progress): void => {
       // Counts never go back, and keep coming until the call ends: a
       // cancelled job shows where it stopped.
@@ -320,8 +318,12 @@ export function createJobStore(options: Partial<JobLimits> = {}): JobStore {
       job.progress = { fraction: Math.max(job.progress.fraction, p.fraction), done, total: p.total };
     };
     const work = (async (): Promise<void> => {
-      // Started on the next turn, so the submission is answered first.
+      // Started on the next turn, so the submission is answered first; it holds its slot meanwhile.
       await nextTurn();
+      // Cancelled (or the store closed) before it began.
+      if (job.state !== "queued") return;
+      job.state = "running";
+      job.startedAt = Date.now();
       let outcome: { value: unknown } | { error: unknown };
       try {
         outcome = { value: await run({ signal: job.controller.signal, onProgress }) };
@@ -422,7 +424,9 @@ export function createJobStore(options: Partial<JobLimits> = {}): JobStore {
     cancel(id) {
       const job = find(id);
       if (job.state === "queued") {
-        queue.splice(queue.indexOf(job), 1);
+        // Waiting in the queue, or taken from it and about to start.
+        const at = queue.indexOf(job);
+        if (at >= 0) queue.splice(at, 1);
         finish(job, "cancelled");
       } else if (job.state === "running") {
         // The library call ends within one chunk; it stays counted as running until then.
@@ -449,7 +453,7 @@ export function createJobStore(options: Partial<JobLimits> = {}): JobStore {
       closed = true;
       for (const job of queue.splice(0)) finish(job, "cancelled");
       for (const job of active.keys()) {
-        if (job.state === "running") {
+        if (job.state === "running" || job.state === "queued") {
           job.controller.abort();
           finish(job, "cancelled");
         }
