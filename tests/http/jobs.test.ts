@@ -6,11 +6,13 @@ import { createServer } from "node:http";
 import type { AddressInfo } from "node:net";
 import { Validator } from "@seriousme/openapi-schema-validator";
 import { Ajv2020 } from "ajv/dist/2020.js";
+import fc from "fast-check";
 import { afterAll, describe, expect, it } from "vitest";
 import {
   createHandler, createJobStore, createRequestListener, DEFAULT_JOB_LIMITS, HTTP_ERROR_CODES, openApiDocument, resolveJobLimits,
   DEFAULT_LIMITS, type HttpRequest, type HttpResponse, type JobLimits, type JobStatus, type JobStore,
 } from "../../src/http/index.js";
+import { ERROR_CODES } from "../../src/core/errors.js";
 import { toleranceParallel } from "../../src/tools/parallel.js";
 import { closeWorkers } from "../../src/tools/pool.node.js";
 
@@ -18,6 +20,7 @@ import { closeWorkers } from "../../src/tools/pool.node.js";
 const EPSILON_0 = 8.8541878188e-12;
 const PLATES_TOLERANCE = { formula: "parallelPlateCapacitance", inputs: { area: "1 cm^2", gap: { nominal: "1 mm", percent: 5 } }, options: { samples: 5000, seed: 3 } };
 const PLATES_SWEEP = { formula: "parallelPlateCapacitance", vary: { gap: { from: "0.1 mm", to: "1 mm", points: 200 } }, fixed: { area: "1 cm^2" } };
+const SMALL_SWEEP = { ...PLATES_SWEEP, vary: { gap: { from: "0.1 mm", to: "1 mm", points: 50 } } };
 // A formula slow enough (elliptic integrals per sample) that a job runs long enough to watch and cancel.
 const COILS = { turns1: 100, radius1: 0.01, length1: 0.02, turns2: 50, radius2: 0.015, length2: 0.01 };
 const coilsTolerance = (samples: number): Record<string, unknown> => ({
@@ -115,7 +118,7 @@ describe("jobs: submit, poll, fetch", () => {
     expect(errorOf(refused)).toMatchObject({ code: "wrong_dimension", input: "area" });
     expect(errorOf(submit(handle, "tolerance", { ...PLATES_TOLERANCE, options: { samples: 1001 } }))).toMatchObject({ code: "over_limit", input: "samples", limit: 1000 });
     expect(errorOf(submit(handle, "sweep", PLATES_SWEEP))).toMatchObject({ code: "over_limit", input: "points", limit: 50 });
-    const small = { ...PLATES_SWEEP, vary: { gap: { from: "0.1 mm", to: "1 mm", points: 50 } } };
+    const small = SMALL_SWEEP;
     expect(errorOf(submit(handle, "sweep", { ...small, formula: "noSuchFormula" }))).toMatchObject({ code: "unknown_formula" });
     expect(errorOf(submit(handle, "sweep", { ...small, vary: { gap: small.vary.gap, area: { from: 1, to: 2, points: 1 }, distance: { from: 1, to: 2, points: 1 } } }))).toMatchObject({ code: "invalid_argument", input: "vary" });
     expect(store.counts()).toEqual({ queued: 0, running: 0, finished: 0 });
@@ -240,6 +243,51 @@ describe("jobs: limits and forgetting", () => {
     expect(() => createHandler({ jobs: {} as JobStore })).toThrow(RangeError);
     for (const code of ["unknown_job", "job_gone", "job_not_done", "job_cancelled", "result_too_large", "too_many_jobs", "shutting_down"]) {
       expect(HTTP_ERROR_CODES).toContain(code);
+    }
+  });
+});
+
+describe("jobs: hostile requests", () => {
+  it("never answers 500 for random job requests, ids and methods, and every error is coded", async () => {
+    const { store, handle } = setUp({ maxJobs: 4, maxSweepPoints: 100, maxSamples: 500 });
+    const codes = new Set<string>([...ERROR_CODES, ...HTTP_ERROR_CODES.filter((c) => c !== "internal")]);
+    const given: string[] = [];
+    const request = fc.oneof(
+      fc.jsonValue({ maxDepth: 3 }),
+      fc.constantFrom<unknown>(PLATES_SWEEP, PLATES_TOLERANCE, { ...PLATES_TOLERANCE, options: { samples: 501 } }, { ...PLATES_TOLERANCE, options: "many" }),
+      fc.record({ formula: fc.constantFrom("parallelPlateCapacitance", "x", 5), vary: fc.jsonValue({ maxDepth: 2 }), inputs: fc.jsonValue({ maxDepth: 2 }), options: fc.jsonValue({ maxDepth: 1 }) }),
+    );
+    const submission = fc.oneof(
+      fc.record({ kind: fc.constantFrom<unknown>("sweep", "tolerance", "columns", 1, null), request }, { requiredKeys: [] }),
+      fc.constantFrom({ kind: "sweep", request: SMALL_SWEEP }, { kind: "tolerance", request: { ...PLATES_TOLERANCE, options: { samples: 200 } } }),
+    ).map((b) => JSON.stringify(b));
+    const id = fc.oneof(fc.string({ maxLength: 30 }), fc.constantFrom("%ZZ", "%2F", "..", "__proto__", "constructor", "0-000000000000000000000000"), fc.nat({ max: 50 }).map((i) => given[i] ?? "x"));
+    const call = fc.oneof(
+      fc.record({ method: fc.constant("POST"), path: fc.constant("/jobs"), body: fc.oneof(submission, fc.string({ maxLength: 20 })) }),
+      fc.record({ method: fc.constantFrom("GET", "DELETE", "PUT", "POST", ""), path: fc.tuple(id, fc.constantFrom("", "/result", "/x")).map(([i, tail]) => `/jobs/${i}${tail}`), body: fc.constant(undefined) }),
+    );
+    await fc.assert(
+      fc.asyncProperty(call, async (c) => {
+        const r = handle(c);
+        expect(r.status, `${c.method} ${c.path} ${c.body}`).not.toBe(500);
+        if (r.status === 202) given.push(body<JobStatus>(r).id);
+        if (r.status >= 400) expect(codes.has(errorOf(r).code as string), `${c.method} ${c.path} ${c.body}`).toBe(true);
+        expect(JSON.parse(JSON.stringify(r.body))).toEqual(r.body);
+        // Now and then let the jobs run, so later calls meet running and finished ones.
+        if (given.length % 3 === 0) await turn(1);
+      }),
+      { numRuns: 300, seed: 18 },
+    );
+    await store.idle();
+    // The cases reached accepted jobs, not only refusals.
+    expect(given.length).toBeGreaterThan(5);
+    // Every job accepted ended in a known state with a coded error where it failed.
+    for (const jobId of given) {
+      const r = handle({ method: "GET", path: `/jobs/${jobId}` });
+      if (r.status !== 200) continue;
+      const s = body<JobStatus>(r);
+      expect(["done", "failed", "cancelled"]).toContain(s.state);
+      if (s.state === "failed") expect(codes.has(String(s.error!.code))).toBe(true);
     }
   });
 });
