@@ -2,6 +2,7 @@
 // bound a job store's memory. Jobs are sized to run well under a second or
 // two each; waits poll the store and are bounded by an iteration count, never
 // by a time threshold on the work.
+import { readFileSync } from "node:fs";
 import { createServer } from "node:http";
 import type { AddressInfo } from "node:net";
 import { Validator } from "@seriousme/openapi-schema-validator";
@@ -384,5 +385,52 @@ describe("jobs over node:http and in the OpenAPI document", () => {
     expect(check("JobStatus", handle({ method: "GET", path: url }).body)).toEqual([]);
     expect(check("SweepResult", handle({ method: "GET", path: `${url}/result` }).body)).toEqual([]);
     expect(check("Error", handle({ method: "GET", path: "/jobs/nope" }).body)).toEqual([]);
+  });
+});
+
+describe("README \"Long requests as jobs\"", () => {
+  const readme = readFileSync(new URL("../../README.md", import.meta.url), "utf8");
+  const section = readme.slice(readme.indexOf("### Long requests as jobs"), readme.indexOf("## In a browser"));
+  const table = (first: string): string[][] => {
+    const lines = section.split("\n");
+    const start = lines.findIndex((l) => l.startsWith(`| ${first} |`));
+    expect(start, first).toBeGreaterThan(0);
+    const rows: string[][] = [];
+    for (let i = start + 2; i < lines.length && lines[i]!.startsWith("|"); i++) rows.push(lines[i]!.split("|").slice(1, -1).map((c) => c.trim()));
+    return rows;
+  };
+
+  it("states the default job limits", () => {
+    const rows = table("Job limit");
+    expect(Object.fromEntries(rows.map(([name, value]) => [name!.replace(/`/g, ""), Number(value)]))).toEqual({ ...DEFAULT_JOB_LIMITS });
+  });
+
+  it("lists the job routes the OpenAPI document describes", () => {
+    const routes = table("Job route").map(([r]) => r!.match(/`(?:GET|POST|DELETE) (\/[^` ]*)`/)![1]!);
+    const withJobs = Object.keys((openApiDocument(DEFAULT_LIMITS, DEFAULT_JOB_LIMITS) as { paths: object }).paths);
+    const without = Object.keys((openApiDocument() as { paths: object }).paths);
+    expect(new Set(routes)).toEqual(new Set(withJobs.filter((p) => !without.includes(p))));
+  });
+
+  it("lists every job error code with the status the handler gives", async () => {
+    const rows = table("Job status");
+    const documented = new Map(rows.map(([status, code]) => [code!.replace(/`/g, ""), Number(status)]));
+    const { store, handle } = setUp({ maxJobs: 1, maxResultBytes: 100, keepFinishedMs: 60_000 });
+    const seen = new Map<string, number>();
+    const note = (r: HttpResponse): void => void seen.set(errorOf(r).code as string, r.status);
+    note(handle({ method: "GET", path: "/jobs/nope" }));
+    const big = body<JobStatus>(submit(handle, "sweep", PLATES_SWEEP));
+    note(handle({ method: "GET", path: big.resultUrl }));
+    note(submit(handle, "sweep", PLATES_SWEEP));
+    await store.idle();
+    note(handle({ method: "GET", path: big.resultUrl }));
+    const queued = body<JobStatus>(submit(handle, "sweep", PLATES_SWEEP));
+    handle({ method: "DELETE", path: queued.url });
+    note(handle({ method: "GET", path: queued.resultUrl }));
+    handle({ method: "DELETE", path: queued.url });
+    note(handle({ method: "GET", path: queued.url }));
+    await store.close();
+    note(handle({ method: "GET", path: queued.url }));
+    expect(seen).toEqual(documented);
   });
 });
