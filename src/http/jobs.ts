@@ -27,6 +27,7 @@ import { type ParallelOptions, sweepParallel, toleranceParallel } from "../tools
 import { planShards } from "../tools/shards.js";
 import type { SweepSpec } from "../tools/sweep.js";
 import type { ToleranceOptions, ToleranceValue } from "../tools/tolerance.js";
+import { wholeNumbers } from "./limits.js";
 import { formulaErrorBody, HttpError, httpErrorBody, isObject } from "./refusal.js";
 import { checkSweep, checkTolerance, sweepAnswer } from "./requests.js";
 
@@ -90,18 +91,7 @@ const JOB_CEILINGS: Record<keyof JobLimits, number> = {
  * maxRunningJobs at least 1), so a bad configuration fails at start-up.
  */
 export function resolveJobLimits(options: Partial<JobLimits> = {}): JobLimits {
-  const out: Record<string, number> = { ...DEFAULT_JOB_LIMITS };
-  for (const [name, value] of Object.entries(options)) {
-    if (!Object.hasOwn(JOB_CEILINGS, name)) throw new RangeError(`emquant/http: unknown job limit "${name}"`);
-    if (value === undefined) continue;
-    const ceiling = JOB_CEILINGS[name as keyof JobLimits];
-    const floor = name === "maxJobs" || name === "maxRunningJobs" ? 1 : 0;
-    if (typeof value !== "number" || !Number.isInteger(value) || value < floor || value > ceiling) {
-      throw new RangeError(`emquant/http: job limit ${name} must be a whole number from ${floor} to ${ceiling}`);
-    }
-    out[name] = value;
-  }
-  return Object.freeze(out) as unknown as JobLimits;
+  return wholeNumbers("job limit", DEFAULT_JOB_LIMITS, JOB_CEILINGS, options, { maxJobs: 1, maxRunningJobs: 1 });
 }
 
 /** A job as `GET /jobs/{id}` answers it. */
