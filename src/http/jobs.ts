@@ -100,9 +100,12 @@ export interface JobStatus {
   readonly kind: JobKind;
   readonly state: JobState;
   /**
-   * How far the work got: items done of total (Monte Carlo samples or grid
-   * points), as the library reports it at most every 100 ms; never
-   * decreasing, fraction 1 once done. For a cancelled job, where it stopped.
+   * How far the work got, as the library reports it at most every 100 ms:
+   * items done of total, in the library call's own count (grid points; for a
+   * tolerance analysis, its corner evaluations then its Monte Carlo samples),
+   * which it gives once the job starts; while queued, total is the points or
+   * samples asked for. Fraction and done never decrease; fraction 1 once
+   * done. For a cancelled job, where it stopped.
    */
   readonly progress: Progress;
   /** Seconds spent computing so far (0 while queued), to the millisecond. */

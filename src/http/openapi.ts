@@ -433,7 +433,7 @@ function addJobs(
       state: { enum: ["queued", "running", "done", "failed", "cancelled"] },
       progress: {
         type: "object", required: ["fraction", "done", "total"],
-        description: "items done of total (Monte Carlo samples, grid points); never decreasing, fraction 1 once done; for a cancelled job, where it stopped",
+        description: "items done of total in the library call's count (grid points; corner evaluations then Monte Carlo samples), reported once the job starts; never decreasing, fraction 1 once done; for a cancelled job, where it stopped",
         properties: { fraction: { type: "number", minimum: 0, maximum: 1 }, done: { type: "integer", minimum: 0 }, total: { type: "integer", minimum: 0 } },
       },
       elapsedSeconds: { ...seconds, description: "time spent computing (0 while queued)" },
