@@ -16,6 +16,13 @@
  *   `unknown_formula` named in a body, `no_solution`, ...) or `over_limit`
  *   (a request asking for more work than the handler's limits allow)
  * User input never gives 500; 500 `internal` means a bug in the library.
+ *
+ * With a job store (`createHandler({ jobs })`, see jobs.ts), also:
+ * - 202 a job submitted (POST /jobs), its URL in `location`
+ * - 404 `unknown_job`; 410 `job_gone` a job no longer kept
+ * - 409 `job_not_done` or `job_cancelled` when fetching a result there is not
+ * - 422 `result_too_large` a job's result over the size limit
+ * - 503 `too_many_jobs`, or `shutting_down` once the store is closed
  */
 import { designReportHtml, designReportMarkdown } from "../designs/report.js";
 import type { DesignSpec } from "../designs/spec.js";
@@ -28,9 +35,11 @@ import { sweepRequest } from "../tools/sweep.js";
 import { columnsToJson, evaluateColumns } from "../tools/columns.js";
 import { columnsToCsv, evaluateCsv, readCsvTable } from "../tools/columns-csv.js";
 import { toleranceRequest } from "../tools/tolerance.js";
-import type { HttpErrorCode } from "./codes.js";
+import { jobRoutes, type JobRoutes, type JobStore } from "./jobs.js";
 import { resolveLimits, type HandlerLimits } from "./limits.js";
 import { openApiDocument } from "./openapi.js";
+import { formulaErrorBody, HttpError, httpErrorBody, isObject, overLimit } from "./refusal.js";
+import { checkSweep, checkTolerance, sweepAnswer } from "./requests.js";
 
 /** What the handler needs of a request. */
 export interface HttpRequest {
@@ -64,27 +73,11 @@ export type JsonValue = null | boolean | number | string | readonly JsonValue[] 
 /** What the handler answers: send `body` as JSON (`JSON.stringify`) with the status and headers. */
 export interface HttpResponse {
   readonly status: number;
-  /** Lower-case header names: always `content-type`, plus `allow` on 405. */
+  /** Lower-case header names: always `content-type`, plus `allow` on 405 and `location` on 202 (a job submitted). */
   readonly headers: Readonly<Record<string, string>>;
   readonly body: JsonValue;
 }
 
-
-/** A refusal by the handler itself (not by the library): its status, code and the field it is about. */
-class HttpError extends Error {
-  constructor(readonly status: number, readonly code: HttpErrorCode, message: string, readonly input?: string, readonly limit?: number) {
-    super(message);
-  }
-
-  /** 405, with the method the route takes (for the allow header). */
-  static method(method: string, allow: "GET" | "POST"): HttpError {
-    const e = new HttpError(405, "method_not_allowed", `${method || "an empty method"} is not allowed here; use ${allow}`);
-    e.allow = allow;
-    return e;
-  }
-
-  allow: string | undefined;
-}
 
 const JSON_TYPE = "application/json; charset=utf-8";
 
@@ -98,10 +91,7 @@ function errorResponse(status: number, error: Record<string, unknown>, headers: 
 }
 
 function fromFormulaError(e: FormulaError, status: number): HttpResponse {
-  const error: Record<string, unknown> = { code: e.code, message: e.message, input: e.input ?? null };
-  // The structured fields, where the error has them, so clients need not parse the message.
-  for (const key of ["formula", "expected", "received", "rule"] as const) if (e[key] !== undefined) error[key] = e[key];
-  return errorResponse(status, error);
+  return errorResponse(status, formulaErrorBody(e));
 }
 
 const GET_ROUTES = new Set(["/formulas", "/openapi.json"]);
@@ -169,14 +159,6 @@ function tooLarge(limits: HandlerLimits): HttpError {
   return new HttpError(413, "body_too_large", `the request body is over ${limits.maxBodyBytes} bytes`);
 }
 
-function overLimit(field: string, limit: number, what: string): HttpError {
-  return new HttpError(422, "over_limit", `${field} is over this server's limit of ${limit} ${what}`, field, limit);
-}
-
-function isObject(v: unknown): v is Record<string, unknown> {
-  return typeof v === "object" && v !== null && !Array.isArray(v);
-}
-
 /**
  * Refuse work over the limits before computing. Only numbers are compared
  * here; a value of the wrong type or shape is left to the library, whose
@@ -189,49 +171,6 @@ function checkSolve(body: Record<string, unknown>, limits: HandlerLimits): void 
   if (typeof o.samplesPerDecade === "number" && !(o.samplesPerDecade <= limits.maxSolveSamplesPerDecade)) {
     throw overLimit("samplesPerDecade", limits.maxSolveSamplesPerDecade, "samples per decade");
   }
-}
-
-/** The tolerance options to run with: over-limit values refused, the sample count defaulted within the limit. */
-function checkTolerance(body: Record<string, unknown>, limits: HandlerLimits): unknown {
-  const o = body.options ?? {};
-  if (!isObject(o)) return o;
-  if (typeof o.samples === "number" && !(o.samples <= limits.maxSamples)) throw overLimit("samples", limits.maxSamples, "samples");
-  if (typeof o.maxCornerInputs === "number" && !(o.maxCornerInputs <= limits.maxCornerInputs)) {
-    throw overLimit("maxCornerInputs", limits.maxCornerInputs, "corner inputs");
-  }
-  // Unset: the library's defaults (10000 samples, 12 corner inputs), lowered to a server's tighter limits.
-  return {
-    ...o,
-    ...(o.samples === undefined ? { samples: Math.min(10_000, limits.maxSamples) } : {}),
-    ...(o.maxCornerInputs === undefined ? { maxCornerInputs: Math.min(12, limits.maxCornerInputs) } : {}),
-  };
-}
-
-function checkSweep(body: Record<string, unknown>, limits: HandlerLimits): void {
-  if (!isObject(body.vary)) return;
-  const axes = Object.values(body.vary);
-  // The library refuses more than two axes before computing; two at most are counted here.
-  if (axes.length > 2) return;
-  let total = 1;
-  for (const a of axes) if (isObject(a) && typeof a.points === "number") total *= a.points;
-  if (!(total <= limits.maxSweepPoints)) throw overLimit("points", limits.maxSweepPoints, "points per sweep");
-}
-
-/** A sweep result as JSON: typed arrays as arrays, and null (not NaN, which JSON lacks) where a point was not computed. */
-function sweepJson(body: Record<string, unknown>): unknown {
-  const r = sweepRequest(body as never);
-  const column = (values: Float64Array): (number | null)[] => Array.from(values, (v, k) => (r.computed[k] ? v : null));
-  const components = r.output.components;
-  return {
-    formula: r.formula,
-    axes: r.axes.map((a) => ({ name: a.name, unit: a.unit, scale: a.scale, values: Array.from(a.values) })),
-    output: {
-      name: r.output.name, description: r.output.description, unit: r.output.unit, values: column(r.output.values),
-      ...(components ? { components: Object.fromEntries(Object.entries(components).map(([k, v]) => [k, column(v)])) } : {}),
-    },
-    notComputed: r.notComputed,
-    notes: r.notes,
-  };
 }
 
 /**
@@ -293,7 +232,33 @@ function designAnswer(body: Record<string, unknown>, limits: HandlerLimits): unk
   };
 }
 
-function route(request: HttpRequest, limits: HandlerLimits, document: () => unknown): HttpResponse {
+/**
+ * The job routes: POST /jobs submits (202, with the job's URL in `location`),
+ * GET /jobs/{id} polls, GET /jobs/{id}/result fetches, DELETE /jobs/{id}
+ * cancels (or forgets a finished job).
+ */
+function jobRoute(request: HttpRequest, rawPath: string, jobs: JobRoutes, limits: HandlerLimits): HttpResponse {
+  const method = request.method;
+  if (rawPath === "/jobs") {
+    if (method !== "POST") throw HttpError.method(method, "POST");
+    const status = jobs.submit(readBody(request.body, limits));
+    return { status: 202, headers: { "content-type": JSON_TYPE, location: status.url }, body: status as unknown as JsonValue };
+  }
+  const rest = rawPath.slice("/jobs/".length);
+  const slash = rest.indexOf("/");
+  const id = decode(slash < 0 ? rest : rest.slice(0, slash), "job id in the path");
+  if (slash >= 0) {
+    if (rest.slice(slash) !== "/result") throw new HttpError(404, "not_found", "no such route; a job has /jobs/{id} and /jobs/{id}/result");
+    if (method !== "GET") throw HttpError.method(method, "GET");
+    const answer = jobs.result(id);
+    return { status: answer.status, headers: { "content-type": JSON_TYPE }, body: answer.body as JsonValue };
+  }
+  if (method === "GET") return ok(jobs.status(id));
+  if (method === "DELETE") return ok(jobs.cancel(id));
+  throw HttpError.method(method, "GET, DELETE");
+}
+
+function route(request: HttpRequest, limits: HandlerLimits, document: () => unknown, jobs: JobRoutes | undefined): HttpResponse {
   const method = request.method;
   const target = request.path;
   const q = target.indexOf("?");
@@ -301,6 +266,7 @@ function route(request: HttpRequest, limits: HandlerLimits, document: () => unkn
   const search = q < 0 ? "" : target.slice(q + 1).split("#")[0]!;
   if (!rawPath.startsWith("/")) throw new HttpError(404, "not_found", "the path must start with /");
 
+  if (jobs !== undefined && (rawPath === "/jobs" || rawPath.startsWith("/jobs/"))) return jobRoute(request, rawPath, jobs, limits);
   const isFormula = rawPath.startsWith("/formulas/");
   if (GET_ROUTES.has(rawPath) || isFormula) {
     if (method !== "GET") throw HttpError.method(method, "GET");
@@ -334,12 +300,27 @@ function route(request: HttpRequest, limits: HandlerLimits, document: () => unkn
       return ok(columnsAnswer(body, limits));
     default:
       checkSweep(body, limits);
-      return ok(sweepJson(body));
+      return ok(sweepAnswer(sweepRequest(body as never)));
   }
 }
 
-/** Options of `createHandler` and `createRequestListener`: the limits (see HandlerLimits for the defaults). */
-export type HandlerOptions = Partial<HandlerLimits>;
+/** Options of `createHandler` and `createRequestListener`: the limits (see HandlerLimits for the defaults), and a job store. */
+export interface HandlerOptions extends Partial<HandlerLimits> {
+  /**
+   * A store made by `createJobStore`: adds the routes POST /jobs, GET and DELETE
+   * /jobs/{id}, GET /jobs/{id}/result. The caller owns it and closes it.
+   */
+  readonly jobs?: JobStore;
+}
+
+/** The limits and the job store of the options, each checked (a bad limit or a store not made by createJobStore: RangeError). */
+export function readHandlerOptions(options: HandlerOptions): { limits: HandlerLimits; jobs: JobRoutes | undefined; store: JobStore | undefined } {
+  const { jobs: store, ...rest } = options ?? {};
+  const limits = resolveLimits(rest);
+  const jobs = store === undefined ? undefined : jobRoutes(store);
+  if (store !== undefined && jobs === undefined) throw new RangeError("emquant/http: jobs must be a store made by createJobStore");
+  return { limits, jobs, store };
+}
 
 /**
  * The handler: a function from a request to a response, with the limits
@@ -354,22 +335,19 @@ export type HandlerOptions = Partial<HandlerLimits>;
  * // { status: 200, headers: { "content-type": ... }, body: { id, value: 4.427e-13, unit: "F", warnings: [{ code: "fringing", ... }], cautions: [] } }
  */
 export function createHandler(options: HandlerOptions = {}): (request: HttpRequest) => HttpResponse {
-  const limits = resolveLimits(options);
+  const { limits, jobs, store } = readHandlerOptions(options);
   // Built on first request for it: it depends only on the limits and the registry.
   let doc: unknown;
-  const document = (): unknown => (doc ??= openApiDocument(limits));
+  const document = (): unknown => (doc ??= openApiDocument(limits, store?.limits));
   return (request) => {
     try {
       if (typeof request !== "object" || request === null || typeof request.method !== "string" || typeof request.path !== "string") {
         throw new HttpError(400, "bad_request", "the request needs a method and a path");
       }
-      return route(request, limits, document);
+      return route(request, limits, document, jobs);
     } catch (e) {
       if (e instanceof HttpError) {
-        const error: Record<string, unknown> = { code: e.code, message: e.message, input: e.input ?? null };
-        if (e.limit !== undefined) error.limit = e.limit;
-        const headers: Record<string, string> = e.allow ? { allow: e.allow } : {};
-        return errorResponse(e.status, error, headers);
+        return errorResponse(e.status, httpErrorBody(e), e.headers);
       }
       if (e instanceof FormulaError) return fromFormulaError(e, 422);
       // Not user input: a bug. Say so without leaking internals.

@@ -41,7 +41,6 @@ export const DEFAULT_LIMITS: HandlerLimits = Object.freeze({
  * server's configuration fails at start-up, not on a request.
  */
 export function resolveLimits(options: Partial<HandlerLimits> = {}): HandlerLimits {
-  const out: Record<string, number> = { ...DEFAULT_LIMITS };
   const ceilings: Record<keyof HandlerLimits, number> = {
     maxBodyBytes: 2 ** 30,
     maxSamples: 1e6,
@@ -51,14 +50,25 @@ export function resolveLimits(options: Partial<HandlerLimits> = {}): HandlerLimi
     maxSolveDecades: SOLVE_LIMITS.decades.max,
     maxSolveSamplesPerDecade: SOLVE_LIMITS.samplesPerDecade.max,
   };
+  return wholeNumbers("limit", DEFAULT_LIMITS, ceilings, options);
+}
+
+/**
+ * `defaults` with the options given, each a whole number from its floor (0
+ * unless given) to its ceiling; an unknown name or a bad value is a RangeError
+ * naming it (`what` says which kind of limit).
+ */
+export function wholeNumbers<T extends object>(what: string, defaults: T, ceilings: Record<keyof T, number>, options: Partial<T>, floors: Partial<Record<keyof T, number>> = {}): T {
+  const out: Record<string, unknown> = { ...(defaults as Record<string, unknown>) };
   for (const [name, value] of Object.entries(options)) {
-    if (!Object.hasOwn(ceilings, name)) throw new RangeError(`emquant/http: unknown limit "${name}"`);
+    if (!Object.hasOwn(ceilings, name)) throw new RangeError(`emquant/http: unknown ${what} "${name}"`);
     if (value === undefined) continue;
-    const ceiling = ceilings[name as keyof HandlerLimits];
-    if (typeof value !== "number" || !Number.isInteger(value) || value < 0 || value > ceiling) {
-      throw new RangeError(`emquant/http: limit ${name} must be a whole number from 0 to ${ceiling}`);
+    const ceiling = ceilings[name as keyof T];
+    const floor = floors[name as keyof T] ?? 0;
+    if (typeof value !== "number" || !Number.isInteger(value) || value < floor || value > ceiling) {
+      throw new RangeError(`emquant/http: ${what} ${name} must be a whole number from ${floor} to ${ceiling}`);
     }
     out[name] = value;
   }
-  return Object.freeze(out) as unknown as HandlerLimits;
+  return Object.freeze(out) as T;
 }

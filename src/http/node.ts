@@ -6,8 +6,7 @@
  * types: the request and response are described by the few members used, so
  * the declarations type-check for consumers without @types/node.
  */
-import { createHandler, type HandlerOptions, type HttpResponse } from "./handler.js";
-import { resolveLimits } from "./limits.js";
+import { createHandler, type HandlerOptions, type HttpResponse, readHandlerOptions } from "./handler.js";
 
 /** What the listener uses of node:http's IncomingMessage. */
 export interface NodeRequestLike {
@@ -95,7 +94,7 @@ function send(req: NodeRequestLike, res: NodeResponseLike, answer: HttpResponse)
  */
 export function createRequestListener(options: HandlerOptions = {}): (req: NodeRequestLike, res: NodeResponseLike) => void {
   const handle = createHandler(options);
-  const limit = resolveLimits(options).maxBodyBytes;
+  const limit = readHandlerOptions(options).limits.maxBodyBytes;
   return (req, res) => {
     const method = req.method ?? "GET";
     const path = req.url ?? "/";
