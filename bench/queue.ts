@@ -10,9 +10,9 @@ import { spawnSync } from "node:child_process";
 import { loadavg } from "node:os";
 import { findRedisServer, startLocalRedis } from "../examples/queue/local-redis.js";
 import { buildWorker, startWorkerProcesses } from "../examples/queue/local-workers.js";
-import { runOnQueue } from "../examples/queue/run-on-queue.js";
+import { type QueueRequest, runOnQueue } from "../examples/queue/run-on-queue.js";
 import { coilSweep, coilTolerance } from "../examples/queue/scenario.js";
-import { planShards, runShard, type ShardRequest, type SweepShardRequest, type ToleranceShardRequest } from "../src/tools/shards.js";
+import { planShards, runShard, type SweepShardRequest, type ToleranceShardRequest } from "../src/tools/shards.js";
 import { type BenchRow, median } from "./util.js";
 
 const ms = (v: number): string => (v >= 1000 ? `${(v / 1000).toFixed(2)} s` : `${v.toFixed(1)} ms`);
@@ -25,14 +25,14 @@ export async function run(): Promise<BenchRow[]> {
   const one = await startWorkerProcesses(file, 1, redis.url, { queue: "bench-one" });
   const two = await startWorkerProcesses(file, 2, redis.url, { queue: "bench-two" });
   try {
-    const time = async (request: ShardRequest, queue: string, shards: number): Promise<number> => {
+    const time = async (request: QueueRequest, queue: string, shards: number): Promise<number> => {
       const t0 = performance.now();
       await runOnQueue(request, { redisUrl: redis.url, queue, shards, timeoutMs: 1_800_000 });
       return performance.now() - t0;
     };
-    const compare = async (label: string, request: ShardRequest, shards: number, rounds: number): Promise<void> => {
+    const compare = async (label: string, request: QueueRequest, shards: number, rounds: number): Promise<void> => {
       // Warm both queues' workers (JIT, connections) on a small copy first.
-      const small: ShardRequest = request.kind === "tolerance" ? { ...request, options: { ...request.options, samples: 20_000 } } : { ...request, vary: Object.fromEntries(Object.entries(request.vary).map(([k, a]) => [k, { ...a!, points: 50 }])) };
+      const small: QueueRequest = request.kind === "tolerance" ? { ...request, options: { ...request.options, samples: 20_000 } } : { ...request, vary: Object.fromEntries(Object.entries(request.vary).map(([k, a]) => [k, { ...a!, points: 50 }])) };
       await time(small, "bench-one", 2);
       await time(small, "bench-two", 2);
       const a: number[] = [];

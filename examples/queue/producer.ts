@@ -11,8 +11,7 @@
 import { readFileSync } from "node:fs";
 import { FormulaError } from "../../src/core/errors.js";
 import { formatEngineering } from "../../src/core/format.js";
-import type { ShardRequest } from "../../src/tools/shards.js";
-import { runOnQueue } from "./run-on-queue.js";
+import { type QueueRequest, runOnQueue } from "./run-on-queue.js";
 import { coilSweep, coilTolerance } from "./scenario.js";
 import { DEFAULT_REDIS_URL } from "./shard-jobs.js";
 
@@ -24,7 +23,7 @@ const controller = new AbortController();
 process.once("SIGINT", () => controller.abort());
 
 try {
-  const requests: ShardRequest[] = file ? [JSON.parse(readFileSync(file, "utf8")) as ShardRequest] : [coilTolerance, coilSweep];
+  const requests: QueueRequest[] = file ? [JSON.parse(readFileSync(file, "utf8")) as QueueRequest] : [coilTolerance, coilSweep];
   for (const request of requests) {
     const t0 = performance.now();
     const { result, stats } = await runOnQueue(request, {

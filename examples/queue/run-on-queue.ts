@@ -17,7 +17,10 @@ import { Queue, QueueEvents } from "bullmq";
 import { Redis } from "ioredis";
 import { FormulaError } from "../../src/core/errors.js";
 import { cancelledError, type LongRunOptions, ticker } from "../../src/core/progress.js";
-import { mergeShards, planShards, type Shard, type ShardRequest, type ShardResult, type SweepShardRequest, type ToleranceShardRequest } from "../../src/tools/shards.js";
+import { mergeShards, planShards, type Shard, type ShardResult, type SweepShardRequest, type ToleranceShardRequest } from "../../src/tools/shards.js";
+
+/** The requests this example runs on the queue: tolerance and sweeps (columns shards exist in the library; their results are not encoded here). */
+export type QueueRequest = ToleranceShardRequest | SweepShardRequest;
 import type { SweepResult } from "../../src/tools/sweep.js";
 import type { ToleranceResult } from "../../src/tools/tolerance.js";
 import {
@@ -55,13 +58,13 @@ export interface QueueRunStats {
 
 export function runOnQueue(request: ToleranceShardRequest, options: QueueRunOptions): Promise<{ result: ToleranceResult; stats: QueueRunStats }>;
 export function runOnQueue(request: SweepShardRequest, options: QueueRunOptions): Promise<{ result: SweepResult; stats: QueueRunStats }>;
-export function runOnQueue(request: ShardRequest, options: QueueRunOptions): Promise<{ result: ToleranceResult | SweepResult; stats: QueueRunStats }>;
-export async function runOnQueue(request: ShardRequest, options: QueueRunOptions): Promise<{ result: ToleranceResult | SweepResult; stats: QueueRunStats }> {
+export function runOnQueue(request: QueueRequest, options: QueueRunOptions): Promise<{ result: ToleranceResult | SweepResult; stats: QueueRunStats }>;
+export async function runOnQueue(request: QueueRequest, options: QueueRunOptions): Promise<{ result: ToleranceResult | SweepResult; stats: QueueRunStats }> {
   // Checked here, as one run checks it: a bad request fails before any job exists.
   const shards = planShards(request, options.shards);
   const { results, stats } = await runShardsOnQueue(shards, options);
   const t0 = performance.now();
-  const result = mergeShards(results);
+  const result = mergeShards(results) as ToleranceResult | SweepResult;
   return { result, stats: { ...stats, mergeMs: performance.now() - t0 } };
 }
 
