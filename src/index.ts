@@ -4,7 +4,7 @@ export * from "./units/index.js";
 export { FormulaError, ERROR_CODES } from "./core/errors.js";
 export type { ErrorCode, FormulaErrorFields } from "./core/errors.js";
 export { PROGRESS_INTERVAL_MS } from "./core/progress.js";
-export type { LongRunOptions, Progress } from "./core/progress.js";
+export type { AbortSignalLike, LongRunOptions, Progress } from "./core/progress.js";
 export { defineFormula, isFormula, domainRule } from "./core/formula.js";
 export type { Formula, AnyFormula } from "./core/formula.js";
 export type * from "./core/spec.js";

@@ -30,10 +30,22 @@ export interface Progress {
   readonly total: number;
 }
 
+/**
+ * What the library reads of an AbortSignal. Any AbortSignal (Node's, the
+ * browser's) fits; declared here so that the library's types need neither
+ * the DOM library nor @types/node in a consumer's compilation.
+ */
+export interface AbortSignalLike {
+  readonly aborted: boolean;
+  readonly reason?: unknown;
+  addEventListener(type: "abort", listener: () => void, options?: { readonly once?: boolean }): void;
+  removeEventListener(type: "abort", listener: () => void): void;
+}
+
 /** The options every long call accepts. */
 export interface LongRunOptions {
   /** Ends the call within one chunk of work, with a "cancelled" FormulaError. */
-  readonly signal?: AbortSignal;
+  readonly signal?: AbortSignalLike;
   /** Called with the progress at most every PROGRESS_INTERVAL_MS, and once at the end with fraction 1. */
   readonly onProgress?: (progress: Progress) => void;
 }
@@ -42,7 +54,7 @@ export interface LongRunOptions {
 export const PROGRESS_INTERVAL_MS = 100;
 
 /** The "cancelled" error of `tool`, carrying the signal's reason as its cause. */
-export function cancelledError(tool: string, signal: AbortSignal | undefined): FormulaError {
+export function cancelledError(tool: string, signal: AbortSignalLike | undefined): FormulaError {
   const e = new FormulaError("cancelled", { formula: tool, detail: "the call was cancelled through its AbortSignal" });
   if (signal !== undefined) Object.defineProperty(e, "cause", { value: signal.reason, enumerable: false, configurable: true });
   return e;

@@ -1,5 +1,5 @@
 import { FormulaError, type ErrorCode } from "../core/errors.js";
-import { cancelledError } from "../core/progress.js";
+import { type AbortSignalLike, cancelledError } from "../core/progress.js";
 import { getFormula } from "../core/registry.js";
 import type { QuantityInput } from "../core/spec.js";
 import { fieldRange, type InsideCount } from "../flux/biot-savart.js";
@@ -28,7 +28,7 @@ import { monteCarloRange, type MonteCarloPart, type Varied } from "./tolerance.j
 /** How a caller of runOnPool follows and stops its tasks (see pool.node.ts). */
 export interface PoolWatch {
   /** Aborting it cancels the call: no more tasks start, running ones stop within one block, the promise rejects "cancelled". */
-  readonly signal?: AbortSignal;
+  readonly signal?: AbortSignalLike;
   /** Items done so far over all tasks (each task's own unit, summed); throwing cancels the call with that error. */
   readonly progress?: (done: number) => void;
 }
