@@ -4,10 +4,11 @@
 // dipole limit far away.
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
-import { biotSavart, cylinderMagnetAxialField, solenoidAxialField, type Current, type FluxDensity, type Length } from "../../src/index.js";
+import { cylinderMagnetAxialField, solenoidAxialField, type Current, type FluxDensity, type Length } from "../../src/index.js";
 import { MU0 } from "../../src/constants/si.js";
 import { expectClose, relativeError } from "../helpers/reference.js";
 import { cylinderOracle } from "./oracle.js";
+import { stackedLoopsField } from "../helpers/stacked-loops.js";
 
 const m = (v: number) => v as Length;
 const field = (br: number, r: number, l: number, z: number) =>
@@ -31,20 +32,8 @@ describe("cylinderMagnetAxialField", () => {
   it("agrees with the Biot-Savart solver on the equivalent surface current, 400 loops of 2000-gons", () => {
     const r = 0.01, l = 0.02, br = 1.3, loops = 400, sides = 2000;
     const points = new Float64Array([0, 0, 0.015, 0, 0, 0.002, 0, 0, -0.04]);
-    const total = new Float64Array(points.length);
-    const current = (br / MU0) * (l / loops); // surface current M times the strip width
-    for (let k = 0; k < loops; k++) {
-      const zk = -l / 2 + ((k + 0.5) * l) / loops; // midpoint rule along the side surface
-      const path = new Float64Array(3 * (sides + 1));
-      for (let i = 0; i <= sides; i++) {
-        const t = (2 * Math.PI * i) / sides;
-        path[3 * i] = r * Math.cos(t);
-        path[3 * i + 1] = r * Math.sin(t);
-        path[3 * i + 2] = zk;
-      }
-      const b = biotSavart(path, current, points);
-      for (let j = 0; j < total.length; j++) total[j] = total[j]! + b[j]!;
-    }
+    // Surface current M times the strip width, loops by the midpoint rule along the side surface.
+    const total = stackedLoopsField(r, l, loops, sides, (br / MU0) * (l / loops), points);
     for (let p = 0; p < 3; p++) {
       // Polygon and midpoint-rule errors are both O(1e-5) here.
       expect(relativeError(total[3 * p + 2]!, field(br, r, l, points[3 * p + 2]!))).toBeLessThan(1e-4);
