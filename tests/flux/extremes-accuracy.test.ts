@@ -11,6 +11,7 @@
 import Decimal from "decimal.js";
 import fc from "fast-check";
 import { afterAll, describe, expect, it } from "vitest";
+import { exactDecimal } from "../helpers/exact-decimal.js";
 import { FormulaError } from "../../src/index.js";
 import {
   chargedSphereField, coreFluxDensity, coreLoss, gapFringingFactor, gappedCoreInductance, helmholtzCenterField, inductanceFactor,
@@ -25,18 +26,9 @@ const PI = D.acos(-1);
 const MU0 = new D("1.25663706127e-6");
 const EPS0 = new D("8.8541878188e-12");
 
-const view = new DataView(new ArrayBuffer(8));
 /** The exact value of a double as a decimal (its full binary expansion). */
 function exact(x: number, Ctor: typeof Decimal = D): Dec {
-  if (x === 0) return new Ctor(0);
-  view.setFloat64(0, x);
-  const b = view.getBigUint64(0);
-  const expBits = Number((b >> 52n) & 0x7ffn);
-  const frac = b & ((1n << 52n) - 1n);
-  const m = expBits === 0 ? frac : frac | (1n << 52n);
-  const e = (expBits === 0 ? 1 : expBits) - 1075;
-  const s = e >= 0 ? (m << BigInt(e)).toString() : `${m * 5n ** BigInt(-e)}e-${-e}`;
-  return new Ctor(x < 0 ? `-${s}` : s);
+  return exactDecimal(x, Ctor);
 }
 
 const MAX = exact(Number.MAX_VALUE);

@@ -11,6 +11,7 @@ import {
 import { closeWorkers, workerThreads } from "../../src/tools/pool.node.js";
 import { sweep } from "../../src/tools/sweep.js";
 import { tolerance } from "../../src/tools/tolerance.js";
+import { expectRejection } from "../helpers/errors.js";
 
 // Bit-identical results for any worker count: each parallel call is compared
 // with the synchronous call (one thread, in order) by exact equality. The
@@ -23,20 +24,10 @@ afterAll(async () => {
   expect(workerThreads()).toBe(0);
 });
 
-async function rejection(p: Promise<unknown>): Promise<FormulaError> {
-  try {
-    await p;
-  } catch (e) {
-    expect(e).toBeInstanceOf(FormulaError);
-    return e as FormulaError;
-  }
-  return expect.fail("expected a FormulaError");
-}
-
 describe("worker count and formulas", () => {
   it("refuses a worker count that is not a whole number from 1 to MAX_WORKERS, naming workers", async () => {
     for (const workers of [0, -1, 1.5, MAX_WORKERS + 1, Number.NaN, "2"]) {
-      const e = await rejection(toleranceParallel(parallelPlateCapacitance, { area: 1e-4, gap: 1e-4 }, { workers: workers as number }));
+      const e = await expectRejection(toleranceParallel(parallelPlateCapacitance, { area: 1e-4, gap: 1e-4 }, { workers: workers as number }));
       expect([e.code, e.input], String(workers)).toEqual(["invalid_argument", "workers"]);
     }
   });
@@ -47,7 +38,7 @@ describe("worker count and formulas", () => {
       inputs: [{ name: "gap", dimension: "Length", description: "g", example: 1 }],
       output: { dimension: "Length", description: "o" }, source: { authors: "common practice" }, compute: (x: { gap: number }) => x.gap,
     } as never);
-    const e = await rejection(sweepParallel(own as never, { vary: { gap: { from: 1, to: 2, points: 3 } } } as never, { workers: 2 }));
+    const e = await expectRejection(sweepParallel(own as never, { vary: { gap: { from: 1, to: 2, points: 3 } } } as never, { workers: 2 }));
     expect([e.code, e.input]).toEqual(["invalid_argument", "formula"]);
   });
 
@@ -126,7 +117,7 @@ describe("parallel calls on the pool give the synchronous result bit for bit", {
     } catch (e) {
       expected = e as FormulaError;
     }
-    const e = await rejection(biotSavartParallel(loop, 2, bad, { workers: 3 }));
+    const e = await expectRejection(biotSavartParallel(loop, 2, bad, { workers: 3 }));
     expect([e.code, e.message]).toEqual([expected!.code, expected!.message]);
   });
 
