@@ -50,6 +50,11 @@ export interface LongRunOptions {
   readonly onProgress?: (progress: Progress) => void;
 }
 
+/** True when the options ask for progress or cancellation (else a long call runs its loop in one piece, as before). */
+export function watched(options: LongRunOptions | undefined): boolean {
+  return options !== undefined && options !== null && (options.signal !== undefined || options.onProgress !== undefined);
+}
+
 /** Least time between two onProgress calls, ms. */
 export const PROGRESS_INTERVAL_MS = 100;
 

@@ -1,6 +1,6 @@
 import { MU0 } from "../constants/si.js";
 import { FormulaError } from "../core/errors.js";
-import { type LongRunOptions, ticker } from "../core/progress.js";
+import { type LongRunOptions, ticker, watched } from "../core/progress.js";
 import type { Note } from "../core/spec.js";
 import { countLoop } from "../math/loop-count.js";
 
@@ -91,11 +91,13 @@ export function biotSavart(
   if (out !== undefined && out.length < points.length) throw bad("out", "output array is shorter than points", out.length);
   // Without signal and onProgress there is no ticker: biotSavart is also called for one point
   // at a time (inside field functions), where making one cost 1.7x on a 4-segment call.
-  const t = options?.signal === undefined && options?.onProgress === undefined ? undefined : ticker("biotSavart", options, np);
+  const t = watched(options) ? ticker("biotSavart", options, np) : undefined;
   const result = (out ?? new Float64Array(points.length)) as Float64Array & { warnings: readonly Note[] };
   // Blocks of points of about PAIRS_PER_TICK segment-point pairs; each point's field
   // depends on that point alone, so the blocks give the values of one pass.
   const step = Math.max(1, Math.floor(PAIRS_PER_TICK / (path.length / 3 - 1)));
+  // The accumulation of pool-tasks.ts' fieldPieces, written out: this call also serves one
+  // point at a time inside field functions, where a closure object per call would cost.
   let inside = 0;
   let first = -1;
   for (let p0 = 0; p0 < np; p0 += step) {

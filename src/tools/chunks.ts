@@ -1,4 +1,4 @@
-import { nextTurn, type LongRunOptions, type Ticker } from "../core/progress.js";
+import { nextTurn, type Ticker } from "../core/progress.js";
 
 /*
  * Chunks of a long loop, for progress and cancellation: a loop over an index
@@ -17,11 +17,6 @@ export const CHUNK_MS = 4;
 // The clock as it is when this module loads (bound, not looked up per call): piece sizes
 // follow real time even where a test replaces performance.now to drive the ticker's report rate.
 const now: () => number = typeof performance !== "undefined" ? performance.now.bind(performance) : Date.now;
-
-/** True when the options ask for progress or cancellation (else a long call runs its loop in one piece, as before). */
-export function watched(options: LongRunOptions | undefined): boolean {
-  return options !== undefined && options !== null && (options.signal !== undefined || options.onProgress !== undefined);
-}
 
 /**
  * `tick(done)` while the work is unfinished (done < total); at the end only

@@ -1,6 +1,6 @@
 import type { AnyFormula, Formula } from "../core/formula.js";
-import { ticker } from "../core/progress.js";
-import { inPiecesAsync, tickBelow, watched } from "./chunks.js";
+import { ticker, watched } from "../core/progress.js";
+import { inPiecesAsync, tickBelow } from "./chunks.js";
 import type { InputSpecs, OutputSpec } from "../core/spec.js";
 import { type ColumnInput, type ColumnsOptions, type ColumnsResult, finishColumns, planColumns } from "./columns.js";
 import { runRows } from "./columns-loop.js";

@@ -7,8 +7,8 @@ import { type ColumnShape, type Rows, runRows } from "./columns-loop.js";
 import { MAX_COLUMN_ROWS, probeValue, type ReadColumns, readColumns, ROW_ERROR_CODES, type UnitColumn } from "./columns-read.js";
 import { bind, siUnit } from "./convert.js";
 import { noteConditions, noteSummary, type NoteSummary } from "./notes.js";
-import { type LongRunOptions, ticker } from "../core/progress.js";
-import { inPieces, tickBelow, watched } from "./chunks.js";
+import { type LongRunOptions, ticker, watched } from "../core/progress.js";
+import { inPieces, tickBelow } from "./chunks.js";
 
 export { MAX_COLUMN_ROWS, ROW_ERROR_CODES };
 export type { UnitColumn };

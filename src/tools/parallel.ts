@@ -7,8 +7,8 @@ import {
   checkPairs, depthOption, finishMutualInductance, finishSelfInductance, mutualRows, type NeumannOptions, planSelfInductance,
   type Polyline, segments, selfRows, sumRows,
 } from "../inductance/neumann.js";
-import { type LongRunOptions, type Ticker, ticker } from "../core/progress.js";
-import { inPiecesAsync, tickBelow, watched } from "./chunks.js";
+import { type LongRunOptions, type Ticker, ticker, watched } from "../core/progress.js";
+import { inPiecesAsync, tickBelow } from "./chunks.js";
 import { defaultWorkers, poolAvailable, runOnPool } from "./pool.js";
 import { fieldPieces, type PoolTask, rebuildError, selfPairs, type TaskOutcome } from "./pool-tasks.js";
 import { MONTE_CARLO_BLOCK } from "./random.js";

@@ -7,8 +7,8 @@ import { noteConditions, noteSummary, type NoteSummary } from "./notes.js";
 import { axisTitle, axisUnit, largestMagnitude } from "./axis-units.js";
 import { computePoints, scanNotes, type Grid, type SweptInput } from "./sweep-points.js";
 import type { QuantityValue } from "./tolerance.js";
-import { type LongRunOptions, ticker } from "../core/progress.js";
-import { inPieces, tickBelow, watched } from "./chunks.js";
+import { type LongRunOptions, ticker, watched } from "../core/progress.js";
+import { inPieces, tickBelow } from "./chunks.js";
 
 /** One swept input: `points` values from `from` to `to`, evenly spaced or geometric. */
 export interface SweepAxisSpec {
