@@ -15,6 +15,9 @@ export default defineConfig({
     include: ["tests/**/*.test.ts"],
     testTimeout: 60_000,
     setupFiles: ["tests/setup.ts"],
+    // Bundles pool-worker, cli and cli-job once per run, so pool threads and
+    // CLI processes start without tsx (tests/global-setup.ts).
+    globalSetup: ["tests/global-setup.ts"],
     // Test files share one module graph per worker instead of re-importing
     // and re-evaluating src/ (mathjs, the registry) for every file: measured
     // on tests/core, tests/units, tests/flux (20 files, same machine, same
