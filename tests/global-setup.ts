@@ -7,7 +7,7 @@ import type { TestProject } from "vitest/node";
 /*
  * Once per test run (vitest's globalSetup): bundles the modules that tests
  * start as new threads or processes - the pool thread's module, the CLI and
- * its job thread - from the current source into one temporary folder, with
+ * its job thread, the OpenAPI script - from the current source into one temporary folder, with
  * the names the Node build gives them (tsup.config.ts), so the CLI finds
  * cli-job.js beside itself as the built program does.
  *
@@ -30,7 +30,7 @@ import type { TestProject } from "vitest/node";
 
 declare module "vitest" {
   export interface ProvidedContext {
-    /** The folder of this run's bundles: pool-worker.js, cli.js, cli-job.js. */
+    /** The folder of this run's bundles: pool-worker.js, cli.js, cli-job.js, openapi.js. */
     testBuild: string;
   }
 }
@@ -44,6 +44,7 @@ export default async function setup(project: TestProject): Promise<() => void> {
       "pool-worker": resolve(root, "src/tools/pool-worker.node.ts"),
       cli: resolve(root, "src/cli/main.ts"),
       "cli-job": resolve(root, "src/cli/job-thread.ts"),
+      openapi: resolve(root, "scripts/openapi.ts"),
     },
     outdir: dir,
     bundle: true,
