@@ -30,10 +30,11 @@ if (!installed && !required) {
   console.warn("tests/examples/queue.test.ts skipped: redis-server is not installed (Debian: apt-get install -y --no-install-recommends redis-server). In CI this test fails instead.");
 }
 
-const bytes = (a: Float64Array | Uint8Array): Buffer => Buffer.from(a.buffer, a.byteOffset, a.byteLength);
+// Plain Uint8Arrays, which tests/setup.ts's equality tester compares in one loop (a Buffer goes element by element).
+const bytes = (a: Float64Array | Uint8Array): Uint8Array => new Uint8Array(a.buffer, a.byteOffset, a.byteLength);
 
 /** Every number of a sweep result as bytes, and the rest as JSON, for an exact comparison. */
-function sweepBytes(s: SweepResult): { values: Buffer; components: Record<string, Buffer>; computed: Buffer; rest: string } {
+function sweepBytes(s: SweepResult): { values: Uint8Array; components: Record<string, Uint8Array>; computed: Uint8Array; rest: string } {
   const { output, computed, ...rest } = s;
   const { values, components, ...meta } = output;
   return {
