@@ -1,5 +1,6 @@
 import { availableParallelism } from "node:os";
 import { createRequire } from "node:module";
+import { pathToFileURL } from "node:url";
 import type { Piscina } from "piscina";
 import { cancelledError, PROGRESS_INTERVAL_MS } from "../core/progress.js";
 import { CANCEL_CELL, controlCells, finalCell, type PoolTask, type PoolWatch, progressCell, type TaskOutcome } from "./pool-tasks.js";
@@ -12,7 +13,8 @@ import { CANCEL_CELL, controlCells, finalCell, type PoolTask, type PoolWatch, pr
  * closeWorkers() ends them at once.
  *
  * From source (vitest, tsx) the pool threads load pool-worker.node.ts through
- * tsx's loader; from the built package, dist/node/pool-worker.js.
+ * tsx's loader, or the bundle of it that EMQUANT_POOL_WORKER names (tests);
+ * from the built package, dist/node/pool-worker.js (the variable is not read).
  */
 
 /** Idle time after which a pool thread ends, ms. */
@@ -34,13 +36,17 @@ async function thePool(): Promise<Piscina> {
   if (pool !== undefined) return pool;
   const here = import.meta.url;
   const fromSource = here.endsWith(".ts");
+  // From source only: EMQUANT_POOL_WORKER may name a bundle of pool-worker.node.ts
+  // (the test run builds one, tests/global-setup.ts), which threads load without tsx.
+  const bundled = fromSource ? process.env.EMQUANT_POOL_WORKER : undefined;
+  const viaTsx = fromSource && !bundled;
   const { Piscina: Pool } = await import("piscina");
   pool ??= new Pool({
-    filename: new URL(fromSource ? "./pool-worker.node.ts" : "./pool-worker.js", here).href,
+    filename: bundled ? pathToFileURL(bundled).href : new URL(fromSource ? "./pool-worker.node.ts" : "./pool-worker.js", here).href,
     minThreads: 0,
     maxThreads: MAX_THREADS,
     idleTimeout: IDLE_MS,
-    ...(fromSource ? { execArgv: ["--import", createRequire(here).resolve("tsx")] } : {}),
+    ...(viaTsx ? { execArgv: ["--import", createRequire(here).resolve("tsx")] } : {}),
   });
   return pool;
 }

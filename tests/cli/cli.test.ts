@@ -3,7 +3,7 @@ import { readFileSync } from "node:fs";
 import { fileURLToPath } from "node:url";
 import { describe, expect, it } from "vitest";
 import { parseToleranceText, runCli } from "../../src/cli/run.js";
-import { spawnCli } from "../helpers/spawn-cli.js";
+import { cliCommand, spawnCli } from "../helpers/spawn-cli.js";
 import { listFormulas } from "../../src/core/registry.js";
 import type { InputSpec } from "../../src/core/spec.js";
 
@@ -31,14 +31,15 @@ function tryLine(id: string): string {
 
 describe("the emquant command as a process", () => {
   it("computes with unit strings (exit 0, engineering prefix) and reports a bad input (exit 1, message on stderr)", async () => {
-    // A Try line with vectors, run by a real shell exactly as printed (emquant -> the source CLI).
+    // A Try line with vectors, run by a real shell exactly as printed (emquant -> this run's bundle of the CLI).
     const vectorTry = tryLine("lorentzForce").replace(/^emquant /, "");
-    // All processes at once: starting node with the TypeScript loader takes seconds.
+    const [node, program] = cliCommand();
+    // All processes at once.
     const [ok, bad, shell] = await Promise.all([
       spawnCli("compute", "parallelPlateCapacitance", "area=1 cm^2", "gap=0.1 mm"),
       spawnCli("compute", "parallelPlateCapacitance", "area=1 kg", "gap=0.1 mm"),
       new Promise<{ status: number | null; stdout: string }>((resolve, reject) => {
-        const child = spawn("sh", ["-c", `"${process.execPath}" --import tsx src/cli/main.ts ${vectorTry}`], { cwd: root });
+        const child = spawn("sh", ["-c", `"${node}" "${program}" ${vectorTry}`], { cwd: root });
         let stdout = "";
         child.stdout.setEncoding("utf8").on("data", (t: string) => (stdout += t));
         child.on("error", reject);
@@ -53,7 +54,7 @@ describe("the emquant command as a process", () => {
     expect(bad.status).toBe(1);
     expect(bad.stderr).toMatch(/error \[wrong_dimension\]: .*input "area" needs Area, got Mass/);
     expect(bad.stdout).toBe("");
-  }, 240_000); // three node processes with the TypeScript loader, on a shared machine
+  }, 240_000); // three node processes, on a shared machine
 });
 
 describe("the emquant command", () => {

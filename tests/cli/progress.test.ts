@@ -6,10 +6,10 @@ import { longCommand } from "../../src/cli/args.js";
 import { type JobEnv, progressStream, runLongCommand } from "../../src/cli/job.js";
 import { durationText, type LineStream, ProgressLine, progressText, REDRAW_MS, SHOW_AFTER_MS } from "../../src/cli/progress-line.js";
 import { runCli } from "../../src/cli/run.js";
-import { spawnCli } from "../helpers/spawn-cli.js";
+import { cliCommand, spawnCli } from "../helpers/spawn-cli.js";
 
 // The progress line and Ctrl-C of the long commands, as a user sees them: the
-// real program (node with the tsx loader on the source) under a pseudo-terminal
+// real program (node on this run's bundle of the source, tests/helpers/spawn-cli.ts) under a pseudo-terminal
 // made by util-linux `script`, whose output is the bytes the terminal got.
 //
 // Outside references for the checks:
@@ -154,7 +154,7 @@ interface TerminalRun {
  * group: script makes it a session leader) as output arrives.
  */
 function inTerminal(args: readonly string[], onOutput?: (seen: string, pid: number, input: (t: string) => void) => void, env: Record<string, string> = {}): Promise<TerminalRun> {
-  const command = `exec ${sh(process.execPath)} --import tsx src/cli/main.ts ${args.map(sh).join(" ")}`;
+  const command = `exec ${cliCommand().map(sh).join(" ")} ${args.map(sh).join(" ")}`;
   return new Promise((resolve, reject) => {
     const child = spawn("script", ["-qfec", command, "/dev/null"], { cwd: root, env: { ...process.env, TERM: "xterm", ...env } });
     let output = "";
@@ -203,19 +203,23 @@ function inProcess(args: readonly string[]): string {
 const DRAWN = /\rtolerance {2}[^\r\n]*elapsed[^\r\n]*\x1b\[K/g;
 
 // A Monte Carlo run that takes far longer than a test may (1e6 samples of
-// Grover's coaxial coils: about a minute here), so it is always interrupted;
+// Grover's coaxial coils: about 20 s of CPU here), so it is always interrupted;
 // the seed marks the process for the leftover check.
 const longRun = (seed: number): string[] => [
   "tolerance", "coaxialCoilsMutualInductance", "turns1=100", "radius1=10 mm +- 1%", "length1=20 mm", "turns2=50",
   "radius2=15 mm", "length2=10 mm", "distance=30 mm +- 1 mm", "--samples", "1000000", "--seed", String(seed),
 ];
-// A run that ends by itself, past the first second (thread start and 300000 samples).
-const endingRun = ["tolerance", "parallelPlateCapacitance", "area=1 cm^2 +- 1%", "gap=0.1 mm +- 2%", "--samples", "300000"];
+// A run that ends by itself, past the first second: 100000 samples of the coils
+// above take about 2 s of CPU here (the program itself starts in 0.3 s).
+const endingRun = [
+  "tolerance", "coaxialCoilsMutualInductance", "turns1=100", "radius1=10 mm +- 1%", "length1=20 mm", "turns2=50",
+  "radius2=15 mm", "length2=10 mm", "distance=30 mm +- 1 mm", "--samples", "100000",
+];
 
 describe("the emquant program on a terminal and on pipes", () => {
   it("shows the progress line, stops on Ctrl-C or SIGTERM with 130 or 143 and leaves no process; pipes and --json get no line", async () => {
     const seeds = [Math.floor(Math.random() * 1e9) + 1e9, Math.floor(Math.random() * 1e9) + 2e9];
-    // All runs at once: each starts node with the TypeScript loader twice (main and job thread).
+    // All runs at once.
     const [interrupted, terminated, ended, json, piped] = await Promise.all([
       // Ctrl-C typed at the terminal once the first progress line is there.
       (() => {

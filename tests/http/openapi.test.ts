@@ -4,7 +4,7 @@ import { tmpdir } from "node:os";
 import { join, resolve } from "node:path";
 import { Validator } from "@seriousme/openapi-schema-validator";
 import { Ajv2020 } from "ajv/dist/2020.js";
-import { describe, expect, it } from "vitest";
+import { describe, expect, inject, it } from "vitest";
 import { listFormulas } from "../../src/core/registry.js";
 import { createHandler, DEFAULT_LIMITS, openApiDocument, type HttpResponse } from "../../src/http/index.js";
 
@@ -120,7 +120,8 @@ describe("the OpenAPI document", () => {
   it("is written by npm run openapi", () => {
     const out = join(mkdtempSync(join(tmpdir(), "emquant-openapi-")), "openapi.json");
     const root = resolve(import.meta.dirname, "../..");
-    execFileSync(process.execPath, ["--import", "tsx", resolve(root, "scripts/openapi.ts"), out], { cwd: root, stdio: "pipe" });
+    // scripts/openapi.ts as this run bundled it (tests/global-setup.ts): the script npm runs through tsx, without tsx's start-up.
+    execFileSync(process.execPath, [join(inject("testBuild"), "openapi.js"), out], { cwd: root, stdio: "pipe" });
     expect(JSON.parse(readFileSync(out, "utf8"))).toEqual(doc);
   });
 });

@@ -12,6 +12,7 @@ import { MAX_WORKERS } from "../../src/tools/parallel.js";
 import { closeWorkers, workerThreads } from "../../src/tools/pool.node.js";
 import { expectSameColumns } from "../helpers/columns.js";
 import { expectRejection } from "../helpers/errors.js";
+import { steppedClock } from "./progress-harness.js";
 
 afterAll(async () => {
   await closeWorkers();
@@ -33,7 +34,7 @@ function table(): Record<string, unknown> {
   return { area, gap, relativePermittivity };
 }
 
-// Generous runner timeouts: from source each pool thread loads the library through tsx.
+// Generous runner timeouts: from source without the test run's bundle, each pool thread loads the library through tsx.
 describe("columnsParallel gives evaluateColumns' result bit for bit", { timeout: 300_000 }, () => {
   it("numbers, unit strings and number arrays, with bad rows and notes, at 1, 2 and 3 workers", async () => {
     const inputs = table();
@@ -127,11 +128,18 @@ describe("columnsParallel: bounds, progress and cancellation", { timeout: 300_00
     before.abort("stop");
     const a = await expectRejection(columnsParallel(parallelPlateCapacitance, inputs, { signal: before.signal, workers: 2 }));
     expect([a.code, a.cause]).toEqual(["cancelled", "stop"]);
-    for (const rows of [N, MIN_PARALLEL_ROWS - 1]) {
-      const c = new AbortController();
-      const part = { area: (inputs.area as Float64Array).subarray(0, rows), gap: (inputs.gap as string[]).slice(0, rows) };
-      const e = await expectRejection(columnsParallel(parallelPlateCapacitance, part, { signal: c.signal, workers: 2, onProgress: () => c.abort() }));
-      expect(e.code, `${rows} rows`).toBe("cancelled");
+    // The clock steps on every reading, so the first report comes before the call ends however
+    // fast the threads are (with the real clock a quick call reports only its end, at fraction 1).
+    const clock = steppedClock();
+    try {
+      for (const rows of [N, MIN_PARALLEL_ROWS - 1]) {
+        const c = new AbortController();
+        const part = { area: (inputs.area as Float64Array).subarray(0, rows), gap: (inputs.gap as string[]).slice(0, rows) };
+        const e = await expectRejection(columnsParallel(parallelPlateCapacitance, part, { signal: c.signal, workers: 2, onProgress: () => c.abort() }));
+        expect(e.code, `${rows} rows`).toBe("cancelled");
+      }
+    } finally {
+      clock.restore();
     }
     const c = new AbortController();
     const p = columnsParallel(parallelPlateCapacitance, inputs, { signal: c.signal, workers: 1 });

@@ -15,8 +15,7 @@ import { expectRejection } from "../helpers/errors.js";
 
 // Bit-identical results for any worker count: each parallel call is compared
 // with the synchronous call (one thread, in order) by exact equality. The
-// pool's threads are started once (from source they load the library through
-// tsx, which is slow) and shared by the tests below, then closed.
+// pool's threads are started once and shared by the tests below, then closed.
 const COUNTS = [1, 2, 3];
 
 afterAll(async () => {
@@ -55,8 +54,9 @@ describe("worker count and formulas", () => {
   });
 });
 
-// Generous runner timeouts: from source each pool thread loads the library through tsx,
-// which takes tens of seconds on a loaded machine (not a timing check of the results).
+// Generous runner timeouts: without the test run's bundle (tests/global-setup.ts) each pool
+// thread loads the library through tsx, which takes tens of seconds on a loaded machine
+// (not a timing check of the results).
 describe("parallel calls on the pool give the synchronous result bit for bit", { timeout: 300_000 }, () => {
   it("tolerance Monte Carlo (uniform and normal inputs, notes) with 1, 2 and 3 workers", async () => {
     const inputs = {

@@ -57,8 +57,13 @@ interface Case {
   readonly parallel: (options: object) => Promise<unknown>;
 }
 
-/** The typed arrays of a result as bytes, so equality is bit for bit (NaN payloads, -0). */
-const bits = (r: unknown): unknown => (r instanceof Float64Array ? { bytes: Buffer.from(r.buffer, r.byteOffset, r.byteLength), rest: { ...r } } : r);
+/**
+ * A field result (a Float64Array) as its bytes, so equality is bit for bit (NaN payloads, -0), and its
+ * properties beside the elements. The bytes as a plain Uint8Array: compared in one loop
+ * (tests/helpers/typed-array-equality.ts), where a Buffer or an object of every index went element by element.
+ */
+const bits = (r: unknown): unknown =>
+  r instanceof Float64Array ? { bytes: new Uint8Array(r.buffer, r.byteOffset, r.byteLength), rest: Object.fromEntries(Object.entries(r).filter(([k]) => !/^\d+$/.test(k))) } : r;
 
 const loopPath = circle(1000, 0.05, 0);
 const points = fieldPoints(Math.ceil(MIN_PARALLEL_FIELD_PAIRS / 1000) + 7);
@@ -131,8 +136,9 @@ it("the sizes lie on the sides of the pool thresholds they are meant to", () => 
   expect((90 * 89) / 2).toBeLessThan(MIN_PARALLEL_SEGMENT_PAIRS);
 });
 
-// Generous runner timeouts: from source each pool thread loads the library
-// through tsx, which takes tens of seconds on a loaded machine.
+// Generous runner timeouts: without the test run's bundle (tests/global-setup.ts)
+// each pool thread loads the library through tsx, which takes tens of seconds on
+// a loaded machine.
 for (const [where, cases] of [["on the pool", onPool], ["in the calling thread", inThread]] as const) {
   describe.each(cases)(`$name ${where}`, { timeout: 300_000 }, ({ pieces, sync, parallel }) => {
     beforeEach(() => {
