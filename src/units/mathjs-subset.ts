@@ -45,9 +45,10 @@ const ComplexStandIn = { I: NOT_REAL };
 /**
  * mathjs's unit table writes degF, degR, fahrenheit and rankine as
  * `new Fraction(5, 9)`; Unit turns such a value into a number with `number()`
- * (valueOf) before any arithmetic. This holds the two whole numbers and gives
- * the same double, 5 / 9, as fraction.js's valueOf (one correctly rounded
- * division of exact integers).
+ * (valueOf) before it normalizes a value, and the arithmetic below takes its
+ * number where Unit multiplies it as it is (converting degF). This holds the
+ * two whole numbers and gives the same double, 5 / 9, as fraction.js's
+ * valueOf (one correctly rounded division of exact integers).
  */
 class Fraction {
   readonly s = 1;
