@@ -3,7 +3,12 @@
 // CLI's help, compute (with common unit strings, and with one left to mathjs) and a small sweep (job thread). Run after `npm run build`;
 // `node scripts/startup-time.mjs [runs]`. Prints times and ratios to bare node
 // (a benchmark, not a test: no thresholds).
+// Beside the wall time, each process's own CPU time (user + system, all its
+// threads, read at exit): on a shared machine wall time grows with the other
+// load, CPU time much less, so compare changes by CPU time and the ratios, and
+// quote the load averages printed with the table.
 import { spawnSync } from "node:child_process";
+import { loadavg } from "node:os";
 import { dirname, join, resolve } from "node:path";
 import { fileURLToPath } from "node:url";
 
@@ -27,21 +32,38 @@ function median(xs) {
   return s[Math.floor(s.length / 2)];
 }
 
+// Preloaded into every case alike (bare node too): the main thread writes the
+// process's CPU time (every thread's) in microseconds to file descriptor 3 when
+// it exits. Worker threads inherit the preload and write nothing.
+const cpuAtExit = `data:text/javascript,import{writeSync}from"node:fs";import{isMainThread}from"node:worker_threads";if(isMainThread)process.on("exit",()=>{const u=process.cpuUsage();writeSync(3,String(u.user+u.system))})`;
+
 const results = [];
+const load = () => loadavg().map((x) => x.toFixed(2)).join(" ");
+const loadBefore = load();
 // Interleaved rounds, so a burst of load on the machine hits every case alike.
 const times = cases.map(() => []);
+const cpu = cases.map(() => []);
 for (let r = 0; r < runs; r++) {
   cases.forEach(([, args], i) => {
     const t = process.hrtime.bigint();
-    const p = spawnSync(process.execPath, args, { stdio: ["ignore", "ignore", "inherit"] });
+    const p = spawnSync(process.execPath, ["--import", cpuAtExit, ...args], { stdio: ["ignore", "ignore", "inherit", "pipe"] });
     if (p.status !== 0) throw new Error(`${cases[i][0]} exited ${p.status}`);
     times[i].push(Number(process.hrtime.bigint() - t) / 1e6);
+    cpu[i].push(Number(p.output[3].toString()) / 1000);
   });
 }
 const bare = median(times[0]);
+const bareCpu = median(cpu[0]);
 cases.forEach(([name], i) => {
   const m = median(times[i]);
-  results.push({ name, medianMs: Math.round(m), ratioToBareNode: Number((m / bare).toFixed(2)) });
+  const c = median(cpu[i]);
+  results.push({
+    name,
+    medianMs: Math.round(m),
+    ratioToBareNode: Number((m / bare).toFixed(2)),
+    cpuMs: Math.round(c),
+    cpuRatioToBareNode: Number((c / bareCpu).toFixed(2)),
+  });
 });
 console.table(results);
-console.log(`${runs} runs each, Node ${process.versions.node}, ${new Date().toISOString().slice(0, 10)}`);
+console.log(`${runs} runs each, Node ${process.versions.node}, ${new Date().toISOString().slice(0, 16)}Z, load average (1, 5, 15 min) ${loadBefore} before, ${load()} after`);

@@ -40,6 +40,8 @@ export interface WorkerProcesses {
   readonly names: readonly string[];
   /** SIGTERM (each finishes its current shard), SIGKILL after `graceMs`. */
   stop(graceMs?: number): Promise<void>;
+  /** SIGKILL to one worker now (as a crash or a lost host would end it); resolves when it has exited. */
+  kill(name: string): Promise<void>;
 }
 
 /**
@@ -47,11 +49,11 @@ export interface WorkerProcesses {
  * resolves when each has printed its "ready" line; rejects with a worker's
  * output if one exits first or is not ready within `readyMs`.
  */
-export async function startWorkerProcesses(file: string, count: number, redisUrl: string, options: { readonly queue?: string; readonly readyMs?: number } = {}): Promise<WorkerProcesses> {
+export async function startWorkerProcesses(file: string, count: number, redisUrl: string, options: { readonly queue?: string; readonly readyMs?: number; readonly env?: Readonly<Record<string, string>> } = {}): Promise<WorkerProcesses> {
   const names = Array.from({ length: count }, (_, i) => `worker-${i + 1}`);
   const children = names.map((name) =>
     spawn(process.execPath, [file], {
-      env: { ...process.env, REDIS_URL: redisUrl, WORKER_NAME: name, ...(options.queue ? { QUEUE: options.queue } : {}) },
+      env: { ...process.env, REDIS_URL: redisUrl, WORKER_NAME: name, ...(options.queue ? { QUEUE: options.queue } : {}), ...options.env },
       stdio: ["ignore", "pipe", "pipe"],
     }),
   );
@@ -73,5 +75,11 @@ export async function startWorkerProcesses(file: string, count: number, redisUrl
   }
   // Their stderr (connection trouble) shows in ours; stdout keeps draining, so a full pipe never blocks a worker.
   children.forEach((c) => c.stderr!.on("data", (d: Buffer) => process.stderr.write(d)));
-  return { names, stop };
+  const killOne = async (name: string): Promise<void> => {
+    const child = children[names.indexOf(name)];
+    if (child === undefined) throw new Error(`no worker named ${name}`);
+    child.kill("SIGKILL");
+    await exited(child);
+  };
+  return { names, stop, kill: killOne };
 }

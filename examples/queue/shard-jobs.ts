@@ -8,6 +8,7 @@
 import type { ErrorCode, FormulaErrorFields } from "../../src/core/errors.js";
 import { FormulaError } from "../../src/core/errors.js";
 import type { CollectedNotes } from "../../src/tools/notes.js";
+import { fromShardValue, type ShardValue, toShardValue } from "../../src/tools/shard-values.js";
 import type { Shard, ShardResult, SweepShardRequest, SweepShardResult, ToleranceShardRequest, ToleranceShardResult } from "../../src/tools/shards.js";
 
 /** The queue every producer and worker use unless told otherwise (env QUEUE). */
@@ -65,14 +66,15 @@ export interface ShardJobReturn {
  * as JSON numbers are about 19 bytes each (base64 of the Float64Array: 10.7),
  * twice over; written as a Float64Array's bytes into a key of its own they are
  * 8 bytes each, once, and no JSON parse of megabytes runs in the producer.
- * Doubles are copied bit for bit, NaN included (a sweep's "not computed").
+ * Doubles are copied bit for bit, NaN included (a sweep's "not computed"); in
+ * the result objects those are null and a negative zero "-0" (ShardValue).
  */
 
 /** The numbers of a shard result as bytes: tolerance values; or sweep values, each component, then the computed flags. */
 export function encodeShard(result: ShardResult): { blob: Buffer; meta: Omit<ShardJobReturn, "bytes" | "by" | "ms"> } {
   if (result.shard.request.kind === "tolerance") {
     const r = result as ToleranceShardResult;
-    const values = Float64Array.from(r.values);
+    const values = Float64Array.from(r.values, fromShardValue);
     return { blob: Buffer.from(values.buffer, values.byteOffset, values.byteLength), meta: { notes: r.notes, values: values.length } };
   }
   const r = result as SweepShardResult;
@@ -81,17 +83,17 @@ export function encodeShard(result: ShardResult): { blob: Buffer; meta: Omit<Sha
   const out = Buffer.alloc(columns.length * n * 8 + n);
   const doubles = new Float64Array(out.buffer, out.byteOffset, columns.length * n);
   columns.forEach((c, j) => {
-    for (let i = 0; i < n; i++) doubles[j * n + i] = c[i] ?? NaN;
+    for (let i = 0; i < n; i++) doubles[j * n + i] = fromShardValue(c[i]);
   });
   out.set(r.computed, columns.length * n * 8);
   return { blob: out, meta: { notComputed: r.notComputed, components: r.components?.length ?? 0 } };
 }
 
-function doublesOf(blob: Buffer, from: number, count: number): number[] {
+function doublesOf(blob: Buffer, from: number, count: number): ShardValue[] {
   // Copy into an aligned buffer: a Buffer from Redis may start at any byte offset.
   const aligned = new Float64Array(count);
   new Uint8Array(aligned.buffer).set(blob.subarray(from, from + count * 8));
-  return Array.from(aligned);
+  return Array.from(aligned, (v) => toShardValue(v));
 }
 
 /** The shard result from its bytes and the job's return value (the inverse of encodeShard). */

@@ -1,5 +1,11 @@
 import type { Domain, InputSpecs } from "./spec.js";
 
+/** A formula's generated code: its compute-input class and, for scalar inputs, its fast path. */
+export interface GeneratedCode {
+  readonly Inputs: InputsClass;
+  readonly fast: ((x: unknown) => unknown) | undefined;
+}
+
 /**
  * Builds a straight-line checker + compute for a formula's scalar inputs, so a
  * typed call costs about as much as the bare arithmetic: generic loops over
@@ -7,18 +13,47 @@ import type { Domain, InputSpecs } from "./spec.js";
  * (measured in bench/). On any failed check it hands the call to `slow`, which
  * re-checks and throws the precise FormulaError.
  *
- * Returns undefined where code generation is unavailable (a strict
- * Content-Security-Policy forbids `new Function`) or the formula has vector
- * or series inputs; callers then use the generic path, which is correct but slower.
+ * The fast path and the formula's Inputs class (see inputsClass) come from one
+ * `new Function`: every formula pays it when its module loads, and each call
+ * has a fixed cost besides parsing, so one call instead of two cuts what
+ * `import "emquant"` spends generating code (scripts/startup-time.mjs). Not
+ * deferred to the first call: the formula must exist as a function from the
+ * start, and a forwarding function in front of a later-made fast path cost
+ * typed calls 10-15 % (one shared forwarder: 4-15x, its call site turns
+ * megamorphic), measured with bench/typed.ts.
+ *
+ * `fast` is undefined where the formula has vector or series inputs (callers
+ * use the generic path, correct but slower); the whole result is undefined
+ * where code generation is unavailable (a strict Content-Security-Policy
+ * forbids `new Function`): callers then use inputsClass's fallback.
  */
-export function buildFastPath(
+export function generateCode(
   inputs: InputSpecs,
   compute: (x: never) => unknown,
   relations: readonly { holds: (x: never) => boolean }[],
   slow: (x: unknown) => unknown,
-  Inputs: InputsClass,
-): ((x: unknown) => unknown) | undefined {
+  vectorOutput: boolean,
+): GeneratedCode | undefined {
   const names = Object.keys(inputs);
+  const inputsSource = classSource(names);
+  const fastSource = vectorOutput ? undefined : fastPathSource(inputs, names, relations);
+  try {
+    // eslint-disable-next-line @typescript-eslint/no-implied-eval
+    const factory = new Function("compute", "relations", "slow", "choices", `${inputsSource};return [Inputs,${fastSource?.code ?? "undefined"}]`);
+    const [Inputs, fast] = factory(compute, relations, slow, fastSource?.choices) as [InputsClass, ((x: unknown) => unknown) | undefined];
+    return { Inputs, fast };
+  } catch {
+    return undefined;
+  }
+}
+
+// Source of the fast path as a function expression (using Inputs, compute,
+// relations, slow, choices), or undefined for vector and series inputs.
+function fastPathSource(
+  inputs: InputSpecs,
+  names: readonly string[],
+  relations: readonly unknown[],
+): { code: string; choices: (readonly string[])[] } | undefined {
   // Arrays go to the careful path too: an array has a numeric `length`, so a
   // formula whose only required input is named `length` (propagationDelay)
   // would otherwise accept [inputs] as its inputs.
@@ -56,43 +91,39 @@ export function buildFastPath(
   lines.push("const r=compute(o)");
   lines.push('if(typeof r!="number"||r-r!==0)return slow(x)');
   lines.push("return r");
-  try {
-    // eslint-disable-next-line @typescript-eslint/no-implied-eval
-    const factory = new Function("compute", "relations", "slow", "choices", "Inputs", `return function fast(x){${lines.join(";")}}`);
-    return factory(compute, relations, slow, choices, Inputs) as (x: unknown) => unknown;
-  } catch {
-    return undefined;
-  }
+  return { code: `function fast(x){${lines.join(";")}}`, choices };
 }
 
 /** Constructor of a formula's compute-input objects: the values in declaration order. */
 export type InputsClass = new (...values: unknown[]) => Record<string, unknown>;
 
 /**
- * The one constructor of a formula's compute-input objects. Every object handed
- * to compute and to the relations (typed calls, evaluate, solve, tolerance,
- * sweeps) is made by it, so they all share one hidden class and the engine's
- * property reads in compute stay monomorphic (with one shape per caller they
- * went polymorphic and a typed call slowed by a third). A class rather than an
- * object literal, so that no caller's `{ area, gap, ... }` literal shares its
- * hidden class (see InputList in spec.ts). Names are plain identifiers
- * (checked by defineFormula).
+ * A formula's compute-input class where code generation is unavailable (strict
+ * Content-Security-Policy): the same names stored in the same order still give
+ * every instance one hidden class. Otherwise generateCode makes it.
  */
 export function inputsClass(names: readonly string[]): InputsClass {
+  return class Inputs {
+    constructor(...values: unknown[]) {
+      for (let i = 0; i < names.length; i++) (this as Record<string, unknown>)[names[i]!] = values[i];
+    }
+  } as unknown as InputsClass;
+}
+
+/*
+ * The generated class of a formula's compute-input objects: the values in
+ * declaration order. Every object handed to compute and to the relations
+ * (typed calls, evaluate, solve, tolerance, sweeps) is made by it, so they all
+ * share one hidden class and the engine's property reads in compute stay
+ * monomorphic (with one shape per caller they went polymorphic and a typed call
+ * slowed by a third). A class rather than an object literal, so that no
+ * caller's `{ area, gap, ... }` literal shares its hidden class (see InputList
+ * in spec.ts). Names are plain identifiers (checked by defineFormula).
+ */
+function classSource(names: readonly string[]): string {
   const params = names.map((_, i) => `v${i}`).join();
   const body = names.map((n, i) => `this.${n}=v${i}`).join(";");
-  try {
-    // eslint-disable-next-line @typescript-eslint/no-implied-eval
-    return new Function(`return class Inputs{constructor(${params}){${body}}}`)() as InputsClass;
-  } catch {
-    // No code generation (strict Content-Security-Policy): the same names stored
-    // in the same order still give every instance one hidden class.
-    return class Inputs {
-      constructor(...values: unknown[]) {
-        for (let i = 0; i < names.length; i++) (this as Record<string, unknown>)[names[i]!] = values[i];
-      }
-    } as unknown as InputsClass;
-  }
+  return `class Inputs{constructor(${params}){${body}}}`;
 }
 
 // String(v) reads back as v for every double ("NaN" and "Infinity" included: a

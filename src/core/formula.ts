@@ -1,7 +1,7 @@
 import { inDomain } from "./domain.js";
 import { FormulaError } from "./errors.js";
 import { inWords } from "./format.js";
-import { buildFastPath, inputsClass } from "./fast-path.js";
+import { generateCode, inputsClass } from "./fast-path.js";
 import type {
   ChoiceCall, ComputeInputs, ComputeOutput, Detailed, Domain, FormulaDeclaration, FormulaDefinition, FormulaInputs, FormulaOutput,
   InputList, InputsByName, InputSpec, InputSpecs, NamedInput, Note, OutputSpec,
@@ -70,7 +70,6 @@ export function defineFormula<const L extends InputList, const O extends OutputS
   const specs: readonly NamedInput[] = declaration.inputs;
   const names = specs.map((s) => s.name);
   const nComponents = def.output.components?.length ?? 0;
-  const Inputs = inputsClass(names);
 
   function prepare(raw: Readonly<Record<string, unknown>>): ComputeInputs<I> {
     if (typeof raw !== "object" || raw === null || Array.isArray(raw)) {
@@ -159,8 +158,10 @@ export function defineFormula<const L extends InputList, const O extends OutputS
   }
 
   const checked = (inputs: unknown): unknown => run(prepare(inputs as Record<string, unknown>));
-  const fast = nComponents === 0 ? buildFastPath(def.inputs, def.compute, def.relations ?? [], checked, Inputs) : undefined;
-  const formula = (fast ?? checked) as unknown as ChoiceCall<I, O> & Formula<I, O>;
+  const generated = generateCode(def.inputs, def.compute, def.relations ?? [], checked, nComponents > 0);
+  // prepare and inputsObject above use it; they run only once a formula is called.
+  const Inputs = generated?.Inputs ?? inputsClass(names);
+  const formula = (generated?.fast ?? checked) as unknown as ChoiceCall<I, O> & Formula<I, O>;
   const details = (inputs: FormulaInputs<I>): Detailed<FormulaOutput<O>> => {
     const x = prepare(inputs as Record<string, unknown>);
     const value = run(x);

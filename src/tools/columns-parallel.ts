@@ -29,9 +29,9 @@ export const MIN_PARALLEL_ROWS = 200_000;
  * bit for bit, for any `workers` (rows, codes, notes and messages). At
  * MIN_PARALLEL_ROWS rows and more the pool is used; below, the calling thread
  * (in chunks, yielding to the event loop between them, when `signal` or
- * `onProgress` is given). Output arrays the call makes are views into
- * SharedArrayBuffers when the pool was used; given ones are filled in place
- * (over a SharedArrayBuffer, by the threads themselves).
+ * `onProgress` is given). Output arrays the call makes are plain, as
+ * evaluateColumns'; given ones are filled in place (over a
+ * SharedArrayBuffer, by the threads themselves).
  *
  * @example
  * const r = await columnsParallel("parallelPlateCapacitance", { area: areas, gap: gaps }, { workers: 2 });
@@ -51,13 +51,9 @@ export async function columnsParallel<I extends InputSpecs, O extends OutputSpec
   const rows = read.rows;
   const small = rangeSize(options, rows) < MIN_PARALLEL_ROWS;
   const nc = (f.definition.output.components as readonly string[] | undefined)?.length ?? 0;
-  // Arrays made here for a pooled call are shared: the threads write them in place.
-  const made = small ? {} : {
-    ...(nc === 0 && options.output === undefined ? { output: new Float64Array(new SharedArrayBuffer(rows * 8)) } : {}),
-    ...(nc > 0 && options.components === undefined ? { components: Array.from({ length: nc }, () => new Float64Array(new SharedArrayBuffer(rows * 8))) } : {}),
-    ...(options.errors === undefined ? { errors: new Uint8Array(new SharedArrayBuffer(rows)) } : {}),
-  };
-  const plan = planColumns(f, read, { ...options, ...made });
+  // Arrays made here are plain, as evaluateColumns makes them; on the pool the threads
+  // write reused shared copies (a fresh shared buffer was faulted in on every call).
+  const plan = planColumns(f, read, options);
   const { from, to, state } = plan;
   const progress = ticker(tool, options, to - from);
   if (small) {

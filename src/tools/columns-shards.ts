@@ -1,9 +1,12 @@
 import { FormulaError } from "../core/errors.js";
+import type { Ticker } from "../core/progress.js";
 import { getFormula } from "../core/registry.js";
+import { inPieces, tickBelow } from "./chunks.js";
 import { type ColumnsResult, finishColumns, planColumns } from "./columns.js";
 import { runRows } from "./columns-loop.js";
 import { readColumns } from "./columns-read.js";
 import { type ColumnsPart, mergeColumnParts } from "./columns-task.js";
+import { fromShardValue, type ShardValue, toShardValue } from "./shard-values.js";
 import type { Shard } from "./shards.js";
 
 /*
@@ -23,9 +26,6 @@ export interface ColumnsShardRequest {
   readonly inputs: Readonly<Record<string, unknown>>;
 }
 
-/** A row's value in JSON: null where the row failed, "-0" for a negative zero (JSON writes -0 as 0). */
-export type ShardValue = number | null | "-0";
-
 /** What a columns shard computed: its rows' values, codes and note counts, as plain JSON. */
 export interface ColumnsShardResult {
   readonly shard: Shard<ColumnsShardRequest>;
@@ -43,16 +43,19 @@ export function columnsRows(request: ColumnsShardRequest): number {
   return planColumns(f, readColumns(f, request.inputs), {}).read.rows;
 }
 
-/** Runs the rows of one shard. */
-export function runColumnsShard(shard: Shard<ColumnsShardRequest>, check: (total: number) => void): ColumnsShardResult {
+/** Runs the rows of one shard; `progress()` makes the shard's ticker once the shard is checked. */
+export function runColumnsShard(shard: Shard<ColumnsShardRequest>, check: (total: number) => void, progress: () => Ticker): ColumnsShardResult {
   const f = getFormula(shard.request.formula);
   const read = readColumns(f, shard.request.inputs);
   check(read.rows);
   const { start, end } = shard;
   const plan = planColumns(f, read, { from: start, to: end });
-  runRows(f, plan.state, plan.shape, start, end);
+  const t = progress();
+  // In pieces with a tick between, as evaluateColumns runs them: a range's rows depend only on themselves.
+  inPieces(start, end, (a, b) => runRows(f, plan.state, plan.shape, a, b), (done) => tickBelow(t, done - start, end - start));
+  t.finish();
   const s = plan.state;
-  const rows = (a: Float64Array): ShardValue[] => Array.from(a.subarray(start, end), (v, i) => (s.errors[start + i] !== 0 ? null : Object.is(v, -0) ? "-0" : v));
+  const rows = (a: Float64Array): ShardValue[] => Array.from(a.subarray(start, end), (v, i) => toShardValue(v, s.errors[start + i] !== 0));
   return {
     shard,
     values: rows(s.values),
@@ -79,18 +82,13 @@ export function mergeColumnsShards(sorted: readonly ColumnsShardResult[], covere
     }
     for (let i = 0; i < n; i++) {
       state.errors[start + i] = r.errors[i]!;
-      if (comps.length === 0) state.values[start + i] = fromJson(r.values[i]);
-      comps.forEach((c, k) => (state.components[k]![start + i] = fromJson(c[i])));
+      if (comps.length === 0) state.values[start + i] = fromShardValue(r.values[i]);
+      comps.forEach((c, k) => (state.components[k]![start + i] = fromShardValue(c[i])));
     }
     parts.push({ counts: r.notes.counts, index: r.notes.index, measure: r.notes.measure.map(Number) });
   }
   mergeColumnParts(plan, parts);
   return finishColumns(plan);
-}
-
-/** A row's value from JSON: a failed row (null) is NaN again, as in one run. */
-function fromJson(v: ShardValue | undefined): number {
-  return v === "-0" ? -0 : typeof v === "number" ? v : NaN;
 }
 
 function bad(detail: string): FormulaError {

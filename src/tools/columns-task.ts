@@ -4,6 +4,7 @@ import type { ChoiceInput, QuantityInput } from "../core/spec.js";
 import { type ColumnsPlan, planColumns } from "./columns.js";
 import { runRows } from "./columns-loop.js";
 import type { ReadColumns } from "./columns-read.js";
+import { inPieces } from "./chunks.js";
 import { specsOf } from "./convert.js";
 
 /*
@@ -58,9 +59,12 @@ export function choiceCodes(tool: string, name: string, data: readonly unknown[]
 /**
  * Rows [start, end) of the table: the row loop over views of the task's
  * arrays (so row k of the table is row k - start here), worst rows reported
- * in the table's numbering.
+ * in the table's numbering. With `between`, the rows run in pieces of a few
+ * milliseconds and `between(done)` is called after each but the last (a pool
+ * task stores its progress and reads the cancel flag there); the loop's
+ * counts carry over from piece to piece, so the part is that of one loop.
  */
-export function columnsRange(task: ColumnsTaskData, start: number, end: number): ColumnsPart {
+export function columnsRange(task: ColumnsTaskData, start: number, end: number, between?: (done: number) => void): ColumnsPart {
   const formula = getFormula(task.formula);
   const specs = specsOf(formula);
   const view = <T extends Float64Array | Uint8Array>(a: T): T => a.subarray(start, end) as T;
@@ -79,7 +83,8 @@ export function columnsRange(task: ColumnsTaskData, start: number, end: number):
     },
   };
   const plan = planColumns(formula, read, { output: task.components.length > 0 ? undefined : view(task.values), components: task.components.length > 0 ? task.components.map(view) : undefined, errors: view(task.errors) }, task.probes);
-  runRows(formula, plan.state, plan.shape, 0, end - start);
+  if (between === undefined) runRows(formula, plan.state, plan.shape, 0, end - start);
+  else inPieces(0, end - start, (a, b) => runRows(formula, plan.state, plan.shape, a, b), between);
   const s = plan.state;
   return { counts: Array.from(s.counts), index: Array.from(s.index, (k) => (k < 0 ? k : k + start)), measure: Array.from(s.measure) };
 }

@@ -25,5 +25,6 @@ export type { BiotSavartParallelOptions, ParallelOptions } from "./parallel.js";
 export { closeWorkers, poolBusy, workerThreads } from "./pool.js";
 export { MAX_SHARDS, mergeShards, planShards, runShard } from "./shards.js";
 export type { Shard, ShardRequest, ShardResult, SweepShardRequest, SweepShardResult, ToleranceShardRequest, ToleranceShardResult } from "./shards.js";
-export type { ColumnsShardRequest, ColumnsShardResult, ShardValue } from "./columns-shards.js";
+export type { ColumnsShardRequest, ColumnsShardResult } from "./columns-shards.js";
+export { fromShardValue, toShardValue, type ShardValue } from "./shard-values.js";
 export type { CollectedNotes } from "./notes.js";

@@ -137,13 +137,6 @@ export function registryFormula(tool: string, formula: AnyFormula | string): Any
   return f;
 }
 
-/** A SharedArrayBuffer-backed copy of `a`. */
-function shared(a: ArrayLike<number>): Float64Array {
-  const s = new Float64Array(new SharedArrayBuffer(a.length * 8));
-  s.set(a);
-  return s;
-}
-
 /**
  * `tolerance` with its Monte Carlo split over worker threads; the same result,
  * bit for bit, for any `workers`. At MIN_PARALLEL_SAMPLES samples and more the
@@ -183,9 +176,8 @@ export async function toleranceParallel<I extends InputSpecs, O extends OutputSp
 
 /**
  * `sweep` with its grid split over worker threads; the same result, bit for
- * bit, for any `workers`. The result's arrays are views into one
- * SharedArrayBuffer when the pool was used (`slice()` one for a plain copy).
- * At MIN_PARALLEL_POINTS points and more the pool is used; below, the calling
+ * bit, for any `workers`, in plain arrays as `sweep` returns them. At
+ * MIN_PARALLEL_POINTS points and more the pool is used; below, the calling
  * thread.
  */
 export async function sweepParallel<I extends InputSpecs, O extends OutputSpec>(
@@ -199,21 +191,30 @@ export async function sweepParallel<I extends InputSpecs, O extends OutputSpec>(
   const plan = planSweep(f, spec as SweepSpec);
   const total = plan.total;
   const t = ticker(tool, options, total);
-  const small = total < MIN_PARALLEL_POINTS;
-  const arrays = layoutSweep(plan, small ? new ArrayBuffer(plan.bytes) : new SharedArrayBuffer(plan.bytes), true);
+  const arrays = layoutSweep(plan, new ArrayBuffer(plan.bytes), true);
   const grid = bindGrid(plan, arrays);
   let failed = 0;
-  if (small) {
+  if (total < MIN_PARALLEL_POINTS) {
     const work = (a: number, b: number): void => {
       failed += computePoints(f, grid.g, grid.axis0, grid.axis1, a, b);
     };
     if (!watched(options)) work(0, total);
     else await inPiecesAsync(0, total, work, (done) => tickBelow(t, done, total));
   } else {
+    // The threads fill a reused shared buffer (a fresh one is faulted in page
+    // by page on every call: shared-scratch.ts), which is then copied into the
+    // result's plain buffer: axes in, values and flags out.
     const request: SweepSpec = { vary: spec.vary, ...(spec.fixed !== undefined ? { fixed: spec.fixed } : {}) };
-    const buffer = arrays.values.buffer as SharedArrayBuffer;
+    const scratch = borrowShared(Math.ceil(plan.bytes / 8));
+    const bytes = new Uint8Array(scratch.buffer, 0, plan.bytes);
+    const axesBytes = arrays.values.byteOffset;
+    const own = new Uint8Array(arrays.values.buffer);
+    bytes.set(own.subarray(0, axesBytes));
+    const buffer = scratch.buffer as SharedArrayBuffer;
     const tasks: PoolTask[] = splitRange(total, workers).map(([start, end]) => ({ kind: "sweep", formula: f.id, spec: request, buffer, start, end }));
     failed = (await onPool<number>(tool, tasks, workers, options, t, 0, total)).reduce((a, b) => a + b, 0);
+    own.set(bytes.subarray(axesBytes), axesBytes);
+    giveBackShared(scratch);
   }
   const result = finishSweep(plan, arrays, grid, failed);
   t.finish();
@@ -235,8 +236,7 @@ export interface BiotSavartParallelOptions extends BiotSavartOptions, ParallelOp
  * bad point, as the synchronous call does). At MIN_PARALLEL_FIELD_PAIRS
  * segment-point pairs and more the pool is used; below, the calling thread.
  * Points (and `out`) over a SharedArrayBuffer reach the threads without a
- * copy; without `out`, the result made for a pooled call is a view into a
- * SharedArrayBuffer (`slice()` it for a plain copy).
+ * copy; without `out`, the result is a plain Float64Array, as biotSavart's.
  */
 export async function biotSavartParallel(path: Float64Array, current: number, points: Float64Array, options: BiotSavartParallelOptions = {}): Promise<BiotSavartField> {
   const tool = "biotSavartParallel";
@@ -250,8 +250,9 @@ export async function biotSavartParallel(path: Float64Array, current: number, po
   }
   const t = ticker(tool, options, np);
   const pooled = np * (nv - 1) >= MIN_PARALLEL_FIELD_PAIRS;
-  // A new result array is shared when the pool fills it: the threads write it in place.
-  const result = (out ?? (pooled ? new Float64Array(new SharedArrayBuffer(points.length * 8)) : new Float64Array(points.length))) as Float64Array & { warnings: readonly Note[] };
+  // A result made here is plain, as biotSavart's; on the pool the threads fill a reused
+  // shared buffer that is copied into it (a fresh shared one was faulted in on every call).
+  const result = (out ?? new Float64Array(points.length)) as Float64Array & { warnings: readonly Note[] };
   let found: InsideCount;
   if (!pooled) {
     if (!watched(options)) found = fieldRange(path, current, points, result, wireRadius, 0, np);
@@ -265,7 +266,8 @@ export async function biotSavartParallel(path: Float64Array, current: number, po
     // Arrays over a SharedArrayBuffer are handed to the threads as they are;
     // plain ones are copied into reused shared buffers (shared-scratch.ts:
     // a fresh buffer's first touch cost more than the field map itself).
-    const sp = shared(path);
+    // A copy of the path (a few hundred bytes) goes with each task: a view's whole buffer would.
+    const sp = path.slice();
     const isShared = (a: Float64Array): boolean => a.buffer instanceof SharedArrayBuffer;
     const spoints = isShared(points) ? points : borrowShared(points.length);
     if (spoints !== points) spoints.set(points);

@@ -177,7 +177,12 @@ function compute(task: PoolTask, hook: ((done: number) => void) | undefined): Mo
     }
     case "sweep": {
       const plan = planSweep(getFormula(task.formula), task.spec);
-      const grid = bindGrid(plan, layoutSweep(plan, task.buffer, false));
+      const arrays = layoutSweep(plan, task.buffer, false);
+      // The buffer is reused (shared-scratch.ts): the loop's rule that its entries start zeroed holds once this range is cleared.
+      arrays.values.fill(0, task.start, task.end);
+      for (const c of arrays.components ?? []) c.fill(0, task.start, task.end);
+      arrays.computed.fill(0, task.start, task.end);
+      const grid = bindGrid(plan, arrays);
       let failed = 0;
       const work = (a: number, b: number): void => {
         failed += computePoints(plan.formula, grid.g, grid.axis0, grid.axis1, a, b);
@@ -206,8 +211,7 @@ function compute(task: PoolTask, hook: ((done: number) => void) | undefined): Mo
       return rows;
     }
     case "columns": {
-      // A columns task reports once, at its end: its rows are planned as one range.
-      const part = columnsRange(task.table, task.start, task.end);
+      const part = columnsRange(task.table, task.start, task.end, hook);
       finished(task.end - task.start);
       return part;
     }

@@ -1,9 +1,12 @@
 import { FormulaError } from "../core/errors.js";
+import { type LongRunOptions, ticker } from "../core/progress.js";
 import { getFormula } from "../core/registry.js";
+import { inPieces, tickBelow } from "./chunks.js";
 import type { ColumnsResult } from "./columns.js";
 import { type ColumnsShardRequest, type ColumnsShardResult, columnsRows, mergeColumnsShards, runColumnsShard } from "./columns-shards.js";
 import type { CollectedNotes } from "./notes.js";
 import { MONTE_CARLO_BLOCK } from "./random.js";
+import { fromShardValue, type ShardValue, toShardValues } from "./shard-values.js";
 import { computePoints } from "./sweep-points.js";
 import { bindGrid, finishSweep, layoutSweep, planSweep, type SweepResult, type SweepSpec } from "./sweep.js";
 import { finishTolerance, monteCarloRange, planTolerance, type ToleranceOptions, type ToleranceResult } from "./tolerance.js";
@@ -44,18 +47,18 @@ export interface Shard<R extends ShardRequest = ShardRequest> {
   readonly end: number;
 }
 
-/** What a tolerance shard found: its samples' computed values in order and their notes. */
+/** What a tolerance shard found: its samples' computed values in order ("-0" for a negative zero, see ShardValue) and their notes. */
 export interface ToleranceShardResult {
   readonly shard: Shard<ToleranceShardRequest>;
-  readonly values: readonly number[];
+  readonly values: readonly ShardValue[];
   readonly notes: CollectedNotes;
 }
 
-/** What a sweep shard computed: its points' values (null or NaN where not computed), in order. */
+/** What a sweep shard computed: its points' values (null where not computed, "-0" for a negative zero), in order. */
 export interface SweepShardResult {
   readonly shard: Shard<SweepShardRequest>;
-  readonly values: readonly (number | null)[];
-  readonly components?: readonly (readonly (number | null)[])[];
+  readonly values: readonly ShardValue[];
+  readonly components?: readonly (readonly ShardValue[])[];
   readonly computed: readonly number[];
   readonly notComputed: number;
 }
@@ -109,32 +112,45 @@ export function planShards<R extends ShardRequest>(request: R, count: number): S
   return ranges.map(([start, end], index) => ({ request, index, count: ranges.length, start, end }));
 }
 
-/** Runs one shard (on any machine): the same computation as one run, over the shard's range. */
-export function runShard(shard: Shard<ToleranceShardRequest>): ToleranceShardResult;
-export function runShard(shard: Shard<SweepShardRequest>): SweepShardResult;
-export function runShard(shard: Shard<ColumnsShardRequest>): ColumnsShardResult;
-export function runShard(shard: Shard): ShardResult;
-export function runShard(shard: Shard): ShardResult {
+/**
+ * Runs one shard (on any machine): the same computation as one run, over the
+ * shard's range. `signal` and `onProgress` (LongRunOptions) work as in the
+ * other long calls, over the shard's indices; a queue worker can pass its
+ * job's progress on from here.
+ */
+export function runShard(shard: Shard<ToleranceShardRequest>, options?: LongRunOptions): ToleranceShardResult;
+export function runShard(shard: Shard<SweepShardRequest>, options?: LongRunOptions): SweepShardResult;
+export function runShard(shard: Shard<ColumnsShardRequest>, options?: LongRunOptions): ColumnsShardResult;
+export function runShard(shard: Shard, options?: LongRunOptions): ShardResult;
+export function runShard(shard: Shard, options?: LongRunOptions): ShardResult {
   if (typeof shard !== "object" || shard === null) throw bad("shard", "a shard is { request, index, count, start, end } as planShards makes it");
   const { request, start, end } = shard;
-  if (kindOf(request) === "columns") return runColumnsShard(shard as Shard<ColumnsShardRequest>, (rows) => checkRange(shard, rows));
+  const progress = () => ticker("runShard", options, end - start);
+  if (kindOf(request) === "columns") return runColumnsShard(shard as Shard<ColumnsShardRequest>, (rows) => checkRange(shard, rows), progress);
   const f = getFormula(request?.formula);
   if (kindOf(request) === "tolerance") {
     const r = request as ToleranceShardRequest;
     const plan = planTolerance(f, r.inputs, r.options ?? {});
     checkRange(shard, plan.samples);
-    const part = monteCarloRange(f, plan.b, plan.varied, plan.seed, plan.sampleOffset, start, end);
-    return { shard: shard as Shard<ToleranceShardRequest>, values: Array.from(part.values), notes: part.notes };
+    const t = progress();
+    // monteCarloRange calls `between` below the range's end only: fraction 1 is finish()'s.
+    const part = monteCarloRange(f, plan.b, plan.varied, plan.seed, plan.sampleOffset, start, end, (done) => t.tick(done));
+    t.finish();
+    return { shard: shard as Shard<ToleranceShardRequest>, values: toShardValues(part.values), notes: part.notes };
   }
   const plan = planSweep(f, request as SweepShardRequest);
   checkRange(shard, plan.total);
+  const t = progress();
   const arrays = layoutSweep(plan, new ArrayBuffer(plan.bytes), true);
   const grid = bindGrid(plan, arrays);
-  const notComputed = computePoints(f, grid.g, grid.axis0, grid.axis1, start, end);
+  let notComputed = 0;
+  // In pieces with a tick between: points are independent, so the values are those of one loop.
+  inPieces(start, end, (a, b) => (notComputed += computePoints(f, grid.g, grid.axis0, grid.axis1, a, b)), (done) => tickBelow(t, done - start, end - start));
+  t.finish();
   return {
     shard: shard as Shard<SweepShardRequest>,
-    values: Array.from(arrays.values.subarray(start, end)),
-    ...(arrays.components ? { components: arrays.components.map((c) => Array.from(c.subarray(start, end))) } : {}),
+    values: toShardValues(arrays.values, start, end),
+    ...(arrays.components ? { components: arrays.components.map((c) => toShardValues(c, start, end)) } : {}),
     computed: Array.from(arrays.computed.subarray(start, end)),
     notComputed,
   };
@@ -173,16 +189,16 @@ export function mergeShards(results: readonly ShardResult[]): ToleranceResult | 
     const r = request as ToleranceShardRequest;
     const plan = planTolerance(f, r.inputs, r.options ?? {});
     if (at !== plan.samples) throw bad("shards", `the shards cover ${at} of ${plan.samples} samples`);
-    const parts = (sorted as ToleranceShardResult[]).map((s) => ({ samples: s.shard.end - s.shard.start, values: Float64Array.from(s.values), notes: s.notes }));
+    const parts = (sorted as ToleranceShardResult[]).map((s) => ({ samples: s.shard.end - s.shard.start, values: Float64Array.from(s.values, fromShardValue), notes: s.notes }));
     return finishTolerance(plan, plan.samples > 0 ? parts : []);
   }
   const plan = planSweep(f, request as SweepShardRequest);
   if (at !== plan.total) throw bad("shards", `the shards cover ${at} of ${plan.total} points`);
   const arrays = layoutSweep(plan, new ArrayBuffer(plan.bytes), true);
   let failed = 0;
-  // JSON turns NaN into null; a point not computed is NaN again here.
-  const put = (to: Float64Array, from: readonly (number | null)[], start: number): void => {
-    for (let i = 0; i < from.length; i++) to[start + i] = from[i] ?? NaN;
+  // A point not computed (null) is NaN again here, and "-0" is -0.
+  const put = (to: Float64Array, from: readonly ShardValue[], start: number): void => {
+    for (let i = 0; i < from.length; i++) to[start + i] = fromShardValue(from[i]);
   };
   for (const s of sorted as SweepShardResult[]) {
     const { start, end } = s.shard;

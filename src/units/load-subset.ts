@@ -3,10 +3,9 @@
 // bundles that reach unit parsing. The Node build replaces this module with
 // load-subset.node.ts (see tsup.config.ts), which loads a prebuilt file on
 // first use so that `import "emquant"` never loads mathjs.
-import type { MathJsInstance } from "mathjs";
-import { createSubsetMath } from "./mathjs-subset.js";
+import { createSubsetMath, type UnitMath } from "./mathjs-subset.js";
 
 /** A new instance of the unit-parsing subset of mathjs. */
-export function loadSubsetMath(): MathJsInstance {
+export function loadSubsetMath(): UnitMath {
   return createSubsetMath();
 }

@@ -39,8 +39,10 @@ export function exactSI(text: string, unit: UnitTerms, approx: number): number {
   for (const u of unit.units) {
     const { power } = u;
     if (u.unit.offset !== 0 || !Number.isInteger(power) || Math.abs(power) > 64) return approx;
-    for (const f of [u.prefix.value as number, u.unit.value as number]) {
+    for (const f of [u.prefix.value, u.unit.value]) {
       if (f === 1) continue;
+      // degR's value is mathjs's Fraction 5/9, no decimal: mathjs's own value stands.
+      if (typeof f !== "number") return approx;
       const d = factorOf(f);
       if (d === undefined || (power < 0 && d[0] !== 1)) return approx;
       if (power > 0) coefficient *= BigInt(d[0]) ** BigInt(power);

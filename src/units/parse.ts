@@ -1,7 +1,8 @@
-import type { MathJsInstance, Unit } from "mathjs";
+import type { Unit } from "mathjs";
 import { FormulaError } from "../core/errors.js";
 import type { Exponents } from "./dimensions.js";
 import { loadSubsetMath } from "./load-subset.js";
+import type { UnitMath } from "./mathjs-subset.js";
 import { exactSI, type UnitTerms } from "./parse-exact.js";
 import { unknownUnitDetail } from "./unit-hint.js";
 import { readUnitString } from "./unit-reader.js";
@@ -10,10 +11,10 @@ import { readUnitString } from "./unit-reader.js";
  * Run-time unit strings ("0.2 mm", "4.7 uF") are read by mathjs, on a private
  * instance created on first use, so importing typed formulas never loads mathjs.
  */
-let instance: MathJsInstance | undefined;
+let instance: UnitMath | undefined;
 
 /** The library's private mathjs instance, with the trade's units put right. */
-export function unitMath(): MathJsInstance {
+export function unitMath(): UnitMath {
   instance ??= createUnitMath();
   return instance;
 }
@@ -22,7 +23,7 @@ export function unitMath(): MathJsInstance {
  * A fresh instance of the unit-parsing subset of mathjs (Unit, unit, createUnit;
  * see mathjs-subset.ts) with emquant's unit corrections applied.
  */
-export function createUnitMath(): MathJsInstance {
+export function createUnitMath(): UnitMath {
   const math = loadSubsetMath();
   addTradeUnits(math);
   return math;
@@ -32,7 +33,7 @@ export function createUnitMath(): MathJsInstance {
  * Units this trade uses that mathjs 15 lacks or defines with an outdated value.
  * Registered through mathjs's own API on the given instance, never the global one.
  */
-export function addTradeUnits(math: MathJsInstance): void {
+export function addTradeUnits(math: Pick<UnitMath, "createUnit">): void {
   math.createUnit(
     {
       // mathjs 15 uses 1.602176565e-19 J (CODATA 2010); the SI fixes e exactly since 2019.

@@ -18,6 +18,7 @@ import { buildWorker, startWorkerProcesses, type WorkerProcesses } from "../../e
 import { runOnQueue, runShardsOnQueue } from "../../examples/queue/run-on-queue.js";
 import { coilTolerance } from "../../examples/queue/scenario.js";
 import { connectionOf, ShardQueueError } from "../../examples/queue/shard-jobs.js";
+import { type ShardWorker, startShardWorker } from "../../examples/queue/shard-worker.js";
 import { FormulaError } from "../../src/core/errors.js";
 import type { Progress } from "../../src/core/progress.js";
 import { planShards, type SweepShardRequest, type ToleranceShardRequest } from "../../src/tools/shards.js";
@@ -48,10 +49,12 @@ function sweepBytes(s: SweepResult): { values: Uint8Array; components: Record<st
 describe.skipIf(!installed && !required)("the job-queue example (BullMQ on a private redis-server, two worker processes)", () => {
   let redis: LocalRedis | undefined;
   let workers: WorkerProcesses | undefined;
+  let workerFile = "";
 
   beforeAll(async () => {
     const [file, server] = await Promise.all([buildWorker(), startLocalRedis()]);
     redis = server;
+    workerFile = file;
     workers = await startWorkerProcesses(file, 2, server.url);
   }, 180_000);
 
@@ -104,6 +107,42 @@ describe.skipIf(!installed && !required)("the job-queue example (BullMQ on a pri
     const one = sweepRequest(request);
     expect(Object.keys(result.output.components ?? {})).toEqual(["radial", "axial"]);
     expect(sweepBytes(result)).toEqual(sweepBytes(one));
+  });
+
+  it("finishes with one run's result when a worker dies mid-shard: its shard is run again by another once its lock lapses", async () => {
+    // A queue of its own and a 1 s job lock for the worker that dies (the default is 5 minutes). The worker process that
+    // dies is alone on the queue when the first shard is taken, so it is the one holding that
+    // shard when SIGKILL ends it; the worker that takes over runs in this process, started then.
+    const queue = "emquant-shards-crash";
+    const victim = await startWorkerProcesses(workerFile, 1, redis!.url, { queue, env: { LOCK_MS: "1000" } });
+    const events = new QueueEvents(queue, { connection: connectionOf(redis!.url) });
+    await events.waitUntilReady();
+    let stalled = 0;
+    events.on("stalled", () => stalled++);
+    let survivor: ShardWorker | undefined;
+    const takenOver = new Promise<void>((resolve, reject) => {
+      events.once("active", () => {
+        victim.kill("worker-1").then(() => {
+          // A long lock of its own (a loaded machine may hold its event loop over a second per
+          // shard), and a check for stalled jobs every half second.
+          survivor = startShardWorker({ redisUrl: redis!.url, queue, name: "survivor", lockMs: 60_000, stalledCheckMs: 500 });
+          return survivor.ready();
+        }).then(resolve, reject);
+      });
+    });
+    try {
+      const request: ToleranceShardRequest = { ...coilTolerance, options: { samples: 3 * 8192, seed: 5 } };
+      const { result, stats } = await runOnQueue(request, { redisUrl: redis!.url, queue, shards: 3, timeoutMs: 60_000 });
+      await takenOver;
+      expect(result).toStrictEqual(toleranceRequest(request));
+      // Every shard was finished by the survivor; the one the dead worker held was found stalled and run again.
+      expect(stats.byWorker).toEqual({ survivor: 3 });
+      expect(stalled).toBe(1);
+    } finally {
+      await events.close();
+      await survivor?.close();
+      await victim.stop();
+    }
   });
 
   it("fails at once with the library's coded error when a worker's shard is refused, without retrying it", async () => {

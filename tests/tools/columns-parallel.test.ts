@@ -41,7 +41,12 @@ describe("columnsParallel gives evaluateColumns' result bit for bit", { timeout:
     const one = evaluateColumns(parallelPlateCapacitance, inputs);
     expect(one.failed).toBe(5);
     expect(one.notes.length).toBeGreaterThan(0);
-    for (const workers of [1, 2, 3]) expectSameColumns(await columnsParallel(parallelPlateCapacitance, inputs, { workers }), one, `workers ${workers}`);
+    for (const workers of [1, 2, 3]) {
+      const r = await columnsParallel(parallelPlateCapacitance, inputs, { workers });
+      expectSameColumns(r, one, `workers ${workers}`);
+      // Plain arrays, as evaluateColumns makes them, on the pool too.
+      expect([r.output.values.buffer, r.errors.buffer].map((b) => b instanceof ArrayBuffer)).toEqual([true, true]);
+    }
     expect(workerThreads()).toBeGreaterThan(0);
   });
 

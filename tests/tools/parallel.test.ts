@@ -87,6 +87,8 @@ describe("parallel calls on the pool give the synchronous result bit for bit", {
         expect(r.notes).toStrictEqual(one.notes);
         expect(Buffer.compare(Buffer.from(r.output.values.slice().buffer), Buffer.from(one.output.values.slice().buffer)), `workers ${workers}`).toBe(0);
         expect(Buffer.compare(Buffer.from(r.computed.slice()), Buffer.from(one.computed.slice()))).toBe(0);
+        // Plain arrays, as sweep returns them, on the pool too.
+        expect(r.output.values.buffer).toBeInstanceOf(ArrayBuffer);
       }
     }
   });
@@ -106,6 +108,7 @@ describe("parallel calls on the pool give the synchronous result bit for bit", {
       const r = await biotSavartParallel(loop, 2, points, { wireRadius: 5e-4, workers });
       expect(Buffer.compare(Buffer.from(r.buffer), Buffer.from(one.buffer)), `workers ${workers}`).toBe(0);
       expect(r.warnings).toStrictEqual(one.warnings);
+      expect(r.buffer).toBeInstanceOf(ArrayBuffer);
     }
     // Two points on the filament, both in the second half: the error names the first, as the synchronous call does.
     const bad = points.slice();

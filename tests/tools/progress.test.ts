@@ -102,6 +102,50 @@ describe("a pool task's block hook", () => {
     expect([control[progressCell(0)], control[finalCell(0)]]).toEqual([9 * 1024, 10 * 1024]);
   });
 
+  it("stores a columns task's rows done between its pieces, and gives the rows and notes of the unwatched task", () => {
+    // Rows of invented plates, some raising the fringing warning; pieces capped at 1/10 of the rows.
+    const n = 20_000;
+    const table = (): Extract<PoolTask, { kind: "columns" }>["table"] => ({
+      formula: "parallelPlateCapacitance", rows: n,
+      numbers: [
+        { name: "area", data: Float64Array.from({ length: n }, (_, i) => 1e-6 * (1 + (i % 97))) },
+        { name: "gap", data: Float64Array.from({ length: n }, (_, i) => 1e-5 * (1 + (i % 301))) },
+      ],
+      choices: [], fixed: {}, probes: { area: 1e-6, gap: 1e-5 },
+      values: new Float64Array(n), components: [], errors: new Uint8Array(n),
+    });
+    const plain = table();
+    const one = runTask({ kind: "columns", table: plain, start: 0, end: n });
+    pieceLimit.items = n / 10;
+    const watchedTable = table();
+    const control = new Int32Array(new SharedArrayBuffer(4 * controlCells(1))).fill(-1);
+    control[CANCEL_CELL] = 0;
+    const out = runTask({ kind: "columns", table: watchedTable, start: 0, end: n, control, slot: 0 });
+    expect(out).toStrictEqual(one);
+    expect(Buffer.from(watchedTable.values.buffer).equals(Buffer.from(plain.values.buffer))).toBe(true);
+    // Pieces grow from 256 rows; the last boundary lies within the last tenth of the rows.
+    expect(control[progressCell(0)]).toBeGreaterThanOrEqual(n - n / 10);
+    expect(control[progressCell(0)]).toBeLessThan(n);
+    expect(control[finalCell(0)]).toBe(n);
+  });
+
+  it("fills a sweep task's range over a reused buffer as over a fresh one (the range is cleared first)", () => {
+    const f = getFormula("parallelPlateCapacitance");
+    const spec = { vary: { gap: { from: -1e-5, to: 1e-3, points: 5000 } }, fixed: { area: 1e-4 } };
+    const plan = planSweep(f, spec);
+    const fresh = new SharedArrayBuffer(plan.bytes);
+    layoutSweep(plan, fresh, true);
+    const used = new SharedArrayBuffer(plan.bytes);
+    const bytes = new Uint8Array(used);
+    bytes.fill(0x55);
+    bytes.set(new Uint8Array(fresh, 0, 5000 * 8));
+    const a = runTask({ kind: "sweep", formula: f.id, spec, buffer: fresh, start: 0, end: 5000 });
+    const b = runTask({ kind: "sweep", formula: f.id, spec, buffer: used, start: 0, end: 5000 });
+    expect(b).toStrictEqual(a);
+    expect(a.ok && a.value).toBeGreaterThan(0); // negative gaps are not computed
+    expect(Buffer.from(used).equals(Buffer.from(fresh))).toBe(true);
+  });
+
   it("ends a task before its work when the cancel flag is set, as a cancelled outcome", () => {
     const f = getFormula("parallelPlateCapacitance");
     const plan = planSweep(f, { vary: { gap: { from: 1e-5, to: 1e-3, points: 5000 } }, fixed: { area: 1e-4 } });
