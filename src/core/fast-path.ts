@@ -15,8 +15,8 @@ export type GeneratedCode = readonly [Inputs: InputsClass, fast: ((x: unknown) =
  * besides parsing, so one call instead of two cuts what `import "emquant"`
  * spends generating code (scripts/startup-time.mjs). Not deferred to the first
  * call: the formula must exist as a function from the start, and a forwarding
- * function in front of a later-made fast path cost typed calls 10-15 % (one
- * shared forwarder: 4-15x, its call site turns megamorphic), measured with
+ * function in front of a later-made fast path cost typed calls 8-15 % (one
+ * shared forwarder: 3-15x, its call site turns megamorphic), measured with
  * bench/typed.ts.
  *
  * The fast path is undefined where the output has components or an input is a
