@@ -1,10 +1,7 @@
 import type { Domain, InputSpecs } from "./spec.js";
 
 /** A formula's generated code: its compute-input class and, for scalar inputs, its fast path. */
-export interface GeneratedCode {
-  readonly Inputs: InputsClass;
-  readonly fast: ((x: unknown) => unknown) | undefined;
-}
+export type GeneratedCode = readonly [Inputs: InputsClass, fast: ((x: unknown) => unknown) | undefined];
 
 /**
  * Builds a straight-line checker + compute for a formula's scalar inputs, so a
@@ -13,53 +10,61 @@ export interface GeneratedCode {
  * (measured in bench/). On any failed check it hands the call to `slow`, which
  * re-checks and throws the precise FormulaError.
  *
- * The fast path and the formula's Inputs class (see inputsClass) come from one
- * `new Function`: every formula pays it when its module loads, and each call
- * has a fixed cost besides parsing, so one call instead of two cuts what
- * `import "emquant"` spends generating code (scripts/startup-time.mjs). Not
- * deferred to the first call: the formula must exist as a function from the
- * start, and a forwarding function in front of a later-made fast path cost
- * typed calls 10-15 % (one shared forwarder: 4-15x, its call site turns
- * megamorphic), measured with bench/typed.ts.
+ * The fast path and the formula's Inputs class come from one `new Function`:
+ * every formula pays it when its module loads, and each call has a fixed cost
+ * besides parsing, so one call instead of two cuts what `import "emquant"`
+ * spends generating code (scripts/startup-time.mjs). Not deferred to the first
+ * call: the formula must exist as a function from the start, and a forwarding
+ * function in front of a later-made fast path cost typed calls 8-15 % (one
+ * shared forwarder: 3-15x, its call site turns megamorphic), measured with
+ * bench/typed.ts.
  *
- * `fast` is undefined where the formula has vector or series inputs (callers
- * use the generic path, correct but slower); the whole result is undefined
- * where code generation is unavailable (a strict Content-Security-Policy
- * forbids `new Function`): callers then use inputsClass's fallback.
+ * The fast path is undefined where the output has components or an input is a
+ * vector or series (callers use the generic path, correct but slower); the
+ * whole result is undefined where code generation is unavailable (a strict
+ * Content-Security-Policy forbids `new Function`): callers then use inputsClass.
+ *
+ * The class: every object handed to compute and to the relations (typed calls,
+ * evaluate, solve, tolerance, sweeps) is made by it, so they all share one
+ * hidden class and the engine's property reads in compute stay monomorphic
+ * (with one shape per caller they went polymorphic and a typed call slowed by a
+ * third). A class rather than an object literal, so that no caller's
+ * `{ area, gap, ... }` literal shares its hidden class (see InputList in
+ * spec.ts). Names are plain identifiers (checked by defineFormula).
  */
 export function generateCode(
   inputs: InputSpecs,
   compute: (x: never) => unknown,
   relations: readonly { holds: (x: never) => boolean }[],
   slow: (x: unknown) => unknown,
-  vectorOutput: boolean,
+  componentOutput: boolean,
 ): GeneratedCode | undefined {
   const names = Object.keys(inputs);
-  const inputsSource = classSource(names);
-  const fastSource = vectorOutput ? undefined : fastPathSource(inputs, names, relations);
+  const choices: (readonly string[])[] = [];
+  // The generated source is written without spaces: it ships in every bundle.
+  const params = names.map((_, i) => `v${i}`).join();
+  const fields = names.map((n, i) => `this.${n}=v${i}`).join(";");
+  // An absent fast path is written as `undefined` in the returned pair.
+  const fast = componentOutput ? undefined : fastPathSource(inputs, names, params, relations.length, choices);
   try {
     // eslint-disable-next-line @typescript-eslint/no-implied-eval
-    const factory = new Function("compute", "relations", "slow", "choices", `${inputsSource};return [Inputs,${fastSource?.code ?? "undefined"}]`);
-    const [Inputs, fast] = factory(compute, relations, slow, fastSource?.choices) as [InputsClass, ((x: unknown) => unknown) | undefined];
-    return { Inputs, fast };
+    return new Function("compute", "relations", "slow", "choices", `class Inputs{constructor(${params}){${fields}}}return[Inputs,${fast}]`)(
+      compute, relations, slow, choices,
+    ) as GeneratedCode;
   } catch {
     return undefined;
   }
 }
 
 // Source of the fast path as a function expression (using Inputs, compute,
-// relations, slow, choices), or undefined for vector and series inputs.
-function fastPathSource(
-  inputs: InputSpecs,
-  names: readonly string[],
-  relations: readonly unknown[],
-): { code: string; choices: (readonly string[])[] } | undefined {
+// relations, slow, and the choice lists it appends to `choices`; `params` are
+// the input variables v0,v1,... in order), or
+// undefined for vector and series inputs.
+function fastPathSource(inputs: InputSpecs, names: readonly string[], params: string, relations: number, choices: (readonly string[])[]): string | undefined {
   // Arrays go to the careful path too: an array has a numeric `length`, so a
   // formula whose only required input is named `length` (propagationDelay)
   // would otherwise accept [inputs] as its inputs.
-  // The generated source is written without spaces: it ships in every bundle.
   const lines: string[] = ['if(typeof x!="object"||x===null||Array.isArray(x))return slow(x)'];
-  const choices: (readonly string[])[] = [];
   const numbers: string[] = [];
   const domainTests: string[] = [];
   for (let i = 0; i < names.length; i++) {
@@ -86,12 +91,12 @@ function fastPathSource(
     lines.push(`const finite=${numbers.join("+")}`);
     lines.push(`if(finite-finite!==0${domainTests.map((t) => `||!(${t})`).join("")})return slow(x)`);
   }
-  lines.push(`const o=new Inputs(${names.map((_, i) => `v${i}`).join()})`);
-  relations.forEach((_, i) => lines.push(`if(!relations[${i}].holds(o))return slow(x)`));
+  lines.push(`const o=new Inputs(${params})`);
+  for (let i = 0; i < relations; i++) lines.push(`if(!relations[${i}].holds(o))return slow(x)`);
   lines.push("const r=compute(o)");
   lines.push('if(typeof r!="number"||r-r!==0)return slow(x)');
   lines.push("return r");
-  return { code: `function fast(x){${lines.join(";")}}`, choices };
+  return `function fast(x){${lines.join(";")}}`;
 }
 
 /** Constructor of a formula's compute-input objects: the values in declaration order. */
@@ -108,22 +113,6 @@ export function inputsClass(names: readonly string[]): InputsClass {
       for (let i = 0; i < names.length; i++) (this as Record<string, unknown>)[names[i]!] = values[i];
     }
   } as unknown as InputsClass;
-}
-
-/*
- * The generated class of a formula's compute-input objects: the values in
- * declaration order. Every object handed to compute and to the relations
- * (typed calls, evaluate, solve, tolerance, sweeps) is made by it, so they all
- * share one hidden class and the engine's property reads in compute stay
- * monomorphic (with one shape per caller they went polymorphic and a typed call
- * slowed by a third). A class rather than an object literal, so that no
- * caller's `{ area, gap, ... }` literal shares its hidden class (see InputList
- * in spec.ts). Names are plain identifiers (checked by defineFormula).
- */
-function classSource(names: readonly string[]): string {
-  const params = names.map((_, i) => `v${i}`).join();
-  const body = names.map((n, i) => `this.${n}=v${i}`).join(";");
-  return `class Inputs{constructor(${params}){${body}}}`;
 }
 
 // String(v) reads back as v for every double ("NaN" and "Infinity" included: a

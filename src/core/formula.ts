@@ -158,10 +158,9 @@ export function defineFormula<const L extends InputList, const O extends OutputS
   }
 
   const checked = (inputs: unknown): unknown => run(prepare(inputs as Record<string, unknown>));
-  const generated = generateCode(def.inputs, def.compute, def.relations ?? [], checked, nComponents > 0);
-  // prepare and inputsObject above use it; they run only once a formula is called.
-  const Inputs = generated?.Inputs ?? inputsClass(names);
-  const formula = (generated?.fast ?? checked) as unknown as ChoiceCall<I, O> & Formula<I, O>;
+  // Inputs: prepare and inputsObject above use it; they run only once a formula is called.
+  const [Inputs, fast] = generateCode(def.inputs, def.compute, def.relations ?? [], checked, nComponents > 0) ?? [inputsClass(names)];
+  const formula = (fast ?? checked) as unknown as ChoiceCall<I, O> & Formula<I, O>;
   const details = (inputs: FormulaInputs<I>): Detailed<FormulaOutput<O>> => {
     const x = prepare(inputs as Record<string, unknown>);
     const value = run(x);
