@@ -8,10 +8,12 @@
 // (no quadrature) at the least offsets. The bound is 1e-14 relative (the issue's target is
 // 1e-12); subnormal results within one subnormal step (the range policy of src/math/scaled.ts).
 import { describe, expect, it } from "vitest";
-import { coaxialCoilsForce, FormulaError, type Current, type Length } from "../../src/index.js";
+import { coaxialCoilsForce, coaxialCoilsMutualInductance, coaxialLoopsForce, FormulaError, type Current, type Length } from "../../src/index.js";
+import { coaxialSheetsOracle } from "../inductance/oracle.js";
 import { dec, type Dec } from "../math/decimal-elliptic.js";
 import { coilsAttractionOracle } from "./coils-oracle.js";
 import { concentricAttraction, offsetAttractionOracle } from "./coils-offset-oracle.js";
+import { loopsForceOracleDecimal } from "./loops-oracle.js";
 import { MU0 } from "./oracle.js";
 
 const m = (v: number) => v as Length;
@@ -111,4 +113,39 @@ describe("coaxialCoilsForce for nearly concentric coils (window oracle of Maxwel
     }
     expect(wrong).toEqual([]);
   });
+});
+
+describe("coaxialLoopsForce and coaxialCoilsMutualInductance at tiny offsets", () => {
+  it("coaxialLoopsForce from 1e-20 m down to subnormal distances: Babic and Akyel's K, E form in decimal", () => {
+    // Unequal radii: the force falls as d (to a subnormal step); radii one ulp apart: as mu0 I1 I2 a d / (a - b)^2
+    // (the axial part of the parallel-wire force) while d < |a - b|; equal radii: mu0 I1 I2 a / d, until it
+    // passes the largest double (out_of_range).
+    const wrong: string[] = [];
+    for (const [a, b] of [[1, 0.8], [1, 1], [1, 1 - 2 ** -52]] as const) {
+      for (const d of [2 ** -1074, 1e-320, 1e-310, 1e-300, 1e-200, 1e-20]) {
+        for (const i of [1, 1e10]) {
+          const want = loopsForceOracleDecimal(i, i, a, b, d);
+          const call = () => coaxialLoopsForce({ current1: i as Current, current2: i as Current, radius1: m(a), radius2: m(b), distance: m(d) }) as number;
+          const exact = want.toNumber();
+          if (want.abs().lt(dec(40)(2).pow(-1074)) || !Number.isFinite(exact)) {
+            expect(call, `${a}, ${b} at ${d}, ${i} A`).toThrow(FormulaError);
+            continue;
+          }
+          const err = Math.abs(call() - exact);
+          if (!(err <= 2 ** -1074 || err <= 1e-15 * Math.abs(exact))) wrong.push(`${a}, ${b} at ${d}, ${i} A: ${err / Math.abs(exact)}`);
+        }
+      }
+    }
+    expect(wrong).toEqual([]);
+  });
+
+  it("coaxialCoilsMutualInductance from 1e-20 of a length to a subnormal offset: the difference of Nagaoka sheets in decimal", () => {
+    // M is even in d and flat at d = 0 (M(d) - M(0) ~ d^2 ln d): the offset must neither disturb nor be lost.
+    for (const [l1, l2] of [[1, 1], [1, 0.7]] as const) {
+      for (const d of [2 ** -1074, 1e-310, 1e-200, 1e-20]) {
+        const got = coaxialCoilsMutualInductance({ turns1: 1, radius1: m(1), length1: m(l1), turns2: 1, radius2: m(1), length2: m(l2), distance: m(d) }) as number;
+        expect(relative(new (dec(40))(got), coaxialSheetsOracle(1, l1, l2, d)), `${l1}, ${l2} at ${d}`).toBeLessThan(4e-15);
+      }
+    }
+  }, 60_000);
 });
