@@ -4,6 +4,7 @@
 import { ellipticByComplement } from "../math/elliptic.js";
 import { countLoop } from "../math/loop-count.js";
 import { gaussLegendre } from "../math/quadrature.js";
+import { exponentOf, ldexp } from "../math/scaled.js";
 import { type Corner, cornerWidth, linearWeightPanel, sum3 } from "../math/sum3.js";
 
 /** Scratch for ellipticByComplement's [K, E, D, E - 1]. */
@@ -110,7 +111,7 @@ const ORDER = 20; // Gauss-Legendre points per panel
  * 4 towards u = 0 where a piece starts within a quarter of its end from it. (By 5,
  * panels [0.2 u, u] of the far field, A ~ u^-4, kept only 2e-14: long coils.)
  */
-export function coaxialSheetsAttraction(a: number, l1: number, b: number, l2: number, d: number): number {
+export function coaxialSheetsAttraction(a: number, l1: number, b: number, l2: number, d: number): { factors: number[]; divisors: number[] } {
   const hmax = Math.max(l1, l2) / 2;
   const hmin = Math.min(l1, l2) / 2;
   const lmin = 2 * hmin;
@@ -131,6 +132,12 @@ export function coaxialSheetsAttraction(a: number, l1: number, b: number, l2: nu
     if (innerMinusD > 0) corners.push(corner(1, -1, -1, 0)); // v = inner - d: v + d = inner
     else if (innerMinusD < 0) corners.push(corner(-1, 1, 1, Math.min(-2 * innerMinusD, lmin))); // v = d - inner: |v - d| = inner
   }
+  // The weights are at most l_min and, for nearly concentric coils, of the order of d (subnormal
+  // at the least offsets): brought to [1, 2) by a power of two (exact, also for subnormals), so
+  // that no product in the sum underflows; the power goes back with the result (`scale`). Without
+  // it the sum lost 1e-9 of itself at d = 1e-310 and all of it at a few subnormal steps.
+  const k = -exponentOf(Math.max(...corners.map((c) => c.weight)));
+  corners = corners.map((c) => ({ ...c, weight: ldexp(c.weight, k) }));
   const width = (p: Corner, q: Corner): number => cornerWidth(p, q, hmax, hmin, d);
   corners.sort((p, q) => width(q, p));
   const rule = gaussLegendre(ORDER);
@@ -141,14 +148,26 @@ export function coaxialSheetsAttraction(a: number, l1: number, b: number, l2: nu
     const p = corners[i]!;
     const q = corners[i + 1]!;
     const span = width(p, q);
-    // A piece shorter than 2^-64 of the windings' span: its nodes could round onto u = 0 itself
-    // (centre distances of a few subnormal steps). Away from u = 0 it adds below about 1e-18 of
-    // the integral: skipped (as are coinciding corners). From u = 0 (nearly concentric equal
-    // coils) it adds int_0^span (slope o) A(o) do = weight(span) (v A(v)), v A(v) flat there
-    // (the touching-filament limit a of the attraction, or ~0 for unequal radii): 1/ln(l/d) of
-    // the whole, not negligible.
+    if (!(span > 0)) continue; // coinciding corners
+    // A piece shorter than 2^-64 of the windings' span. From u = 0 (nearly concentric equal coils)
+    // its nodes could round onto u = 0 itself (centre distances of a few subnormal steps); it adds
+    // int_0^span (slope o) A(o) do = weight(span) (v A(v)), v A(v) flat there (the touching-filament
+    // limit a of the attraction, or ~0 for unequal radii): 1/ln(l/d) of the whole. Away from u = 0
+    // it starts at |h1 - h2| - d, at least 2^-53 of the windings' span as long as that is a normal
+    // number at unit scale, so far more than its width from u = 0: one panel in the fraction of its
+    // width (the slope itself, a weight over a subnormal width, would overflow). It adds about
+    // (d / |h1 - h2|) / ln of the whole, not negligible where the turns of equal radii nearly meet
+    // (6e-6 when skipped, as this did, for lengths 2^-52 apart 2.5e-20 off centre).
     if (!(span > (hmax + hmin) * 2 ** -64)) {
-      if (p.at === 0 && span > 0) total += q.weight * flatAttraction(a, b, span);
+      if (p.at === 0) total += q.weight * flatAttraction(a, b, span);
+      else {
+        let s = 0;
+        for (let j = 0; j < ORDER; j++) {
+          const t = 0.5 + 0.5 * nodes[j]!;
+          s += weights[j]! * (p.weight + (q.weight - p.weight) * t) * attraction(p.at + span * t);
+        }
+        total += 0.5 * s * span;
+      }
       continue;
     }
     const slope = (q.weight - p.weight) / span;
@@ -171,7 +190,7 @@ export function coaxialSheetsAttraction(a: number, l1: number, b: number, l2: nu
     };
     total += near >= GRADE * far ? panel(0, span) : graded(near, far, (lo, hi) => panel(lo === near ? 0 : lo - near, hi - near), logPanel);
   }
-  return total / (l1 * l2);
+  return { factors: [total, ldexp(1, -k)], divisors: [l1, l2] };
 }
 
 /**

@@ -114,7 +114,11 @@ export const coaxialLoopsForce = /* @__PURE__ */ defineFormula({
  * against a decimal.js oracle of the double integral of the filament force
  * (tests/force/coils-accuracy.test.ts): 1.2e-15 relative at worst, touching to
  * 1e6 lengths apart, nested to 1e-8 of a length off centre, radii and lengths
- * 1e4 apart.
+ * 1e4 apart; and for nearly concentric coils (tests/force/coils-offset.test.ts,
+ * Maxwell's M integrated over windows of width 2d) 8.4e-16 from 1e-2 to 1e-200
+ * of a length off centre, and subnormal offsets to within a subnormal step.
+ * Near d = 0 the force falls as d, except for identical radii and lengths, where
+ * it falls as d ln(1/d) (the turns of the two coils meet everywhere).
  *
  * Validity: uniform current sheets; a warning below 10 turns.
  *
@@ -157,10 +161,15 @@ export const coaxialCoilsForce = /* @__PURE__ */ defineFormula({
   ],
   source: [BABIC_AKYEL, MAXWELL],
   // Scale-free in the lengths: integrate at unit size (a power of two, exact) so the quadrature's
-  // products neither underflow nor overflow; scaledProduct for the currents and turns.
+  // products neither underflow nor overflow; scaledProduct for the currents and turns. Scaling down
+  // would round a subnormal distance (nearly concentric coils: the force is proportional to it, and
+  // a distance 4 lengths below 2^-1074 came out 0): the distance keeps its bits, at a scale of up to
+  // 2^60 (where the quadrature's products are still far from the double range's ends). Past that,
+  // distances below 2^-1074 of the lengths are rounded at unit scale.
   compute: (x) => {
-    const s = -exponentOf(Math.max(x.radius1, x.radius2, x.length1, x.length2, x.distance));
-    const g = coaxialSheetsAttraction(ldexp(x.radius1, s), ldexp(x.length1, s), ldexp(x.radius2, s), ldexp(x.length2, s), ldexp(x.distance, s));
-    return scaledProduct([MU0, x.current1, x.current2, x.turns1, x.turns2, g]);
+    let s = -exponentOf(Math.max(x.radius1, x.radius2, x.length1, x.length2, x.distance));
+    if (s < 0 && x.distance > 0) s = Math.min(s + 60, Math.max(s, Math.min(0, -1022 - exponentOf(x.distance))));
+    const { factors, divisors } = coaxialSheetsAttraction(ldexp(x.radius1, s), ldexp(x.length1, s), ldexp(x.radius2, s), ldexp(x.length2, s), ldexp(x.distance, s));
+    return scaledProduct([MU0, x.current1, x.current2, x.turns1, x.turns2, ...factors], divisors);
   },
 });

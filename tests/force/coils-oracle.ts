@@ -106,7 +106,11 @@ export function maxwellM0(a: Dec, b: Dec, u: Dec, digits: number): Dec {
 }
 
 export interface SheetsOracleOptions {
-  /** Gauss-Legendre points per panel (default 24: Bernstein parameter 3 on graded panels, 3^-48 = 1e-23). */
+  /**
+   * Gauss-Legendre points per panel (default 24 + 1.05 log10(span / d): Bernstein parameter 3 on graded
+   * panels, 3^-48 = 1e-23 of the integrand's scale, and as many more digits as the signed integrand
+   * cancels for nearly concentric coils, where G is of order d against an integrand of order 1).
+   */
   order?: number;
   /** Ratio of successive graded panels (default 1/4). */
   grade?: number;
@@ -121,10 +125,11 @@ export interface SheetsOracleOptions {
  * lengths l1, l2 and centre distance d, from the exact decimal values of the doubles.
  */
 export function coilsAttractionOracle(a: number, l1: number, b: number, l2: number, d: number, options: SheetsOracleOptions = {}): Dec {
-  const order = options.order ?? 24;
   const grade = options.grade ?? 0.25;
   const size = Math.min(a, b, l1, l2);
   const span = Math.max(a, b, l1, l2, d);
+  // With 24 points only, identical coils 1e-20 and 1e-50 of a length off centre came out 2e-19 and 1e3 off.
+  const order = options.order ?? 24 + (d > 0 ? Math.ceil(1.05 * Math.max(0, Math.log10(span / d))) : 0);
   const far = d + l1 / 2 + l2 / 2;
   // Digits: 32 for the result, plus Maxwell's bracket's loss (about log10(1/m) at the farthest
   // argument), the difference m0(z - h1) - m0(z + h1) (log10 of far / l1), the cancellation of
@@ -162,8 +167,11 @@ export function coilsAttractionOracle(a: number, l1: number, b: number, l2: numb
   };
   let total = new D(0);
   // Half a piece [end, mid] (either order), graded towards `end` down to the distance sigma of the
-  // nearest singular point (then one Gauss-Legendre panel, 2 or more of its widths from it), or down to
-  // 1e-12 of the half where sigma is smaller still (0 for equal radii: then a tanh-sinh panel).
+  // nearest singular point (then one Gauss-Legendre panel, 2 or more of its widths from it), or, where
+  // the singular point is the end itself (sigma = 0, equal radii), down to 1e-12 of the half and then a
+  // tanh-sinh panel. (A tanh-sinh panel at a singular point a little beyond the end, as this took for
+  // every sigma below 1e-12 of the half, is not converged: 6e-10 of G low for identical coils 1e-20 of a
+  // length off centre, 9e-3 at 1e-200, against tests/force/coils-offset-oracle.ts.)
   const half = (end: Dec, mid: Dec): Dec => {
     const width = mid.minus(end).abs();
     const dir = mid.gt(end) ? 1 : -1;
@@ -172,14 +180,15 @@ export function coilsAttractionOracle(a: number, l1: number, b: number, l2: numb
     const least = width.times(1e-12);
     let sum = new D(0);
     let outer = width;
-    // Bound: outer shrinks by `grade` (at most 1/2) per step and stops below 1e-12 of the half: 40 steps at 1/2.
-    for (let j = 0; j < 60; j++) {
+    // Bound: outer shrinks by `grade` (at most 1/2) per step down to sigma, which is 0 or at least 2^-1074 of
+    // the coils' span (the exact value of a double offset): at most about 1100 steps at 1/2 (cap 2200).
+    for (let j = 0; j < 2200; j++) {
       if (outer.lte(sigma)) {
         const q = end.plus(outer.times(dir));
         sum = sum.plus(dir > 0 ? panel(end, q) : panel(q, end));
         break;
       }
-      if (outer.lte(least)) {
+      if (sigma.isZero() && outer.lte(least)) {
         sum = sum.plus(lastPanel(end, outer, dir));
         break;
       }
