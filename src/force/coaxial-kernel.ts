@@ -87,7 +87,9 @@ const ORDER = 20; // Gauss-Legendre points per panel
 
 /**
  * The attraction of two coaxial current sheets, -dM/dd / (mu0 N1 N2), for
- * radii a, b, lengths l1, l2 and centre distance d >= 0, at unit scale.
+ * radii a, b, lengths l1, l2 and centre distance d >= 0, at unit scale, as
+ * factors and divisors for `scaledProduct` (the sum and the powers of two that
+ * kept its terms near 1: see the weights' and terms' scaling below).
  *
  * Differentiating Maxwell's formula integrated over both windings,
  *   M(d) = (N1 N2 / (l1 l2)) int w(t) M0(d + t) dt,
