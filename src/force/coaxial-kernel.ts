@@ -87,7 +87,9 @@ const ORDER = 20; // Gauss-Legendre points per panel
 
 /**
  * The attraction of two coaxial current sheets, -dM/dd / (mu0 N1 N2), for
- * radii a, b, lengths l1, l2 and centre distance d >= 0, at unit scale.
+ * radii a, b, lengths l1, l2 and centre distance d >= 0, at unit scale, as
+ * factors and divisors for `scaledProduct` (the sum and the powers of two that
+ * kept its terms near 1: see the weights' and terms' scaling below).
  *
  * Differentiating Maxwell's formula integrated over both windings,
  *   M(d) = (N1 N2 / (l1 l2)) int w(t) M0(d + t) dt,
@@ -142,7 +144,13 @@ export function coaxialSheetsAttraction(a: number, l1: number, b: number, l2: nu
   corners.sort((p, q) => width(q, p));
   const rule = gaussLegendre(ORDER);
   const { nodes, weights } = rule;
-  const attraction = (v: number): number => loopAttraction(a, b, v);
+  // The sum's terms are of the size A(L) L, L the windings' extent: for flat coils of unequal radii
+  // (lengths 1e-160 of a radius and less) about L^2, which underflowed (0 at 1e-200). Scaled by
+  // 2^j to about 1 (exact: a power of two; j = 0 for coils of comparable sizes), j returned with the result.
+  const extent = hmax + hmin;
+  const j = Math.max(-1000, Math.min(1000, -(exponentOf(loopAttraction(a, b, extent)) + exponentOf(extent))));
+  const unit = ldexp(1, j);
+  const attraction = (v: number): number => loopAttraction(a, b, v) * unit;
   let total = 0;
   for (let i = 0; i + 1 < corners.length; i++) {
     const p = corners[i]!;
@@ -159,12 +167,12 @@ export function coaxialSheetsAttraction(a: number, l1: number, b: number, l2: nu
     // (d / |h1 - h2|) / ln of the whole, not negligible where the turns of equal radii nearly meet
     // (6e-6 when skipped, as this did, for lengths 2^-52 apart 2.5e-20 off centre).
     if (!(span > (hmax + hmin) * 2 ** -64)) {
-      if (p.at === 0) total += q.weight * flatAttraction(a, b, span);
+      if (p.at === 0) total += q.weight * flatAttraction(a, b, span) * unit;
       else {
         let s = 0;
-        for (let j = 0; j < ORDER; j++) {
-          const t = 0.5 + 0.5 * nodes[j]!;
-          s += weights[j]! * (p.weight + (q.weight - p.weight) * t) * attraction(p.at + span * t);
+        for (let i = 0; i < ORDER; i++) {
+          const t = 0.5 + 0.5 * nodes[i]!;
+          s += weights[i]! * (p.weight + (q.weight - p.weight) * t) * attraction(p.at + span * t);
         }
         total += 0.5 * s * span;
       }
@@ -181,16 +189,16 @@ export function coaxialSheetsAttraction(a: number, l1: number, b: number, l2: nu
       const s0 = Math.log(near);
       const hs = 0.5 * (Math.log(hi) - s0);
       let sum = 0;
-      for (let j = 0; j < ORDER; j++) {
-        const v = Math.exp(s0 + hs * (1 + nodes[j]!));
+      for (let i = 0; i < ORDER; i++) {
+        const v = Math.exp(s0 + hs * (1 + nodes[i]!));
         const weight = p.weight + slope * (v - near);
-        if (weight > 0) sum += weights[j]! * weight * flatAttraction(a, b, v);
+        if (weight > 0) sum += weights[i]! * weight * flatAttraction(a, b, v);
       }
-      return sum * hs;
+      return sum * hs * unit;
     };
     total += near >= GRADE * far ? panel(0, span) : graded(near, far, (lo, hi) => panel(lo === near ? 0 : lo - near, hi - near), logPanel);
   }
-  return { factors: [total, ldexp(1, -k)], divisors: [l1, l2] };
+  return { factors: [total, ldexp(1, -k), ldexp(1, -j)], divisors: [l1, l2] };
 }
 
 /**

@@ -118,7 +118,10 @@ export const coaxialLoopsForce = /* @__PURE__ */ defineFormula({
  * Maxwell's M integrated over windows of width 2d) 8.4e-16 from 1e-2 to 1e-200
  * of a length off centre, and subnormal offsets to within a subnormal step.
  * Near d = 0 the force falls as d, except for identical radii and lengths, where
- * it falls as d ln(1/d) (the turns of the two coils meet everywhere).
+ * it falls as d ln(1/d) (the turns of the two coils meet everywhere). Known limit:
+ * overlapping coils of equal radii shorter than about 1e-300 of the radius are
+ * refused as out_of_range (the filament attraction passes the largest double
+ * inside the quadrature), although the force is representable.
  *
  * Validity: uniform current sheets; a warning below 10 turns.
  *

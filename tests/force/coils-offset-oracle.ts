@@ -42,8 +42,10 @@ function digitsFor(a: number, l1: number, b: number, l2: number, d: number, extr
   const far = (l1 + l2) / 2 + d;
   const mFar = (4 * (a / span) * (b / span)) / (((a + b) / span) ** 2 + (far / span) ** 2);
   const lg = (v: number) => Math.ceil(Math.max(0, Math.log10(v)));
-  // The two windows' difference cancels like l_min / s when one coil is much shorter than the other.
-  return Math.min(400, 40 + extra + lg(1 / mFar) + lg(span / Math.min(a, b, l1, l2)) + lg(far / Math.min(l1, l2)));
+  // The two windows' difference cancels like l_min / s when one coil is much shorter than the other, and
+  // like (l / a)^2 for flat coils of unequal radii whose windows reach past each other (d of order l:
+  // m0 is smooth there, and the four terms of Phi cancel to its third derivative): the spread of sizes twice.
+  return Math.min(1000, 40 + extra + lg(1 / mFar) + 2 * lg(span / Math.min(a, b, l1, l2)) + lg(far / Math.min(l1, l2)));
 }
 
 /** int_lo^hi m0(u) du for 0 <= lo < hi, graded towards u = 0. */

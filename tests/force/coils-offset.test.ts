@@ -89,6 +89,16 @@ describe("coaxialCoilsForce for nearly concentric coils (window oracle of Maxwel
     expect(wrong).toEqual([]);
   }, 300_000);
 
+  it("flat coils of unequal radii, lengths 1e-200 and 1e-300 of a radius: the window oracle (any offset)", () => {
+    // The sum's terms are of the size of the lengths squared there: it came out 0 (1e-200) or 2e-5 off (1e-160).
+    for (const l of [1e-160, 1e-200, 1e-300]) {
+      for (const r of [3, 0.5, 1e-3]) {
+        const c: Coils = [1, l, 0.5, l];
+        expect(relative(new (dec(40))(force(c, r * l)), newtons(offsetAttractionOracle(...c, r * l))), `${l} at ${r}`).toBeLessThan(1e-14);
+      }
+    }
+  }, 120_000);
+
   it("subnormal offsets: the force is the leading term times d, to one subnormal step; below 2^-1074 out_of_range", () => {
     // Before, the overlap weights (of order d) made subnormal products: 1.6e-7 off at d = 4e-315 m and 0
     // instead of 5.4e-317 N at d = 2e-323 m (nested coils 1, 4 / 0.5, 1 m, 1 kA, 1e4 turns each); and a
