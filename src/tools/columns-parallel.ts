@@ -1,12 +1,12 @@
 import type { AnyFormula, Formula } from "../core/formula.js";
 import { ticker, watched } from "../core/progress.js";
-import { inPiecesAsync, tickBelow, timedHead } from "./chunks.js";
+import { inPiecesAsync, tickBelow } from "./chunks.js";
 import type { InputSpecs, OutputSpec } from "../core/spec.js";
 import { type ColumnInput, type ColumnsOptions, type ColumnsResult, finishColumns, planColumns } from "./columns.js";
 import { runRows } from "./columns-loop.js";
 import { readColumns } from "./columns-read.js";
 import { choiceCodes, type ColumnsPart, type ColumnsTaskData, mergeColumnParts } from "./columns-task.js";
-import { onPool, type ParallelOptions, readWorkers, registryFormula, splitRange, usePool } from "./parallel.js";
+import { onPool, type ParallelOptions, readWorkers, registryFormula, splitRange, startHere } from "./parallel.js";
 import type { PoolTask } from "./pool-tasks.js";
 import { borrowShared, giveBackShared } from "./shared-scratch.js";
 
@@ -58,13 +58,7 @@ export async function columnsParallel<I extends InputSpecs, O extends OutputSpec
   const progress = ticker(tool, options, n);
   // Rows from..to-1 counted from 0: the loop's note counts carry over from one range to the next.
   const work = (a: number, b: number): void => runRows(f, state, plan.shape, from + a, from + b);
-  let at = 0;
-  let pooled = false;
-  if (n >= MIN_PARALLEL_ROWS) {
-    const head = timedHead(n, work, (done) => tickBelow(progress, done, n));
-    at = head.done;
-    pooled = usePool(head.restMs);
-  }
+  const { at, pooled } = startHere(n, MIN_PARALLEL_ROWS, work, (done) => tickBelow(progress, done, n));
   if (!pooled) {
     if (!watched(options)) work(at, n);
     // In pieces, yielding between them: an abort from a timer or another event reaches the loop.

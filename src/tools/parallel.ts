@@ -98,6 +98,18 @@ export function usePool(restMs: number): boolean {
   return poolAvailable && restMs >= poolSplit.minPoolMs;
 }
 
+/**
+ * Where a call of `total` items starts: from `min` items on, its first items
+ * are done and timed here (timedHead, calling `work` and `between`) and the
+ * rest goes to the pool when usePool says so; below `min`, nothing is done
+ * yet and the call stays here.
+ */
+export function startHere(total: number, min: number, work: (a: number, b: number) => void, between: (done: number) => void, align = 1, first = 256): { at: number; pooled: boolean } {
+  if (total < min) return { at: 0, pooled: false };
+  const head = timedHead(total, work, between, align, first);
+  return { at: head.done, pooled: usePool(head.restMs) };
+}
+
 /** The worker count asked for, checked; undefined means the default. */
 export function readWorkers(tool: string, options: ParallelOptions | undefined): number {
   if (options !== undefined && (typeof options !== "object" || options === null)) {
@@ -186,13 +198,7 @@ export async function toleranceParallel<I extends InputSpecs, O extends OutputSp
   const work = (a: number, b: number): void => {
     parts.push(monteCarloRange(f, plan.b, varied, seed, sampleOffset, a, b));
   };
-  let at = 0;
-  let pooled = false;
-  if (samples >= MIN_PARALLEL_SAMPLES) {
-    const head = timedHead(samples, work, (done) => tickBelow(t, corners + done, total), MONTE_CARLO_BLOCK, MONTE_CARLO_BLOCK);
-    at = head.done;
-    pooled = usePool(head.restMs);
-  }
+  const { at, pooled } = startHere(samples, MIN_PARALLEL_SAMPLES, work, (done) => tickBelow(t, corners + done, total), MONTE_CARLO_BLOCK, MONTE_CARLO_BLOCK);
   if (samples > at && !pooled) {
     if (!watched(options)) work(at, samples);
     else await inPiecesAsync(at, samples, work, (done) => tickBelow(t, corners + done, total), MONTE_CARLO_BLOCK, MONTE_CARLO_BLOCK);
@@ -232,13 +238,7 @@ export async function sweepParallel<I extends InputSpecs, O extends OutputSpec>(
   const work = (a: number, b: number): void => {
     failed += computePoints(f, grid.g, grid.axis0, grid.axis1, a, b);
   };
-  let at = 0;
-  let pooled = false;
-  if (total >= MIN_PARALLEL_POINTS) {
-    const head = timedHead(total, work, (done) => tickBelow(t, done, total));
-    at = head.done;
-    pooled = usePool(head.restMs);
-  }
+  const { at, pooled } = startHere(total, MIN_PARALLEL_POINTS, work, (done) => tickBelow(t, done, total));
   if (!pooled) {
     if (!watched(options)) work(at, total);
     else await inPiecesAsync(at, total, work, (done) => tickBelow(t, done, total));
