@@ -12,15 +12,21 @@ import { type BenchRow, median, sink } from "./util.js";
 
 type Lib = typeof import("../src/index.js");
 
-/** Wall time and the process's CPU time (all threads, user + system), ms. */
-async function timeIt(f: () => Promise<unknown> | unknown): Promise<{ wall: number; cpu: number }> {
+/**
+ * Wall time and the process's CPU time (all threads, user + system), ms, and
+ * the minor page faults (first touches of fresh memory, 4 KiB each: a fresh
+ * result array costs them in either call, as the allocator hands out reused
+ * or new pages).
+ */
+async function timeIt(f: () => Promise<unknown> | unknown): Promise<{ wall: number; cpu: number; faults: number }> {
+  const f0 = process.resourceUsage().minorPageFault;
   const c0 = process.cpuUsage();
   const t0 = process.hrtime.bigint();
   const v = await f();
   const wall = Number(process.hrtime.bigint() - t0) / 1e6;
   const c = process.cpuUsage(c0);
   sink(typeof v === "number" ? v : 1);
-  return { wall, cpu: (c.user + c.system) / 1000 };
+  return { wall, cpu: (c.user + c.system) / 1000, faults: process.resourceUsage().minorPageFault - f0 };
 }
 
 interface Pair {
@@ -33,6 +39,9 @@ interface Pair {
   /** Median cores the process got while running each (CPU time / wall time). */
   readonly syncCores: number;
   readonly parCores: number;
+  /** Median minor page faults of each. */
+  readonly syncFaults: number;
+  readonly parFaults: number;
 }
 
 /**
@@ -48,6 +57,8 @@ async function pair(sync: () => unknown, par: () => Promise<unknown>, rounds: nu
   const r: number[] = [];
   const sc: number[] = [];
   const pc: number[] = [];
+  const sf: number[] = [];
+  const pf: number[] = [];
   for (let i = 0; i < rounds; i++) {
     const a = await timeIt(sync);
     const b = await timeIt(par);
@@ -56,14 +67,21 @@ async function pair(sync: () => unknown, par: () => Promise<unknown>, rounds: nu
     r.push(a.wall / b.wall);
     sc.push(a.cpu);
     pc.push(b.cpu);
+    sf.push(a.faults);
+    pf.push(b.faults);
   }
   const cores = (cpu: number[], wall: number[]): number => median(cpu.map((c, i) => c / wall[i]!));
-  return { sync: median(s), par: median(p), speedUp: median(r), syncCpu: median(sc), parCpu: median(pc), syncCores: cores(sc, s), parCores: cores(pc, p) };
+  return { sync: median(s), par: median(p), speedUp: median(r), syncCpu: median(sc), parCpu: median(pc), syncCores: cores(sc, s), parCores: cores(pc, p), syncFaults: median(sf), parFaults: median(pf) };
 }
 
 const ms = (v: number): string => (v >= 1000 ? `${(v / 1000).toFixed(2)} s` : `${v.toFixed(1)} ms`);
-/** Wall times, CPU times and cores of a pair, for a row's note. */
-const detail = (x: Pair): string => `${ms(x.sync)} -> ${ms(x.par)}; CPU ${ms(x.syncCpu)} -> ${ms(x.parCpu)}, cores used ${x.syncCores.toFixed(2)} -> ${x.parCores.toFixed(2)}`;
+/**
+ * Wall times, CPU times, cores and page faults of a pair, for a row's note,
+ * and the speed-up two workers could reach on an idle machine from the CPU
+ * times (2 x sync CPU / parallel CPU: robust to load, unlike the wall times).
+ */
+const detail = (x: Pair): string =>
+  `${ms(x.sync)} -> ${ms(x.par)}; CPU ${ms(x.syncCpu)} -> ${ms(x.parCpu)} (idle bound ${((2 * x.syncCpu) / x.parCpu).toFixed(2)}x), cores used ${x.syncCores.toFixed(2)} -> ${x.parCores.toFixed(2)}, page faults ${x.syncFaults} -> ${x.parFaults}`;
 
 export async function run(): Promise<BenchRow[]> {
   let lib: Lib;
@@ -122,6 +140,13 @@ export async function run(): Promise<BenchRow[]> {
     const samples = k * lib.MIN_PARALLEL_SAMPLES;
     const r = await pair(() => lib.tolerance(coil, inputs, { samples }), () => lib.toleranceParallel(coil, inputs, { samples, workers: 2 }), 7);
     rows.push({ name: `small job: Monte Carlo ${samples} samples, 2 workers`, value: `${r.speedUp.toFixed(2)}x`, note: `speed-up (below 1: the pool does not pay); ${detail(r)}; ${load()}` });
+  }
+  // A cheap formula (about a hundred nanoseconds a sample): above the count, the timed first samples keep it in the calling thread.
+  const plates = { area: { nominal: 1e-4, percent: 2 }, gap: { nominal: 1e-4, plusMinus: 2e-6 } } as const;
+  for (const k of [1, 5]) {
+    const samples = k * lib.MIN_PARALLEL_SAMPLES;
+    const r = await pair(() => lib.tolerance(lib.parallelPlateCapacitance, plates, { samples }), () => lib.toleranceParallel(lib.parallelPlateCapacitance, plates, { samples, workers: 2 }), 7);
+    rows.push({ name: `small job: Monte Carlo ${samples} samples of parallelPlateCapacitance, 2 workers`, value: `${r.speedUp.toFixed(2)}x`, note: `speed-up (the estimate keeps it in the calling thread below ${lib.MIN_POOL_MS} ms of work); ${detail(r)}; ${load()}` });
   }
   for (const k of [1, 4]) {
     const pts = (k * lib.MIN_PARALLEL_FIELD_PAIRS) / 16;

@@ -89,3 +89,40 @@ export async function inPiecesAsync(from: number, to: number, work: (start: numb
     start = end;
   }
 }
+
+/** CPU time spent timing the first items of a call that may go to the pool, ms. */
+export const SAMPLE_MS = 1;
+
+// The process's CPU time, ms, where Node gives it: the work a piece took whatever share of a
+// core the machine's load left this thread (the clock counted the waits too, and a loaded
+// machine sent small jobs to the pool). Elsewhere the clock.
+const cpuUsage = (globalThis as { process?: { cpuUsage?: () => { user: number; system: number } } }).process?.cpuUsage;
+const cpuNow: () => number = typeof cpuUsage === "function"
+  ? () => {
+      const c = cpuUsage();
+      return (c.user + c.system) / 1000;
+    }
+  : now;
+
+/**
+ * The first items of [0, total) in the calling thread, timed: pieces double
+ * from `first` items (inner boundaries on multiples of `align`) until they
+ * have taken SAMPLE_MS of CPU time or an eighth of the items are done, and
+ * `between(done)` follows each piece. Returns the items done and the CPU time
+ * the rest would take here at the rate measured, ms. Items are independent, so the work done here
+ * is part of the result whichever way the rest goes. Bounded: the pieces
+ * double, so there are at most log2(total) of them.
+ */
+export function timedHead(total: number, work: (start: number, end: number) => void, between: (done: number) => void, align = 1, first = 256): { done: number; restMs: number } {
+  const cap = Math.min(total, Math.max(align, Math.floor(total / 8 / align) * align));
+  const t0 = cpuNow();
+  let done = 0;
+  for (let size = firstSize(first, align); done < cap; size = Math.min(largest(align), size * 2)) {
+    const end = Math.min(cap, done + size);
+    work(done, end);
+    done = end;
+    between(done);
+    if (cpuNow() - t0 >= SAMPLE_MS) break;
+  }
+  return { done, restMs: done === 0 ? 0 : ((cpuNow() - t0) * (total - done)) / done };
+}

@@ -6,7 +6,7 @@ import { type ColumnInput, type ColumnsOptions, type ColumnsResult, finishColumn
 import { runRows } from "./columns-loop.js";
 import { readColumns } from "./columns-read.js";
 import { choiceCodes, type ColumnsPart, type ColumnsTaskData, mergeColumnParts } from "./columns-task.js";
-import { onPool, type ParallelOptions, readWorkers, registryFormula, splitRange } from "./parallel.js";
+import { onPool, type ParallelOptions, readWorkers, registryFormula, splitRange, startHere } from "./parallel.js";
 import type { PoolTask } from "./pool-tasks.js";
 import { borrowShared, giveBackShared } from "./shared-scratch.js";
 
@@ -49,17 +49,20 @@ export async function columnsParallel<I extends InputSpecs, O extends OutputSpec
   ticker(tool, options, 0);
   const read = readColumns(f, inputs);
   const rows = read.rows;
-  const small = rangeSize(options, rows) < MIN_PARALLEL_ROWS;
   const nc = (f.definition.output.components as readonly string[] | undefined)?.length ?? 0;
   // Arrays made here are plain, as evaluateColumns makes them; on the pool the threads
   // write reused shared copies (a fresh shared buffer was faulted in on every call).
   const plan = planColumns(f, read, options);
   const { from, to, state } = plan;
-  const progress = ticker(tool, options, to - from);
-  if (small) {
-    if (!watched(options)) runRows(f, state, plan.shape, from, to);
+  const n = to - from;
+  const progress = ticker(tool, options, n);
+  // Rows from..to-1 counted from 0: the loop's note counts carry over from one range to the next.
+  const work = (a: number, b: number): void => runRows(f, state, plan.shape, from + a, from + b);
+  const { at, pooled } = startHere(n, MIN_PARALLEL_ROWS, work, (done) => tickBelow(progress, done, n));
+  if (!pooled) {
+    if (!watched(options)) work(at, n);
     // In pieces, yielding between them: an abort from a timer or another event reaches the loop.
-    else await inPiecesAsync(from, to, (a, b) => runRows(f, state, plan.shape, a, b), (done) => tickBelow(progress, done - from, to - from));
+    else await inPiecesAsync(at, n, work, (done) => tickBelow(progress, done, n));
     progress.finish();
     return finishColumns(plan);
   }
@@ -100,12 +103,14 @@ export async function columnsParallel<I extends InputSpecs, O extends OutputSpec
     components,
     errors: sharedBytes(state.errors, true),
   };
-  const ranges = splitRange(to - from, workers).map(([a, b]): [number, number] => [from + a, from + b]);
+  // The rows past the timed head, which this thread has done.
+  const start0 = from + at;
+  const ranges = splitRange(to - start0, workers).map(([a, b]): [number, number] => [start0 + a, start0 + b]);
   const tasks: PoolTask[] = ranges.map(([start, end]) => ({ kind: "columns", table, start, end }));
-  const parts = await onPool<ColumnsPart>(tool, tasks, workers, options, progress, 0, to - from);
-  // Results written into copies go back to the caller's arrays (the range only).
+  const parts = await onPool<ColumnsPart>(tool, tasks, workers, options, progress, at, n);
+  // Results written into copies go back to the caller's arrays (the threads' rows only).
   const back = <T extends Float64Array | Uint8Array>(copy: T, to_: T): void => {
-    if (copy !== to_) to_.set(copy.subarray(from, to), from);
+    if (copy !== to_) to_.set(copy.subarray(start0, to), start0);
   };
   if (nc === 0) back(table.values, state.values);
   table.components.forEach((c, k) => back(c, state.components[k]!));
@@ -114,13 +119,6 @@ export async function columnsParallel<I extends InputSpecs, O extends OutputSpec
   mergeColumnParts(plan, parts);
   progress.finish();
   return finishColumns(plan);
-}
-
-/** The rows a call computes: to - from as options give them (checked again by planColumns). */
-function rangeSize(options: ColumnsOptions, rows: number): number {
-  const from = typeof options.from === "number" ? options.from : 0;
-  const to = typeof options.to === "number" ? options.to : rows;
-  return to - from;
 }
 
 /** An output array the threads can write: itself when shared, else a shared copy of it (its rows outside the range kept). */

@@ -18,7 +18,7 @@ export { columnsToCsv, evaluateCsv, MAX_CSV_CHARS, readCsvTable } from "./column
 export type { CsvLimits, CsvTable } from "./columns-csv.js";
 export { columnsParallel, MIN_PARALLEL_ROWS } from "./columns-parallel.js";
 export {
-  MAX_WORKERS, MIN_PARALLEL_FIELD_PAIRS, MIN_PARALLEL_POINTS, MIN_PARALLEL_SAMPLES, MIN_PARALLEL_SEGMENT_PAIRS,
+  MAX_WORKERS, MIN_PARALLEL_FIELD_PAIRS, MIN_PARALLEL_POINTS, MIN_POOL_MS, MIN_PARALLEL_SAMPLES, MIN_PARALLEL_SEGMENT_PAIRS,
   biotSavartParallel, mutualInductanceParallel, polylineSelfInductanceParallel, sweepParallel, toleranceParallel,
 } from "./parallel.js";
 export type { BiotSavartParallelOptions, ParallelOptions } from "./parallel.js";

@@ -8,7 +8,7 @@ import {
   type Polyline, segments, selfRows, sumRows,
 } from "../inductance/neumann.js";
 import { type LongRunOptions, type Ticker, ticker, watched } from "../core/progress.js";
-import { inPiecesAsync, tickBelow } from "./chunks.js";
+import { inPiecesAsync, tickBelow, timedHead } from "./chunks.js";
 import { defaultWorkers, poolAvailable, runOnPool } from "./pool.js";
 import { fieldPieces, type PoolTask, rebuildError, selfPairs, type TaskOutcome } from "./pool-tasks.js";
 import { MONTE_CARLO_BLOCK } from "./random.js";
@@ -67,11 +67,48 @@ export const MIN_PARALLEL_FIELD_PAIRS = 8_000_000;
 export const MIN_PARALLEL_SEGMENT_PAIRS = 5_000;
 
 /**
- * Ranges per worker: several, so a thread that finishes early takes more.
- * A test seam, not exported from the package: tests raise it to get many
- * small tasks (a task boundary near any fraction of the work) and restore it.
+ * Estimated calling-thread time of a sweep, Monte Carlo or table from which
+ * the pool is used, ms. At and above the MIN_PARALLEL_* counts these calls
+ * first run their first items here for about a millisecond (chunks.ts,
+ * timedHead; those items are part of the result) and hand the rest to the
+ * pool only when it would take at least this long here: below it, starting
+ * the tasks and copying the arrays through shared buffers cost more than the
+ * second thread saves (bench/parallel.ts: a table of 1e6 rows of
+ * parallelPlateCapacitance, about 9 ms, ran at 0.90x on the pool).
  */
-export const poolSplit = { chunksPerWorker: 4 };
+export const MIN_POOL_MS = 20;
+
+/**
+ * Ranges per worker: several, so a thread that finishes early takes more;
+ * and the estimated time from which the pool is used (MIN_POOL_MS).
+ * A test seam, not exported from the package: tests raise chunksPerWorker to
+ * get many small tasks (a task boundary near any fraction of the work), set
+ * minPoolMs to 0 so a call above the counts goes to the pool whatever the
+ * machine's speed, and restore both.
+ */
+export const poolSplit = { chunksPerWorker: 4, minPoolMs: MIN_POOL_MS };
+
+/**
+ * Whether the rest of a call, estimated at `restMs` of work here, goes to the
+ * pool: in a build with worker threads (the browser build has none), from
+ * poolSplit.minPoolMs of work. One worker is allowed: it does the work no
+ * faster, but off the calling thread's event loop.
+ */
+export function usePool(restMs: number): boolean {
+  return poolAvailable && restMs >= poolSplit.minPoolMs;
+}
+
+/**
+ * Where a call of `total` items starts: from `min` items on, its first items
+ * are done and timed here (timedHead, calling `work` and `between`) and the
+ * rest goes to the pool when usePool says so; below `min`, nothing is done
+ * yet and the call stays here.
+ */
+export function startHere(total: number, min: number, work: (a: number, b: number) => void, between: (done: number) => void, align = 1, first = 256): { at: number; pooled: boolean } {
+  if (total < min) return { at: 0, pooled: false };
+  const head = timedHead(total, work, between, align, first);
+  return { at: head.done, pooled: usePool(head.restMs) };
+}
 
 /** The worker count asked for, checked; undefined means the default. */
 export function readWorkers(tool: string, options: ParallelOptions | undefined): number {
@@ -156,18 +193,21 @@ export async function toleranceParallel<I extends InputSpecs, O extends OutputSp
   const plan = planTolerance(f, inputs, options, options, tool);
   const { samples, seed, sampleOffset, varied, corners, ticker: t } = plan;
   const total = corners + samples;
-  let parts: MonteCarloPart[] = [];
-  if (samples > 0 && samples < MIN_PARALLEL_SAMPLES) {
-    const range = (a: number, b: number): MonteCarloPart => monteCarloRange(f, plan.b, varied, seed, sampleOffset, a, b);
-    if (!watched(options)) parts = [range(0, samples)];
-    // Pieces of whole blocks: the parts joined in order are the samples of one run.
-    else await inPiecesAsync(0, samples, (a, b) => parts.push(range(a, b)), (done) => tickBelow(t, corners + done, total), MONTE_CARLO_BLOCK, MONTE_CARLO_BLOCK);
-  } else if (samples > 0) {
+  const parts: MonteCarloPart[] = [];
+  // Pieces of whole blocks: the parts joined in order are the samples of one run.
+  const work = (a: number, b: number): void => {
+    parts.push(monteCarloRange(f, plan.b, varied, seed, sampleOffset, a, b));
+  };
+  const { at, pooled } = startHere(samples, MIN_PARALLEL_SAMPLES, work, (done) => tickBelow(t, corners + done, total), MONTE_CARLO_BLOCK, MONTE_CARLO_BLOCK);
+  if (samples > at && !pooled) {
+    if (!watched(options)) work(at, samples);
+    else await inPiecesAsync(at, samples, work, (done) => tickBelow(t, corners + done, total), MONTE_CARLO_BLOCK, MONTE_CARLO_BLOCK);
+  } else if (samples > at) {
     const variedData = varied.map(({ spec: _spec, ...rest }) => rest);
-    const tasks: PoolTask[] = splitRange(samples, workers, MONTE_CARLO_BLOCK).map(([start, end]) => ({
-      kind: "tolerance", formula: f.id, fixed: plan.fixed, varied: variedData, seed, offset: sampleOffset, start, end,
+    const tasks: PoolTask[] = splitRange(samples - at, workers, MONTE_CARLO_BLOCK).map(([start, end]) => ({
+      kind: "tolerance", formula: f.id, fixed: plan.fixed, varied: variedData, seed, offset: sampleOffset, start: at + start, end: at + end,
     }));
-    parts = await onPool<MonteCarloPart>(tool, tasks, workers, options, t, corners, total);
+    parts.push(...(await onPool<MonteCarloPart>(tool, tasks, workers, options, t, corners + at, total)));
   }
   const result = finishTolerance(plan, parts);
   t.finish();
@@ -177,8 +217,9 @@ export async function toleranceParallel<I extends InputSpecs, O extends OutputSp
 /**
  * `sweep` with its grid split over worker threads; the same result, bit for
  * bit, for any `workers`, in plain arrays as `sweep` returns them. At
- * MIN_PARALLEL_POINTS points and more the pool is used; below, the calling
- * thread.
+ * MIN_PARALLEL_POINTS points and more the pool is used when the points would
+ * take MIN_POOL_MS or more here (timed on the first of them); otherwise, the
+ * calling thread.
  */
 export async function sweepParallel<I extends InputSpecs, O extends OutputSpec>(
   formula: Formula<I, O> | string,
@@ -194,26 +235,29 @@ export async function sweepParallel<I extends InputSpecs, O extends OutputSpec>(
   const arrays = layoutSweep(plan, new ArrayBuffer(plan.bytes), true);
   const grid = bindGrid(plan, arrays);
   let failed = 0;
-  if (total < MIN_PARALLEL_POINTS) {
-    const work = (a: number, b: number): void => {
-      failed += computePoints(f, grid.g, grid.axis0, grid.axis1, a, b);
-    };
-    if (!watched(options)) work(0, total);
-    else await inPiecesAsync(0, total, work, (done) => tickBelow(t, done, total));
+  const work = (a: number, b: number): void => {
+    failed += computePoints(f, grid.g, grid.axis0, grid.axis1, a, b);
+  };
+  const { at, pooled } = startHere(total, MIN_PARALLEL_POINTS, work, (done) => tickBelow(t, done, total));
+  if (!pooled) {
+    if (!watched(options)) work(at, total);
+    else await inPiecesAsync(at, total, work, (done) => tickBelow(t, done, total));
   } else {
     // The threads fill a reused shared buffer (a fresh one is faulted in page
     // by page on every call: shared-scratch.ts), which is then copied into the
     // result's plain buffer: axes in, values and flags out.
     const request: SweepSpec = { vary: spec.vary, ...(spec.fixed !== undefined ? { fixed: spec.fixed } : {}) };
     const scratch = borrowShared(Math.ceil(plan.bytes / 8));
-    const bytes = new Uint8Array(scratch.buffer, 0, plan.bytes);
-    const axesBytes = arrays.values.byteOffset;
-    const own = new Uint8Array(arrays.values.buffer);
-    bytes.set(own.subarray(0, axesBytes));
     const buffer = scratch.buffer as SharedArrayBuffer;
-    const tasks: PoolTask[] = splitRange(total, workers).map(([start, end]) => ({ kind: "sweep", formula: f.id, spec: request, buffer, start, end }));
-    failed = (await onPool<number>(tool, tasks, workers, options, t, 0, total)).reduce((a, b) => a + b, 0);
-    own.set(bytes.subarray(axesBytes), axesBytes);
+    const axesBytes = arrays.values.byteOffset;
+    new Uint8Array(buffer, 0, axesBytes).set(new Uint8Array(arrays.values.buffer, 0, axesBytes));
+    const tasks: PoolTask[] = splitRange(total - at, workers).map(([start, end]) => ({ kind: "sweep", formula: f.id, spec: request, buffer, start: at + start, end: at + end }));
+    failed += (await onPool<number>(tool, tasks, workers, options, t, at, total)).reduce((a, b) => a + b, 0);
+    // The points past the timed head come back from the threads' buffer.
+    const back = layoutSweep(plan, buffer, false);
+    arrays.values.set(back.values.subarray(at), at);
+    back.components?.forEach((c, k) => arrays.components![k]!.set(c.subarray(at), at));
+    arrays.computed.set(back.computed.subarray(at), at);
     giveBackShared(scratch);
   }
   const result = finishSweep(plan, arrays, grid, failed);
@@ -249,7 +293,7 @@ export async function biotSavartParallel(path: Float64Array, current: number, po
     throw new FormulaError("invalid_argument", { formula: "biotSavart", input: "out", detail: "output array is shorter than points" });
   }
   const t = ticker(tool, options, np);
-  const pooled = np * (nv - 1) >= MIN_PARALLEL_FIELD_PAIRS;
+  const pooled = np * (nv - 1) >= MIN_PARALLEL_FIELD_PAIRS && usePool(Number.POSITIVE_INFINITY);
   // A result made here is plain, as biotSavart's; on the pool the threads fill a reused
   // shared buffer that is copied into it (a fresh shared one was faulted in on every call).
   const result = (out ?? new Float64Array(points.length)) as Float64Array & { warnings: readonly Note[] };
@@ -324,7 +368,7 @@ export async function mutualInductanceParallel(pathA: Polyline, pathB: Polyline,
   const total = A.n * B.n;
   const t = ticker("mutualInductanceParallel", options, total);
   let rows: Float64Array;
-  if (total < MIN_PARALLEL_SEGMENT_PAIRS) {
+  if (total < MIN_PARALLEL_SEGMENT_PAIRS || !usePool(Number.POSITIVE_INFINITY)) {
     rows = await rowsHere(A.n, (i0, i1) => mutualRows(A, B, maxDepth, i0, i1), (i) => i * B.n, options, t, total);
   } else {
     const a = Float64Array.from(pathA);
@@ -362,7 +406,7 @@ export async function polylineSelfInductanceParallel(path: Polyline, wireRadius:
   const pairs = (n * (n - 1)) / 2;
   const t = ticker("polylineSelfInductanceParallel", options, pairs);
   let rows: Float64Array;
-  if (pairs < MIN_PARALLEL_SEGMENT_PAIRS) {
+  if (pairs < MIN_PARALLEL_SEGMENT_PAIRS || !usePool(Number.POSITIVE_INFINITY)) {
     rows = await rowsHere(n, (i0, i1) => selfRows(plan.S, plan.maxDepth, i0, i1), (i) => selfPairs(n, 0, i), options, t, pairs);
   } else {
     const p = Float64Array.from(path);

@@ -1,4 +1,4 @@
-import { afterAll, describe, expect, it } from "vitest";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { parallelPlateCapacitance } from "../../src/capacitance/index.js";
 import { FormulaError } from "../../src/core/errors.js";
 import { defineFormula } from "../../src/core/formula.js";
@@ -6,7 +6,7 @@ import { biotSavart } from "../../src/flux/biot-savart.js";
 import { mutualInductance, polylineSelfInductance } from "../../src/inductance/neumann.js";
 import {
   MAX_WORKERS, MIN_PARALLEL_FIELD_PAIRS, MIN_PARALLEL_POINTS, MIN_PARALLEL_SAMPLES, MIN_PARALLEL_SEGMENT_PAIRS,
-  biotSavartParallel, mutualInductanceParallel, polylineSelfInductanceParallel, splitRange, sweepParallel, toleranceParallel,
+  biotSavartParallel, mutualInductanceParallel, polylineSelfInductanceParallel, poolSplit, splitRange, sweepParallel, toleranceParallel,
 } from "../../src/tools/parallel.js";
 import { closeWorkers, workerThreads } from "../../src/tools/pool.node.js";
 import { sweep } from "../../src/tools/sweep.js";
@@ -16,11 +16,40 @@ import { expectRejection } from "../helpers/errors.js";
 // Bit-identical results for any worker count: each parallel call is compared
 // with the synchronous call (one thread, in order) by exact equality. The
 // pool's threads are started once and shared by the tests below, then closed.
+// Calls above the MIN_PARALLEL_* counts go to the pool whatever their timed
+// first items say (the seam poolSplit.minPoolMs at 0), so the pool is tested on
+// any machine; the estimate itself has its own test below.
 const COUNTS = [1, 2, 3];
+const minPoolMs = poolSplit.minPoolMs;
+beforeAll(() => {
+  poolSplit.minPoolMs = 0;
+});
 
 afterAll(async () => {
+  poolSplit.minPoolMs = minPoolMs;
   await closeWorkers();
   expect(workerThreads()).toBe(0);
+});
+
+describe("the estimate of the work", { timeout: 300_000 }, () => {
+  it("keeps a call above the counts in the calling thread when its timed first items say the rest is short, with the same result", async () => {
+    await closeWorkers();
+    poolSplit.minPoolMs = Number.POSITIVE_INFINITY;
+    try {
+      const spec = { vary: { gap: { from: -1e-5, to: 1e-3, points: MIN_PARALLEL_POINTS + 5 } }, fixed: { area: 1e-4 } };
+      const r = await sweepParallel(parallelPlateCapacitance, spec, { workers: 2 });
+      const one = sweep(parallelPlateCapacitance, spec);
+      expect(Buffer.from(r.output.values.buffer).equals(Buffer.from(one.output.values.buffer))).toBe(true);
+      expect(r.notes).toStrictEqual(one.notes);
+      const plates = { area: { nominal: 1e-4, percent: 2 }, gap: { nominal: 1e-4, plusMinus: 2e-6 } };
+      const t = await toleranceParallel(parallelPlateCapacitance, plates, { samples: MIN_PARALLEL_SAMPLES + 3000, seed: 9, workers: 2 });
+      expect(t).toStrictEqual(tolerance(parallelPlateCapacitance, plates, { samples: MIN_PARALLEL_SAMPLES + 3000, seed: 9 }));
+      // No thread was started.
+      expect(workerThreads()).toBe(0);
+    } finally {
+      poolSplit.minPoolMs = 0;
+    }
+  });
 });
 
 describe("worker count and formulas", () => {

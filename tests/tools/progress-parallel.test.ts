@@ -26,14 +26,18 @@ import { expectCancelledAsync, expectReports, expectStoppedAt, steppedClock, wat
 const AT = [0.1, 0.5, 0.99];
 let clock: { restore(): void };
 const split = poolSplit.chunksPerWorker;
+const minPoolMs = poolSplit.minPoolMs;
 const limit = pieceLimit.items;
 beforeEach(() => {
   clock = steppedClock();
   poolSplit.chunksPerWorker = 100;
+  // Above the counts, to the pool whatever the timed first items say.
+  poolSplit.minPoolMs = 0;
 });
 afterEach(() => {
   clock.restore();
   poolSplit.chunksPerWorker = split;
+  poolSplit.minPoolMs = minPoolMs;
   pieceLimit.items = limit;
 });
 afterAll(async () => {

@@ -1,7 +1,7 @@
 import { afterEach, beforeEach, describe, expect, it } from "vitest";
 import { parallelPlateCapacitance } from "../../src/capacitance/index.js";
 import { getFormula } from "../../src/core/registry.js";
-import { pieceLimit } from "../../src/tools/chunks.js";
+import { pieceLimit, timedHead } from "../../src/tools/chunks.js";
 import { evaluateColumns } from "../../src/tools/columns.js";
 import { CANCEL_CELL, controlCells, finalCell, progressCell, runTask, type PoolTask } from "../../src/tools/pool-tasks.js";
 import { layoutSweep, planSweep, sweep, sweepRequest } from "../../src/tools/sweep.js";
@@ -85,6 +85,23 @@ describe.each(cases)("$name", ({ items, call }) => {
       }
       expect([code, input]).toEqual(["invalid_argument", key]);
     }
+  });
+});
+
+describe("the timed first items of a call that may go to the pool", () => {
+  it("runs pieces from the start on multiples of the alignment, at most an eighth of the items, and estimates the rest", () => {
+    const ranges: [number, number][] = [];
+    const seen: number[] = [];
+    const { done, restMs } = timedHead(1024 * 1000, (a, b) => ranges.push([a, b]), (d) => seen.push(d), 1024, 1024);
+    expect(ranges[0]![0]).toBe(0);
+    for (let i = 1; i < ranges.length; i++) expect(ranges[i]![0]).toBe(ranges[i - 1]![1]);
+    expect(ranges.every(([a, b]) => a % 1024 === 0 && b % 1024 === 0 && b > a)).toBe(true);
+    expect(ranges.at(-1)![1]).toBe(done);
+    expect(seen).toEqual(ranges.map(([, b]) => b));
+    expect(done).toBeLessThanOrEqual(1024 * 1000 / 8);
+    expect(Number.isFinite(restMs) && restMs >= 0).toBe(true);
+    // A range of fewer items than the alignment is done whole.
+    expect(timedHead(5, () => {}, () => {}, 1024, 1024).done).toBe(5);
   });
 });
 
