@@ -31,7 +31,7 @@ function section(oracle: string, formula: string, settings: string, cases: reado
     const start = performance.now();
     const g = value(c);
     values.set(key, g);
-    entries.push([...c.map((v) => String(v)), g.toSignificantDigits(DIGITS).toString()] as [string, string, string, string, string, string]);
+    entries.push([...c.map((v) => String(v)), g.toSignificantDigits(DIGITS).toExponential()] as [string, string, string, string, string, string]);
     console.log(`${oracle} ${key}: ${((performance.now() - start) / 1000).toFixed(2)} s`);
   }
   return { s: { oracle, formula, settings, entries }, values };
@@ -81,5 +81,7 @@ const fixture: CoilsFixture = {
   digits: DIGITS,
   sections: { window: window.s, filament: filament.s, filamentOther: filamentOther.s, doubleIntegral: doubleIntegral.s } satisfies Record<FixtureSection, OracleSection>,
 };
-writeFileSync(FIXTURE_URL, `${JSON.stringify(fixture, null, 1)}\n`);
+// One entry a line, so a changed value shows as one changed line.
+writeFileSync(FIXTURE_URL, `${JSON.stringify(fixture, (key, v: unknown) => (key === "entries" ? (v as unknown[]).map((e) => JSON.stringify(e)) : v), 1)
+  .replace(/"(\[.*\])"/g, (_, e: string) => e.replace(/\\"/g, '"'))}\n`);
 console.log(`wrote ${FIXTURE_URL.pathname}`);
