@@ -10,7 +10,10 @@
 // per region is printed.
 import { describe, expect, it } from "vitest";
 import { coaxialCoilsForce, type Current, type Length } from "../../src/index.js";
-import { coilsAttractionOracle, coilsDoubleIntegral, coilsForceOracle } from "./coils-oracle.js";
+import type { Dec } from "../math/decimal-elliptic.js";
+import { coilsAttractionOracle, coilsDoubleIntegral, forceFromAttraction } from "./coils-oracle.js";
+import { CONVERGENCE_CASES, CONVERGENCE_SETTINGS, REDUCTION_CASES, REGIONS, scaled, type CoilsAt, type Region } from "./coils-cases.js";
+import { storedAttraction } from "./coils-fixture.js";
 
 const m = (v: number) => v as Length;
 const force = (i1: number, n1: number, a: number, l1: number, i2: number, n2: number, b: number, l2: number, d: number) =>
@@ -19,20 +22,27 @@ const force = (i1: number, n1: number, a: number, l1: number, i2: number, n2: nu
     current2: i2 as Current, turns2: n2, radius2: m(b), length2: m(l2), distance: m(d),
   }) as number;
 
-type Coils = readonly [a: number, l1: number, b: number, l2: number, d: number];
+// The cases (tests/force/coils-cases.ts) and the oracle's values for them are in the fixture
+// tests/force/fixtures/coils-oracle.json (written by npx tsx tests/force/make-coils-fixture.ts, 40 digits):
+// the library is compared with the stored values for every case, and a few are recomputed live below.
+const relative = (x: Dec, y: Dec): number => x.minus(y).div(y).abs().toNumber();
+const LIVE_REDUCTION = 1;
+const LIVE_CONVERGENCE = 2;
+// Separated far apart, touching (log-singular ends), and a case 1e-200 the size (exact scaled doubles).
+const LIVE_CASES: readonly CoilsAt[] = [[1, 1, 0.8, 0.5, 1e6], [1, 1, 1, 0.7, 0.85], scaled([1, 2, 1e-3, 0.5, 0.3], 1e-200)];
 const worst = new Map<string, number>();
 
-/** Relative error of the force for the geometry (times a scale), with currents and turns, against the oracle. */
-function check(region: string, [a, l1, b, l2, d]: Coils, scale = 1): number {
-  const [sa, sl1, sb, sl2, sd] = [a, l1, b, l2, d].map((v) => v * scale) as [number, number, number, number, number];
-  const want = coilsForceOracle(2.5, 40, sa, sl1, -1.5, 25, sb, sl2, sd);
+/** Relative error of the force for the geometry (times a scale), with currents and turns, against the stored oracle value. */
+function check(region: string, c: CoilsAt, scale = 1): number {
+  const [sa, sl1, sb, sl2, sd] = scaled(c, scale);
+  const want = forceFromAttraction(2.5, 40, -1.5, 25, storedAttraction("filament", scaled(c, scale)));
   const got = force(2.5, 40, sa, sl1, -1.5, 25, sb, sl2, sd);
   const err = Math.abs(got - want) / Math.abs(want);
   worst.set(region, Math.max(worst.get(region) ?? 0, err));
   return err;
 }
 
-function region(name: string, cases: readonly Coils[], bound = 1e-14, scales: readonly number[] = [1]) {
+function region({ name, cases, scales }: Region, bound = 1e-14) {
   const wrong: string[] = [];
   for (const c of cases) for (const s of scales) {
     const err = check(name, c, s);
@@ -43,77 +53,52 @@ function region(name: string, cases: readonly Coils[], bound = 1e-14, scales: re
 
 describe("coaxialCoilsForce against a decimal.js oracle of the integrated filament force", () => {
   it("the oracle's reduction agrees with the double integral of Babic and Akyel's force as written (separated coils)", () => {
-    for (const c of [[1, 1, 0.8, 0.5, 2], [0.3, 0.2, 1, 0.6, 1.1]] as Coils[]) {
-      const single = coilsAttractionOracle(...c);
-      const double = coilsDoubleIntegral(...c);
-      // The double integral passes node distances through doubles (loops-oracle takes doubles): 1e-16 level.
-      expect(double.minus(single).div(single).abs().toNumber()).toBeLessThan(1e-15);
+    // The double integral passes node distances through doubles (loops-oracle takes doubles): 1e-16 level.
+    // Both stored, every case; and both recomputed live for one.
+    for (const c of REDUCTION_CASES) {
+      expect(relative(storedAttraction("doubleIntegral", c), storedAttraction("filament", c)), `${c}`).toBeLessThan(1e-15);
     }
+    const live = REDUCTION_CASES[LIVE_REDUCTION]!;
+    expect(relative(coilsDoubleIntegral(...live), coilsAttractionOracle(...live)), `${live}`).toBeLessThan(1e-15);
   });
 
   it("the oracle is converged: other orders, grading, tanh-sinh steps and digits agree to 1e-20, log-singular ends included", () => {
-    for (const c of [[1, 1, 1, 0.7, 0.3], [1, 1, 1, 0.7, 0.85 * (1 + 1e-9)], [1, 4, 0.5, 1, 1e-3]] as Coils[]) {
-      const base = coilsAttractionOracle(...c);
-      const other = coilsAttractionOracle(...c, { order: 32, grade: 0.2, step: 1 / 32, extraDigits: 8 });
-      expect(other.minus(base).div(base).abs().toNumber(), `${c}`).toBeLessThan(1e-20);
+    // Both settings stored, every case (the fixture script asserts the same when it writes them); one live.
+    for (const c of CONVERGENCE_CASES) {
+      expect(relative(storedAttraction("filamentOther", c), storedAttraction("filament", c)), `${c}`).toBeLessThan(1e-20);
+    }
+    const live = CONVERGENCE_CASES[LIVE_CONVERGENCE]!;
+    expect(relative(coilsAttractionOracle(...live, CONVERGENCE_SETTINGS), coilsAttractionOracle(...live)), `${live}`).toBeLessThan(1e-20);
+  });
+
+  it("the fixture holds the oracle's values: a few recomputed live agree to its 40 digits", () => {
+    for (const c of LIVE_CASES) {
+      expect(relative(coilsAttractionOracle(...c), storedAttraction("filament", c)), `${c}`).toBeLessThan(1e-38);
     }
   });
 
   it("near-touching coils, from outside and from inside, equal and unequal radii", () => {
-    region("near touching", [
-      [1, 1, 1, 0.7, 0.85 * (1 + 1e-3)],
-      [1, 1, 1, 0.7, 0.85 * (1 + 1e-12)],
-      [1, 1, 1, 0.7, 0.85], // touching: the windings meet at one plane
-      [1, 1, 0.999, 0.7, 0.85 * (1 + 1e-6)],
-      [1, 0.018336, 1, 1.5714, 0.794866], // overlapping by 2e-6
-      [1, 23.2271, 1, 0.245359, 11.7362], // overlapping by 3e-5, long against short
-    ]);
+    region(REGIONS.nearTouching);
   });
 
   it("very different radii, separated and one inside the other", () => {
-    region("different radii", [
-      [1, 0.5, 1e-3, 0.5, 1],
-      [1e-3, 0.5, 1, 0.5, 1],
-      [1, 2, 1e-3, 0.5, 0.3],
-      [1, 0.0054, 6236.2, 4.1276, 1.89973],
-    ], 1e-14, [1, 1e-200, 1e200]);
+    region(REGIONS.differentRadii);
   });
 
   it("far apart, out to a million coil lengths", () => {
-    region("far apart", [
-      [1, 1, 0.8, 0.5, 1e3],
-      [1, 1, 0.8, 0.5, 1e6],
-      [1, 0.0039, 0.0025, 920.9, 4.161e6],
-    ], 1e-14, [1, 1e-150]);
+    region(REGIONS.farApart);
   });
 
   it("overlapping and nested coils, down to nearly concentric (the force falls as the offset)", () => {
-    region("overlapping", [
-      [1, 4, 0.5, 1, 0.5],
-      [1, 4, 0.5, 1, 1e-3],
-      [1, 4, 0.5, 1, 1e-8],
-      [1, 171.06, 0.0311685, 0.0157482, 2.02992], // a short coil deep inside a long one
-      [1, 910.035, 0.569725, 0.00322232, 436.875],
-    ]);
+    region(REGIONS.overlapping);
   });
 
   it("equal radii: separated, overlapping (log-singular filament force where turns meet) and nearly concentric", () => {
-    region("equal radii", [
-      [1, 1, 1, 1, 3],
-      [1, 1, 1, 0.7, 0.3],
-      [1, 1, 1, 0.7, 1e-6],
-      [1, 511.984, 1, 8.42628, 216.49],
-      [1, 1e-5, 1, 1e-5, 1e-20], // 1e-15 of a length off centre: the 1/v attraction below 1e-16 of the piece (was 1.6e-3 low)
-    ]);
+    region(REGIONS.equalRadii);
   });
 
   it("very different lengths: a short coil beside and at the end of a long one", () => {
-    region("different lengths", [
-      [1, 281.842, 32.2115, 0.102877, 281.487],
-      [1, 420.31, 0.00166183, 23.7483, 261.077],
-      [1, 1000, 0.5, 0.01, 1.5],
-      [1, 1e4, 1, 1e4, 1e4],
-    ]);
+    region(REGIONS.differentLengths);
   });
 
   it("reports the worst relative error per region", () => {

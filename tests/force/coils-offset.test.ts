@@ -13,11 +13,12 @@ import { coaxialSheetsOracle } from "../inductance/oracle.js";
 import { dec, type Dec } from "../math/decimal-elliptic.js";
 import { coilsAttractionOracle } from "./coils-oracle.js";
 import { concentricAttraction, offsetAttractionOracle } from "./coils-offset-oracle.js";
+import { FLAT_CASES, LEADING_CASES, OFFSET_CASES, OFFSET_GEOMETRIES, OFFSETS, WINDOW_VS_DOUBLE, type Coils, type CoilsAt } from "./coils-cases.js";
+import { storedAttraction } from "./coils-fixture.js";
 import { loopsForceOracleDecimal } from "./loops-oracle.js";
 import { MU0 } from "./oracle.js";
 
 const m = (v: number) => v as Length;
-type Coils = readonly [a: number, l1: number, b: number, l2: number];
 const I1 = 2.5, N1 = 40, I2 = -1.5, N2 = 25;
 const force = ([a, l1, b, l2]: Coils, d: number, i1 = I1, i2 = I2) =>
   coaxialCoilsForce({
@@ -28,38 +29,36 @@ const force = ([a, l1, b, l2]: Coils, d: number, i1 = I1, i2 = I2) =>
 const newtons = (g: Dec, i1 = I1, i2 = I2): Dec => g.times(MU0).times(i1).times(i2).times(N1).times(N2);
 const relative = (x: Dec, y: Dec): number => x.minus(y).div(y).abs().toNumber();
 
-// Identical coils, equal radii with unequal lengths and the reverse, nested, flat sheets,
-// lengths one ulp apart (turns of equal radii meeting |h1 - h2| = 2^-53 from the offset),
-// radii 1e-9 apart, a short coil inside a long one.
-const GEOMETRIES: readonly Coils[] = [
-  [1, 1, 1, 1],
-  [1, 1, 1, 0.7],
-  [1, 1, 0.8, 1],
-  [1, 4, 0.5, 1],
-  [1, 1e-3, 1, 1e-3],
-  [1, 1, 1, 1 - 2 ** -52],
-  [1, 1, 1 - 1e-9, 1 - 1e-9],
-  [1, 100, 0.5, 0.01],
-];
-const OFFSETS = [1e-2, 1e-5, 1e-10, 2.5e-20, 1e-200]; // of the first coil's length
+// The cases (tests/force/coils-cases.ts) and the window oracle's values for them are in the fixture
+// tests/force/fixtures/coils-oracle.json (written by npx tsx tests/force/make-coils-fixture.ts, 40 digits):
+// the library is compared with the stored values for every case, and a few are recomputed live below.
+const window = (c: CoilsAt): Dec => storedAttraction("window", c);
+// Identical coils at the least offset (log-singular m0), nested coils, flat coils of unequal radii 1e-160 of a radius long.
+const LIVE_WINDOW_CASES: readonly CoilsAt[] = [[1, 1, 1, 1, 1e-200], [1, 4, 0.5, 1, 4e-5], FLAT_CASES[2]!];
 
 describe("coaxialCoilsForce for nearly concentric coils (window oracle of Maxwell's M)", () => {
   it("the window oracle agrees with the double integral of the filament force where both converge", () => {
     // Identical coils 1e-20 of a length off centre: the double integral's signed integrand cancels to
     // 1e-20 of itself (it needs 45 points a panel there); before, with 24 points, it came out 2e-19 off.
-    for (const [c, d] of [[[1, 1, 1, 1], 0.1], [[1, 4, 0.5, 1], 1e-2], [[1, 1, 0.8, 1], 1e-3], [[1, 1, 1, 1], 1e-20]] as const) {
-      const [a, l1, b, l2] = c;
-      expect(relative(offsetAttractionOracle(a, l1, b, l2, d), coilsAttractionOracle(a, l1, b, l2, d)), `${c} ${d}`).toBeLessThan(1e-22);
+    // Both oracles' stored values, every case (the fixture script asserts the same when it writes them):
+    for (const c of WINDOW_VS_DOUBLE) {
+      expect(relative(window(c), storedAttraction("filament", c)), `${c}`).toBeLessThan(1e-22);
+    }
+    // and both recomputed live for one case.
+    const live: CoilsAt = [1, 1, 0.8, 1, 1e-3];
+    expect(relative(offsetAttractionOracle(...live), coilsAttractionOracle(...live)), `${live}`).toBeLessThan(1e-22);
+  }, 120_000);
+
+  it("the fixture holds the window oracle's values: a few recomputed live agree to its 40 digits", () => {
+    for (const c of LIVE_WINDOW_CASES) {
+      expect(relative(offsetAttractionOracle(...c), window(c)), `${c}`).toBeLessThan(1e-38);
     }
   }, 120_000);
 
   it("the window oracle tends to its leading term: 2d [m0(c) - m0(s)], and 2d [a (ln(8a/d) - 1) - m0(s)] for identical coils", () => {
-    for (const c of [[1, 1, 1, 1], [1, 4, 0.5, 1], [1, 1, 0.8, 1]] as const) {
-      for (const d of [1e-20, 1e-200]) {
-        const [a, l1, b, l2] = c;
-        // The next term is O((d / min(a, c))^2 ln): 1e-40 relative at d = 1e-20.
-        expect(relative(concentricAttraction(a, l1, b, l2, d), offsetAttractionOracle(a, l1, b, l2, d)), `${c} ${d}`).toBeLessThan(1e-35);
-      }
+    for (const c of LEADING_CASES) {
+      // The next term is O((d / min(a, c))^2 ln): 1e-40 relative at d = 1e-20.
+      expect(relative(concentricAttraction(...c), window(c)), `${c}`).toBeLessThan(1e-35);
     }
   });
 
@@ -76,28 +75,25 @@ describe("coaxialCoilsForce for nearly concentric coils (window oracle of Maxwel
   it("agrees with the window oracle to 1e-14 from 1e-2 to 1e-200 of a length off centre", () => {
     const wrong: string[] = [];
     let worst = 0;
-    for (const c of GEOMETRIES) {
-      for (const r of OFFSETS) {
-        const d = r * c[1];
-        const want = newtons(offsetAttractionOracle(...c, d));
-        const err = relative(new (dec(40))(force(c, d)), want);
-        worst = Math.max(worst, err);
-        if (!(err < 1e-14)) wrong.push(`${c} at ${r}: ${err.toExponential(2)}`);
-      }
+    expect(OFFSET_CASES).toHaveLength(OFFSET_GEOMETRIES.length * OFFSETS.length);
+    for (const c of OFFSET_CASES) {
+      const [a, l1, b, l2, d] = c;
+      const err = relative(new (dec(40))(force([a, l1, b, l2], d)), newtons(window(c)));
+      worst = Math.max(worst, err);
+      if (!(err < 1e-14)) wrong.push(`${c}: ${err.toExponential(2)}`);
     }
     console.log(`coaxialCoilsForce nearly concentric, worst relative error ${worst.toExponential(1)}`);
     expect(wrong).toEqual([]);
-  }, 300_000);
+  });
 
   it("flat coils of unequal radii, lengths 1e-200 and 1e-300 of a radius: the window oracle (any offset)", () => {
     // The sum's terms are of the size of the lengths squared there: it came out 0 (1e-200) or 2e-5 off (1e-160).
-    for (const l of [1e-160, 1e-200, 1e-300]) {
-      for (const r of [3, 0.5, 1e-3]) {
-        const c: Coils = [1, l, 0.5, l];
-        expect(relative(new (dec(40))(force(c, r * l)), newtons(offsetAttractionOracle(...c, r * l))), `${l} at ${r}`).toBeLessThan(1e-14);
-      }
+    // Lengths 1e-160, 1e-200 and 1e-300 of a radius, offsets 3, 0.5 and 1e-3 of the length.
+    for (const c of FLAT_CASES) {
+      const [a, l1, b, l2, d] = c;
+      expect(relative(new (dec(40))(force([a, l1, b, l2], d)), newtons(window(c))), `${c}`).toBeLessThan(1e-14);
     }
-  }, 120_000);
+  });
 
   it("subnormal offsets: the force is the leading term times d, to one subnormal step; below 2^-1074 out_of_range", () => {
     // Before, the overlap weights (of order d) made subnormal products: 1.6e-7 off at d = 4e-315 m and 0

@@ -208,11 +208,8 @@ export function coilsAttractionOracle(a: number, l1: number, b: number, l2: numb
   return total.div(exact(l1, digits).times(exact(l2, digits)));
 }
 
-/** The force in N: mu0 N1 N2 I1 I2 G / (l1 l2) (mu0 from the CODATA 2022 string). */
-export function coilsForceOracle(
-  i1: number, n1: number, a: number, l1: number, i2: number, n2: number, b: number, l2: number, d: number, options: SheetsOracleOptions = {},
-): number {
-  const g = coilsAttractionOracle(a, l1, b, l2, d, options);
+/** The force in N from the oracle's attraction g (a stored value or a fresh one): mu0 N1 N2 I1 I2 g (mu0 from the CODATA 2022 string). */
+export function forceFromAttraction(i1: number, n1: number, i2: number, n2: number, g: Dec): number {
   const D = dec(60);
   const mu0 = constantDecimal(constant("vacuumPermeability"), D);
   return mu0.times(exact(i1)).times(exact(i2)).times(exact(n1)).times(exact(n2)).times(new D(g)).toNumber();
