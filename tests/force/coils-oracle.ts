@@ -121,7 +121,7 @@ export interface SheetsOracleOptions {
 }
 
 /**
- * G = F l1 l2 / (mu0 N1 N2 I1 I2) in m (positive = attraction), for radii a, b,
+ * G = F / (mu0 N1 N2 I1 I2) in 1/m (positive = attraction): the double integral over both windings, divided by l1 l2, for radii a, b,
  * lengths l1, l2 and centre distance d, from the exact decimal values of the doubles.
  */
 export function coilsAttractionOracle(a: number, l1: number, b: number, l2: number, d: number, options: SheetsOracleOptions = {}): Dec {
