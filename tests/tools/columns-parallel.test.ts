@@ -3,29 +3,20 @@
 // row messages, notes), whatever form the columns take. evaluateColumns itself
 // is checked row by row against evaluate in columns.test.ts; here the
 // synchronous call is the reference.
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { parallelPlateCapacitance } from "../../src/capacitance/index.js";
 import type { Progress } from "../../src/core/progress.js";
 import { evaluateColumns, MAX_COLUMN_ROWS } from "../../src/tools/columns.js";
 import { columnsParallel, MIN_PARALLEL_ROWS } from "../../src/tools/columns-parallel.js";
-import { MAX_WORKERS, poolSplit } from "../../src/tools/parallel.js";
-import { closeWorkers, workerThreads } from "../../src/tools/pool.node.js";
+import { MAX_WORKERS } from "../../src/tools/parallel.js";
+import { workerThreads } from "../../src/tools/pool.node.js";
+import { poolAboveCounts } from "../helpers/pool.js";
 import { expectSameColumns } from "../helpers/columns.js";
 import { expectRejection } from "../helpers/errors.js";
 import { steppedClock } from "./progress-harness.js";
 
-// Tables above MIN_PARALLEL_ROWS go to the pool whatever their timed first rows
-// say (the seam poolSplit.minPoolMs at 0), so the pool is tested on any machine.
-const minPoolMs = poolSplit.minPoolMs;
-beforeAll(() => {
-  poolSplit.minPoolMs = 0;
-});
-
-afterAll(async () => {
-  poolSplit.minPoolMs = minPoolMs;
-  await closeWorkers();
-  expect(workerThreads()).toBe(0);
-});
+// Tables above MIN_PARALLEL_ROWS go to the pool whatever their timed first rows say.
+poolAboveCounts();
 
 const N = MIN_PARALLEL_ROWS + 1234;
 

@@ -1,4 +1,4 @@
-import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { describe, expect, it } from "vitest";
 import { parallelPlateCapacitance } from "../../src/capacitance/index.js";
 import { FormulaError } from "../../src/core/errors.js";
 import { defineFormula } from "../../src/core/formula.js";
@@ -9,6 +9,7 @@ import {
   biotSavartParallel, mutualInductanceParallel, polylineSelfInductanceParallel, poolSplit, splitRange, sweepParallel, toleranceParallel,
 } from "../../src/tools/parallel.js";
 import { closeWorkers, workerThreads } from "../../src/tools/pool.node.js";
+import { poolAboveCounts } from "../helpers/pool.js";
 import { sweep } from "../../src/tools/sweep.js";
 import { tolerance } from "../../src/tools/tolerance.js";
 import { expectRejection } from "../helpers/errors.js";
@@ -20,16 +21,7 @@ import { expectRejection } from "../helpers/errors.js";
 // first items say (the seam poolSplit.minPoolMs at 0), so the pool is tested on
 // any machine; the estimate itself has its own test below.
 const COUNTS = [1, 2, 3];
-const minPoolMs = poolSplit.minPoolMs;
-beforeAll(() => {
-  poolSplit.minPoolMs = 0;
-});
-
-afterAll(async () => {
-  poolSplit.minPoolMs = minPoolMs;
-  await closeWorkers();
-  expect(workerThreads()).toBe(0);
-});
+poolAboveCounts();
 
 describe("the estimate of the work", { timeout: 300_000 }, () => {
   it("keeps a call above the counts in the calling thread when its timed first items say the rest is short, with the same result", async () => {
