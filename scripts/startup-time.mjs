@@ -2,7 +2,8 @@
 // of N fresh processes each for bare `node -e ""`, `import "emquant"`, and the
 // CLI's help, compute (with common unit strings, and with one left to mathjs) and a small sweep (job thread). Run after `npm run build`;
 // `node scripts/startup-time.mjs [runs]`. Prints times and ratios to bare node
-// (a benchmark, not a test: no thresholds).
+// (a benchmark, not a test: no thresholds). Last, the import's own time read
+// inside the process.
 // Beside the wall time, each process's own CPU time (user + system, all its
 // threads, read at exit): on a shared machine wall time grows with the other
 // load, CPU time much less, so compare changes by CPU time and the ratios, and
@@ -66,4 +67,15 @@ cases.forEach(([name], i) => {
   });
 });
 console.table(results);
+// The import statement's own time, read inside the process (hrtime around
+// `await import`): what a program that already runs pays to load the package,
+// without node's own start. Both readings go into the README.
+const inProcess = [];
+for (let r = 0; r < runs; r++) {
+  const code = `const t=process.hrtime.bigint();await import(${JSON.stringify(entry)});process.stdout.write(String(Number(process.hrtime.bigint()-t)/1e6))`;
+  const p = spawnSync(process.execPath, ["--input-type=module", "-e", code], { encoding: "utf8" });
+  if (p.status !== 0) throw new Error(`in-process import exited ${p.status}`);
+  inProcess.push(Number(p.stdout));
+}
+console.log(`import "emquant" alone, timed inside the process: median ${median(inProcess).toFixed(1)} ms`);
 console.log(`${runs} runs each, Node ${process.versions.node}, ${new Date().toISOString().slice(0, 16)}Z, load average (1, 5, 15 min) ${loadBefore} before, ${load()} after`);

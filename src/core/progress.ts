@@ -75,7 +75,10 @@ export interface Ticker {
   check(): void;
 }
 
-const now: () => number = typeof performance !== "undefined" ? () => performance.now() : () => Date.now();
+// Looked up per call (a test may replace performance.now to drive the report
+// rate), and only when a long call runs: in Node 20 the first read of the
+// global `performance` loads perf_hooks, which `import "emquant"` need not pay.
+const now = (): number => (typeof performance !== "undefined" ? performance.now() : Date.now());
 
 /**
  * The Ticker of a call of `tool` over `total` items. Checks the options'
