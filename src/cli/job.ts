@@ -19,7 +19,9 @@ import { type LineStream, ProgressLine, REDRAW_MS } from "./progress-line.js";
  *   the command was cancelled, the job is cancelled through its AbortSignal
  *   (a thread that has not ended STOP_GRACE_MS later is terminated), and the
  *   exit status is 128 + the signal's number (130, 143). A second signal ends
- *   the process at once with that status.
+ *   the process at once with that status. A signal that comes after the
+ *   command has finished (its result written, its thread ending) only ends
+ *   the thread at once: the exit status stays the command's.
  */
 
 /** Time the job thread has to end after a cancel before it is terminated, ms. */
@@ -39,6 +41,8 @@ export interface JobEnv {
    * after a cancel or its last message). For tests and diagnostics.
    */
   threadEnded?(how: "itself" | "terminated"): void;
+  /** Told when the job's exit status has arrived (its output is complete; the thread is ending). For tests. */
+  jobDone?(): void;
   /** STOP_GRACE_MS unless given (tests). */
   readonly graceMs?: number;
 }
@@ -115,6 +119,13 @@ export function runLongCommand(argv: readonly string[], command: LongCommand, en
     };
     const offSignal = env.onSignal((signal) => {
       const code = 128 + constants.signals[signal];
+      if (status !== undefined && cancelled === undefined) {
+        // The command has finished and its output is written; only the thread's
+        // teardown is left. Reporting "cancelled" with 130 after a complete result
+        // would be false: end the thread now and finish as the command did.
+        terminate();
+        return;
+      }
       if (cancelled !== undefined) {
         // A second signal: no more waiting.
         env.exit(code);
@@ -147,6 +158,7 @@ export function runLongCommand(argv: readonly string[], command: LongCommand, en
           return;
         case "done":
           status = m.status;
+          env.jobDone?.();
           // The thread ends by itself now; should something keep it alive, it is ended.
           grace ??= setTimeout(terminate, env.graceMs ?? STOP_GRACE_MS);
           return;

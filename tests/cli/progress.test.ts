@@ -320,6 +320,36 @@ describe("signals while a long command runs (in this process)", () => {
     expect(signal).toBeUndefined();
   });
 
+  it("a signal after the command has finished (its output written, the thread ending) is not reported as a cancel", async () => {
+    const out: string[] = [];
+    const err: string[] = [];
+    const exits: number[] = [];
+    const ended: string[] = [];
+    let signal: ((s: "SIGINT" | "SIGTERM") => void) | undefined;
+    const env: JobEnv = {
+      out: (t) => out.push(t),
+      err: (t) => err.push(t),
+      progress: undefined,
+      onSignal: (l) => {
+        signal = l;
+        return () => (signal = undefined);
+      },
+      exit: (s) => exits.push(s),
+      threadEnded: (how) => ended.push(how),
+      // Ctrl-C in the window between the result and the thread's end.
+      jobDone: () => signal!("SIGINT"),
+    };
+    const argv = ["tolerance", "parallelPlateCapacitance", "area=1 cm^2 +- 1%", "gap=0.1 mm", "--samples", "1000", "--seed", "7"];
+    const status = await runLongCommand(argv, { label: "tolerance", progress: true }, env);
+    expect(status).toBe(0);
+    expect(err).toEqual([]);
+    expect(exits).toEqual([]);
+    expect(out.join("")).toMatch(/mean/i);
+    // Ended at once rather than after its own teardown.
+    expect(ended).toEqual(["terminated"]);
+    expect(signal).toBeUndefined();
+  });
+
   it("terminates a thread that has not ended when the grace time is over (here none: it is still starting)", async () => {
     const ended: string[] = [];
     let signal: ((s: "SIGINT" | "SIGTERM") => void) | undefined;
