@@ -15,7 +15,10 @@
  *
  * Loops: the panels of one segment of path 2 are visited breadth-first; the
  * total number of panels is capped by MAX_PANELS (an invalid_argument error
- * beyond it), and the depth by 50 halvings, so every loop is bounded.
+ * beyond it), and the depth by 50 halvings, so every loop is bounded. The
+ * field evaluations (16 per panel on every segment of path 1) are capped at
+ * MAX_SEGMENT_POINT_PAIRS, checked before any work against the least the job
+ * can need (one panel per segment of path 2) and again as panels are made.
  *
  * Validity: filaments (wire radius small against the distance between the
  * paths); magnetostatics. Newton's third law holds for closed paths.
@@ -39,6 +42,10 @@ export const MAX_PANELS = 200_000;
 
 function bad(input: string, detail: string, value?: unknown): FormulaError {
   return new FormulaError("invalid_argument", { formula: TOOL, input, value, detail });
+}
+
+function tooManyPairs(): FormulaError {
+  return bad("path2", `the panels of path 2 times the segments of path 1 exceed ${MAX_SEGMENT_POINT_PAIRS} field evaluations; use fewer segments on path 1 or split the job`);
 }
 
 function toPath(p: unknown, name: string): Float64Array {
@@ -91,6 +98,11 @@ export function pathForce(
   }
   const segments2 = p2.length / 3 - 1;
   const segments1 = p1.length / 3 - 1;
+  // Every segment of path 2 with a length gives at least one panel: a job certainly
+  // above the field-evaluation cap fails here, before any work, not part-way.
+  let carrying = 0;
+  for (let o = 0; o + 5 < p2.length; o += 3) if (p2[o] !== p2[o + 3] || p2[o + 1] !== p2[o + 4] || p2[o + 2] !== p2[o + 5]) carrying++;
+  if (carrying * ORDER * segments1 > MAX_SEGMENT_POINT_PAIRS) throw tooManyPairs();
   const progress = ticker(TOOL, options, segments2);
   const { nodes, weights } = gaussLegendre(ORDER);
   // Panels visited between two cancellation checks: each visit measures its distance to every segment of path 1.
@@ -148,7 +160,7 @@ export function pathForce(
     const np = n * ORDER;
     pairs += np * segments1;
     if (pairs > MAX_SEGMENT_POINT_PAIRS) {
-      throw bad("path2", `the panels of path 2 times the segments of path 1 exceed ${MAX_SEGMENT_POINT_PAIRS} field evaluations; use fewer segments on path 1 or split the job`);
+      throw tooManyPairs();
     }
     if (points.length < 3 * np) {
       points = new Float64Array(3 * np);

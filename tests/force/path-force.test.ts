@@ -49,4 +49,33 @@ describe("pathForce", () => {
     expect(codeOf(() => pathForce([0, 0, 0, 1, 0, 0], Number.NaN, [0, 1, 0, 1, 1, 0], 1))).toBe("invalid_argument");
     expect(codeOf(() => pathForce([0, 0, 0, 1, 0, Infinity], 1, [0, 1, 0, 1, 1, 0], 1))).toBe("invalid_argument");
   });
+
+  it("refuses, before any work, a job certainly above the field-evaluation cap (naming path2), and counts only segments with a length", () => {
+    // Path 1: a straight line of 100,000 segments; path 2: far away, so one 16-point panel per segment.
+    const n1 = 100_000;
+    const p1 = new Float64Array(3 * (n1 + 1));
+    for (let i = 0; i <= n1; i++) p1[3 * i] = i / n1;
+    const far = (segments: number, repeats = 0): Float64Array => {
+      const p = new Float64Array(3 * (segments + repeats + 1));
+      for (let i = 0; i <= segments + repeats; i++) {
+        p[3 * i] = Math.min(i, segments) / segments;
+        p[3 * i + 1] = 10;
+      }
+      return p;
+    };
+    // 626 segments x 16 points x 100,000 segments = 1.0016e9 > 1e9 field evaluations.
+    let caught: unknown;
+    try {
+      pathForce(p1, 1, far(626), 1);
+    } catch (e) {
+      caught = e;
+    }
+    expect(caught).toMatchObject({ code: "invalid_argument", input: "path2" });
+    expect(String((caught as Error).message)).toMatch(/exceed 1000000000 field evaluations/);
+    // 625 segments with a length (1e9, at the cap) and 50 repeated points pass the check:
+    // with an aborted signal the call then stops as cancelled (the work itself would take seconds).
+    const aborted = AbortSignal.abort();
+    expect(codeOf(() => pathForce(p1, 1, far(625, 50), 1, { signal: aborted }))).toBe("cancelled");
+    expect(codeOf(() => pathForce(p1, 1, far(626), 1, { signal: aborted }))).toBe("invalid_argument");
+  });
 });
